@@ -1,0 +1,61 @@
+"""Concrete properties for composite design: E_c, modular ratio, strength gain with age.
+
+Units: ksi, pcf (unit weight only), days.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+E_STEEL = 29000.0
+"""Modulus of elasticity of steel, ksi (AISC 360-22 Section B2, E = 29,000 ksi)."""
+
+# ACI 209R-92 Eq. 2-1 constants for moist-cured concrete with Type I cement.
+_ACI209_A_DAYS = 4.0
+_ACI209_BETA = 0.85
+
+# AISC 360-22 I1.3: specified strength limits for strength calculations, ksi.
+_FC_RANGE_NORMAL = (3.0, 10.0)
+_FC_RANGE_LIGHTWEIGHT = (3.0, 6.0)
+
+
+def ec(wc_pcf, fc_ksi):
+    """Modulus of elasticity of concrete, E_c = w_c^1.5 sqrt(f'c), ksi (w_c in pcf, f'c in ksi).
+
+    AISC 360-22 Section I2.1b (the E_c used in Eq. I8-1).
+    """
+    wc = np.asarray(wc_pcf, dtype=float)
+    fc = np.asarray(fc_ksi, dtype=float)
+    if np.any(wc <= 0.0) or np.any(fc <= 0.0):
+        raise ValueError(f"unit weight {wc_pcf} pcf and f'c {fc_ksi} ksi must be > 0")
+    return wc**1.5 * np.sqrt(fc)
+
+
+def modular_ratio(ec, es=E_STEEL):
+    """Modular ratio n = E_s / E_c.
+
+    AISC 360-22 Commentary I3.2 (transformed section).
+    """
+    e_c = np.asarray(ec, dtype=float)
+    if np.any(e_c <= 0.0):
+        raise ValueError(f"E_c {ec} ksi must be > 0")
+    return es / e_c
+
+
+def fc_at_age(fc28, days):
+    """Compressive strength at age t days: f'c(t) = f'c * t / (4.0 + 0.85 t); t = 0 gives 0.
+
+    ACI 209R-92 Eq. 2-1 (moist-cured, Type I cement: a = 4.0 days, beta = 0.85).
+    """
+    t = np.asarray(days, dtype=float)
+    if np.any(t < 0.0):
+        raise ValueError(f"age {days} days must be >= 0")
+    return np.asarray(fc28, dtype=float) * t / (_ACI209_A_DAYS + _ACI209_BETA * t)
+
+
+def fc_strength_range(lightweight: bool) -> tuple[float, float]:
+    """(lowest, highest) specified f'c in ksi allowed for composite strength calculations.
+
+    AISC 360-22 I1.3: 3 to 10 ksi normal-weight, 3 to 6 ksi lightweight concrete.
+    """
+    return _FC_RANGE_LIGHTWEIGHT if lightweight else _FC_RANGE_NORMAL

@@ -1,0 +1,1 @@
+"""Generated data tables (Python modules, no files read at run time)."""

@@ -1,0 +1,75 @@
+"""Deck and stud detailing limits: AISC 360-22 I3.2c.1 (formed steel deck), I8.1 and I8.2d."""
+
+from __future__ import annotations
+
+import numpy as np
+
+from engine.checks import Check, Flag
+from engine.model import BeamInput
+from engine.section import StudGroups
+
+DECK_ANCHOR_SPACING_MAX = 18.0  # in, AISC 360-22 I3.2c.1
+
+
+def deck_checks(beam: BeamInput) -> list[Check]:
+    """Formed-deck limits of AISC 360-22 I3.2c.1 that depend on the slab and stud geometry."""
+    slab, deck, spec = beam.slab, beam.slab.deck, beam.studs
+    checks: list[Check] = []
+    if deck is not None:
+        checks += [
+            Check("rib height", "AISC 360-22 I3.2c.1(a)", deck.rib_height, 3.0, "in", kind="detailing"),
+            Check("average rib width (min 2 in)", "AISC 360-22 I3.2c.1(b)", 2.0, deck.rib_average_width, "in", kind="detailing"),
+            Check("stud diameter through deck", "AISC 360-22 I3.2c.1(c)", spec.diameter, 0.75, "in", kind="detailing"),
+            Check("stud projection above deck (min 1 1/2 in)", "AISC 360-22 I3.2c.1(c)",
+                  1.5, spec.length - deck.rib_height, "in", kind="detailing"),
+            Check("slab thickness above deck (min 2 in)", "AISC 360-22 I3.2c.1(d)", 2.0, slab.topping, "in", kind="detailing"),
+        ]
+    checks += [
+        Check("concrete cover over stud head (min 1/2 in)", "AISC 360-22 I3.2c.1(c)",
+              0.5, slab.total_thickness - spec.length, "in", kind="detailing"),
+        Check("stud length (min 4 d)", "AISC 360-22 I8.2", 4.0 * spec.diameter, spec.length, "in", kind="detailing"),
+    ]
+    return checks
+
+
+def studs_across_flange(beam: BeamInput) -> int:
+    """Most studs that fit in one transverse row on the flange: 4d apart (AISC 360-22 I8.2d),
+    each shank fully on the flange (common practice), and no more than the job allows."""
+    d = beam.studs.diameter
+    fit = int(np.floor((beam.shape.bf - d) / (4.0 * d) + 1e-9)) + 1
+    return max(0, min(fit, beam.studs.max_per_rib))
+
+
+def spacing_checks(beam: BeamInput, groups: StudGroups) -> tuple[list[Check], list[Flag]]:
+    """Stud spacing, base-metal and deck-anchorage limits for a placed stud arrangement."""
+    d = beam.studs.diameter
+    checks: list[Check] = []
+    flags: list[Flag] = []
+    if groups.total == 0:
+        return checks, flags
+    x = np.sort(groups.x)
+    perpendicular = beam.slab.deck is not None and beam.orientation == "perpendicular"
+    smin = 4.0 * d if perpendicular else 6.0 * d
+    smax = min(8.0 * beam.slab.total_thickness, 36.0)
+    gaps = np.diff(x)
+    ends = np.array([x[0], beam.span - x[-1]])
+    if gaps.size:
+        i = int(np.argmin(gaps))
+        checks.append(Check("stud spacing along beam (min)", "AISC 360-22 I8.2d", smin, gaps[i], "in",
+                            station=float(x[i]), kind="detailing"))
+        j = int(np.argmax(gaps))
+        checks.append(Check("stud spacing along beam (max)", "AISC 360-22 I8.2d", gaps[j], smax, "in",
+                            station=float(x[j]), kind="detailing"))
+    most = int(groups.count.max())
+    checks.append(Check("studs in one transverse row", "AISC 360-22 I8.2d (4d transverse)",
+                        most, studs_across_flange(beam), "studs", kind="detailing"))
+    if most >= 2:
+        checks.append(Check("stud diameter off the web (max 2.5 tf)", "AISC 360-22 I8.1",
+                            d, 2.5 * beam.shape.tf, "in", kind="detailing"))
+    if perpendicular:
+        longest = float(max(gaps.max() if gaps.size else 0.0, ends.max()))
+        if longest > DECK_ANCHOR_SPACING_MAX + 1e-9:
+            flags.append(Flag("AISC 360-22 I3.2c.1",
+                              f"studs alone leave up to {longest:.1f} in between deck anchors (max 18 in): "
+                              "the ribs without studs need puddle welds or other specified anchors"))
+    return checks, flags

@@ -1,0 +1,217 @@
+"""Finished-beam evaluation: one entry point used by the CLI, the workbench, sheets and tests.
+
+Composite flexure along the span (AISC 360-22 I3.2a with the slab force available at each
+station, I3.2d.1 / I8.2c), web shear on the steel alone (I4.3, G2.1), live-load and total
+deflection with I_LB (Commentary Eq. C-I3-1), minimum degree of composite, and detailing.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+
+from engine.aisc360.composite import (
+    effective_width,
+    equivalent_inertia,
+    lower_bound_inertia,
+    pna_label,
+    plastic_moment,
+    transformed_inertia,
+)
+from engine.aisc360.concrete import E_STEEL, ec, fc_strength_range
+from engine.aisc360.shear import web_shear_strength
+from engine.checks import Check, Flag
+from engine.detailing import deck_checks, spacing_checks
+from engine.loads import combinations, factored, finished_loads
+from engine.model import BeamInput
+from engine.section import StudGroups, slab_force, uniform_groups
+from engine.statics import deflection, max_abs_shear, shear_moment, stations
+
+PHI_B, OMEGA_B = 0.90, 1.67  # AISC 360-22 I3.2a
+MIN_COMPOSITE = 0.25  # Commentary I3.2a/I3.2d lower limit of the I_equiv fit (common practice minimum)
+
+
+class OutOfScope(ValueError):
+    """The input lies outside what the engine checks; the message names the clause."""
+
+    def __init__(self, field: str, message: str):
+        super().__init__(message)
+        self.field = field
+
+
+@dataclass(frozen=True, slots=True)
+class BeamResult:
+    """Everything `evaluate_beam` found for one beam. Arrays are per station `x`."""
+
+    beam: BeamInput
+    x: np.ndarray
+    mu: np.ndarray  # LRFD demand envelope (kip-in)
+    ma: np.ndarray  # ASD demand (kip-in)
+    mn: np.ndarray  # nominal composite strength with the slab force available at x (kip-in)
+    slab_force: np.ndarray  # C(x), kips
+    groups: StudGroups
+    b_eff: float
+    ac: float
+    cf: float
+    ec: float
+    n: float
+    critical: int  # station index of the largest demand
+    sum_qn_left: float
+    sum_qn_right: float
+    composite_ratio: float
+    pna: str
+    i_tr: float
+    i_lb: float
+    i_equiv: float
+    vu: float
+    va: float
+    phi_vn: float
+    vn_omega: float
+    live_deflection: float
+    after_cure_deflection: float  # superimposed dead + live on the composite section
+    checks: tuple[Check, ...]
+    flags: tuple[Flag, ...]
+
+    @property
+    def capacity(self) -> np.ndarray:
+        """Available strength along the span for the beam's method (phi Mn or Mn / Omega)."""
+        return PHI_B * self.mn if self.beam.method == "LRFD" else self.mn / OMEGA_B
+
+    @property
+    def demand(self) -> np.ndarray:
+        return self.mu if self.beam.method == "LRFD" else self.ma
+
+    @property
+    def governing(self) -> Check:
+        """The failing check with the highest ratio; with none failing, the highest-ratio
+        strength or serviceability check (detailing limits are often met exactly)."""
+        return governing_check(self.checks)
+
+    @property
+    def verdict(self) -> str:
+        return "pass" if all(c.passed for c in self.checks) else "fail"
+
+    @property
+    def qn_per_stud(self) -> float:
+        """Strength of the weakest stud on the beam (kip); 0 with no studs."""
+        return float(self.groups.qn.min()) if self.groups.total else 0.0
+
+
+def governing_check(checks: tuple[Check, ...] | list[Check]) -> Check:
+    failing = [c for c in checks if not c.passed]
+    pool = failing or [c for c in checks if c.kind != "detailing"] or list(checks)
+    return max(pool, key=lambda c: c.ratio)
+
+
+def check_scope(beam: BeamInput) -> None:
+    """Refuse inputs outside the engine's scope, naming the clause (AISC 360-22 I1.3, I3.2c.1)."""
+    lo, hi = fc_strength_range(beam.slab.lightweight)
+    if not lo <= beam.slab.fc_ksi <= hi:
+        kind = "lightweight" if beam.slab.lightweight else "normal-weight"
+        raise OutOfScope("fc_ksi", f"f'c = {beam.slab.fc_ksi:g} ksi is outside {lo:g}-{hi:g} ksi for "
+                         f"{kind} concrete (AISC 360-22 I1.3); not computed")
+    deck = beam.slab.deck
+    if deck is not None and deck.rib_height > 3.0:
+        raise OutOfScope("rib_height", f"rib height {deck.rib_height:g} in exceeds 3 in "
+                         "(AISC 360-22 I3.2c.1(a)); not computed")
+    if deck is not None and beam.studs.diameter > 0.75:
+        raise OutOfScope("diameter", f"stud diameter {beam.studs.diameter:g} in exceeds 3/4 in through deck "
+                         "(AISC 360-22 I8.1 / I3.2c.1(c)); not computed")
+    if beam.fy > 70.0:
+        raise OutOfScope("fy_ksi", f"Fy = {beam.fy:g} ksi exceeds 70 ksi; plastic stress distribution "
+                         "not established (AISC 360-22 I3.2a); not computed")
+
+
+def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResult:
+    """Evaluate the finished composite beam with the studs in `groups` (default: the specified
+    count spread uniformly, AISC 360-22 I8.2d)."""
+    check_scope(beam)
+    shape, slab = beam.shape, beam.slab
+    if groups is None:
+        groups = uniform_groups(beam, beam.studs.count or 0)
+    x = stations(beam.span, beam.n_stations)
+    loads = finished_loads(beam)
+
+    mu = np.zeros_like(x)
+    vu = 0.0
+    for fd, fl in combinations("LRFD"):
+        combo = factored(loads.dead, loads.live, fd, fl)
+        mu = np.maximum(mu, shear_moment(x, beam.span, combo)[1])
+        vu = max(vu, max_abs_shear(beam.span, combo))
+    service = factored(loads.dead, loads.live, 1.0, 1.0)
+    ma = shear_moment(x, beam.span, service)[1]
+    va = max_abs_shear(beam.span, service)
+
+    b_left, b_right = effective_width(beam.span, beam.slab_left, beam.slab_right)
+    b_eff = b_left + b_right
+    ac = slab.strength_concrete_area(b_eff, beam.orientation)
+    as_fy = shape.area * beam.fy
+    cf = min(as_fy, 0.85 * slab.fc_ksi * ac)
+    # The stress block is taken within the topping; where it would reach into parallel ribs the
+    # force is limited to the topping (conservative; AISC 360-22 I3.2a).
+    c_block = min(cf, 0.85 * slab.fc_ksi * b_eff * slab.topping)
+    c, left, right = slab_force(x, groups, cf)
+    y_con = slab.total_thickness
+    plastic = plastic_moment(np.minimum(c, c_block), shape, beam.fy, slab.fc_ksi, b_eff, y_con)
+    mn = plastic.mn
+
+    demand = mu if beam.method == "LRFD" else ma
+    capacity = PHI_B * mn if beam.method == "LRFD" else mn / OMEGA_B
+    k = int(np.argmax(demand))
+    ratio = np.divide(demand, capacity, out=np.zeros_like(demand), where=capacity > 0)
+    g = int(np.argmax(ratio))
+
+    e_c = ec(slab.concrete_pcf, slab.fc_ksi)
+    n = E_STEEL / e_c
+    sum_qn = float(min(left[k], right[k]))
+    sum_qn_eff = min(sum_qn, cf)
+    composite_ratio = sum_qn_eff / cf
+    i_tr, _ = transformed_inertia(shape, b_eff, n, slab.topping, y_con)
+    a_k = float(plastic.a[k])
+    i_lb = float(lower_bound_inertia(shape, sum_qn_eff, beam.fy, y_con, a_k)) if sum_qn_eff > 0 else shape.ix
+    i_equiv = float(equivalent_inertia(shape.ix, i_tr, sum_qn_eff, cf)) if sum_qn_eff > 0 else shape.ix
+
+    shear = web_shear_strength(shape, beam.fy)
+    phi_vn, vn_omega = shear.phi * shear.vn, shear.vn / shear.omega
+
+    live_defl = float(deflection(x, beam.span, loads.live, E_STEEL * i_lb).max()) if loads.live else 0.0
+    after_cure = loads.postcomposite_dead + loads.live
+    after_cure_defl = float(deflection(x, beam.span, after_cure, E_STEEL * i_lb).max()) if after_cure else 0.0
+
+    word = "phi Mn" if beam.method == "LRFD" else "Mn/Omega"
+    checks = [
+        Check(f"flexure, composite ({word} along span)", "AISC 360-22 I3.2a, I3.2d.1, I8.2c",
+              float(demand[g]), float(capacity[g]), "kip-in", station=float(x[g])),
+        Check("shear, steel web", "AISC 360-22 I4.3, G2.1",
+              vu if beam.method == "LRFD" else va, phi_vn if beam.method == "LRFD" else vn_omega, "kip"),
+        Check(f"live-load deflection (span/{beam.limits.live_ratio:g})", "AISC 360-22 Commentary I3.2 (I_LB); "
+              "limit common practice", live_defl, beam.span / beam.limits.live_ratio, "in", kind="serviceability"),
+        Check(f"superimposed dead + live deflection (span/{beam.limits.total_ratio:g})",
+              "AISC 360-22 Commentary I3.2 (I_LB); limit common practice",
+              after_cure_defl, beam.span / beam.limits.total_ratio, "in", kind="serviceability"),
+        Check("degree of composite (min 25%)", "AISC 360-22 Commentary I3.2d (common practice)",
+              MIN_COMPOSITE, composite_ratio, "ratio", kind="detailing"),
+    ]
+    checks += deck_checks(beam)
+    spacing, flags = spacing_checks(beam, groups)
+    checks += spacing
+    flags += _ductility_flags(beam, composite_ratio, groups)
+    return BeamResult(
+        beam=beam, x=x, mu=mu, ma=ma, mn=mn, slab_force=c, groups=groups, b_eff=b_eff, ac=ac, cf=cf,
+        ec=e_c, n=n, critical=k, sum_qn_left=float(left[k]), sum_qn_right=float(right[k]),
+        composite_ratio=composite_ratio, pna=pna_label(int(plastic.pna[k])), i_tr=float(i_tr),
+        i_lb=i_lb, i_equiv=i_equiv, vu=vu, va=va, phi_vn=phi_vn, vn_omega=vn_omega,
+        live_deflection=live_defl, after_cure_deflection=after_cure_defl, checks=tuple(checks), flags=tuple(flags),
+    )
+
+
+def _ductility_flags(beam: BeamInput, composite_ratio: float, groups: StudGroups) -> list[Flag]:
+    """AISC 360-22 I3.2d slip capacity: flagged unless a Commentary exemption applies
+    (span <= 30 ft, >= 50% composite, or average stud strength >= 16 kip/ft)."""
+    per_ft = float(groups.strength.sum()) / (beam.span / 12.0)
+    if beam.span <= 360.0 or composite_ratio >= 0.5 or per_ft >= 16.0:
+        return []
+    return [Flag("AISC 360-22 I3.2d, Commentary", "slip capacity not checked: span over 30 ft, composite under "
+                 f"50% and {per_ft:.1f} kip/ft of studs (< 16): the engineer of record must consider connector "
+                 "ductility", severity="not-checked")]

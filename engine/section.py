@@ -1,0 +1,99 @@
+"""Stud groups along a beam and the slab force they can develop at every station.
+
+The available slab force at x is the least of the studs' strength on either side of x and the
+concrete and steel limits (AISC 360-22 I3.2d.1: V' = min(0.85 f'c Ac, Fy As, sum Qn) between
+the point considered and each point of zero moment; I8.2c for concentrated loads).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+
+from engine.aisc360.anchors import qn_stud, rg_rp, stud_area, emid_ht
+from engine.aisc360.concrete import ec
+from engine.model import BeamInput
+from engine.ribs import rib_stations
+
+
+@dataclass(frozen=True, slots=True)
+class StudGroups:
+    """Studs grouped by location: station `x` (in), studs there `count`, strength of each `qn` (kip)."""
+
+    x: np.ndarray
+    count: np.ndarray
+    qn: np.ndarray
+
+    @property
+    def total(self) -> int:
+        return int(self.count.sum())
+
+    @property
+    def strength(self) -> np.ndarray:
+        """Strength of each group (kip)."""
+        return self.count * self.qn
+
+
+def stud_qn(beam: BeamInput, studs_in_rib: np.ndarray, position: np.ndarray | str | None = None) -> np.ndarray:
+    """Strength of one stud in a rib holding `studs_in_rib` studs, for this beam's deck.
+
+    AISC 360-22 Eq. I8-1 with Rg, Rp per I8.2a; e_mid-ht from the rib geometry.
+    """
+    slab = beam.slab
+    deck = slab.deck
+    spec = beam.studs
+    asa = stud_area(spec.diameter)
+    e_c = ec(slab.concrete_pcf, slab.fc_ksi)
+    position = spec.position if position is None else position
+    n = np.asarray(studs_in_rib)
+    if deck is None:
+        rg, rp = rg_rp("none", n)
+    elif beam.orientation == "parallel":
+        rg, rp = rg_rp("parallel", n, wr_over_hr=deck.rib_average_width / deck.rib_height)
+    else:
+        e = emid_ht(deck.rib_mid_height_width, deck.stud_offset, spec.diameter, position)
+        rg, rp = rg_rp("perpendicular", n, emid_ht=e)
+    return qn_stud(asa, slab.fc_ksi, e_c, spec.fu, rg, rp)
+
+
+def uniform_groups(beam: BeamInput, total: int) -> StudGroups:
+    """`total` studs spread uniformly along the beam (AISC 360-22 I8.2d: uniform spacing unless
+    the drawings say otherwise); in perpendicular deck, spread over the available ribs with the
+    extra studs of a rib placed in the ribs nearest the ends."""
+    if total <= 0:
+        return StudGroups(np.empty(0), np.empty(0, dtype=int), np.empty(0))
+    ribs = rib_stations(beam)
+    if beam.slab.deck is not None and beam.orientation == "perpendicular" and ribs.size:
+        base, extra = divmod(total, ribs.size)
+        count = np.full(ribs.size, base, dtype=int)
+        nearest_end_first = np.argsort(np.minimum(ribs, beam.span - ribs), kind="stable")
+        count[nearest_end_first[:extra]] += 1
+        if base == 0:  # fewer studs than ribs: every k-th rib, evenly
+            count[:] = 0
+            idx = np.unique(np.round(np.linspace(0, ribs.size - 1, total)).astype(int))
+            count[idx] = 1
+        keep = count > 0
+        x, count = ribs[keep], count[keep]
+    else:
+        x = beam.span * (np.arange(total) + 0.5) / total
+        count = np.ones(total, dtype=int)
+    return StudGroups(x, count, stud_qn(beam, count))
+
+
+def slab_force(x: np.ndarray, groups: StudGroups, cap: float) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """C(x) = min(sum Qn left of x, sum Qn right of x, cap) at every station.
+
+    A group standing exactly at a station counts half on each side. Returns (C, left, right).
+    AISC 360-22 I3.2d.1 and I8.2c.
+    """
+    strength = groups.strength
+    order = np.argsort(groups.x)
+    gx, gs = groups.x[order], strength[order]
+    cum = np.concatenate(([0.0], np.cumsum(gs)))
+    lo = np.searchsorted(gx, x - 1e-6, side="left")
+    hi = np.searchsorted(gx, x + 1e-6, side="right")
+    at = cum[hi] - cum[lo]
+    left = cum[lo] + 0.5 * at
+    right = cum[-1] - cum[hi] + 0.5 * at
+    return np.minimum(np.minimum(left, right), cap), left, right

@@ -1,0 +1,4 @@
+"""One module per CLI verb. Each defines `register(subparsers)` and `run(args) -> int`, and
+imports numpy, pydantic and the engine only inside `run` so `fieldcomp --help` stays light."""
+
+VERBS = ("check", "shapes", "new", "schema")

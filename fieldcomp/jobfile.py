@@ -1,0 +1,218 @@
+"""Job files: load (TOML, validated), save (atomic, previous version kept as .bak), errors that
+name the file, the beam and the field."""
+
+from __future__ import annotations
+
+import difflib
+import hashlib
+import os
+import tempfile
+import tomllib
+from dataclasses import dataclass
+from pathlib import Path
+from typing import Any
+
+import tomli_w
+from pydantic import BaseModel, ValidationError
+
+from fieldcomp.jobmodel import Job
+
+MAX_BYTES = 20 * 1024 * 1024
+
+
+class JobFileError(ValueError):
+    """Bad job file. `problems` lists (where, message); `where` names table, beam mark and field."""
+
+    def __init__(self, path: str | os.PathLike[str], problems: list[tuple[str, str]]):
+        self.path = str(path)
+        self.problems = problems
+        lines = [f"{self.path}: {where}: {msg}" if where else f"{self.path}: {msg}" for where, msg in problems]
+        super().__init__("\n".join(lines))
+
+
+class ChangedOnDisk(RuntimeError):
+    """The file on disk changed since it was loaded; saving would overwrite someone's edit."""
+
+
+@dataclass(frozen=True, slots=True)
+class LoadedJob:
+    path: Path
+    job: Job
+    digest: str  # sha256 of the bytes loaded, to detect edits by others before saving
+
+
+def parse_job(text: str, path: str | os.PathLike[str] = "<job>") -> Job:
+    """Validate TOML text as a job; raises JobFileError naming file, beam and field."""
+    try:
+        raw = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        raise JobFileError(path, [("", f"not valid TOML: {exc}")]) from None
+    try:
+        job = Job.model_validate(raw)
+    except ValidationError as exc:
+        raise JobFileError(path, _merge([_describe(err, raw) for err in exc.errors()])) from None
+    _check_references(job, path)
+    return job
+
+
+def load_job(path: str | os.PathLike[str]) -> LoadedJob:
+    """Read and validate a job file (TOML only, never executed; refused over 20 MB)."""
+    p = Path(path)
+    try:
+        size = p.stat().st_size
+        if size > MAX_BYTES:
+            raise JobFileError(p, [("", f"file is {size / 1e6:.1f} MB; job files over 20 MB are refused")])
+        data = p.read_bytes()
+    except OSError as exc:
+        raise JobFileError(p, [("", f"cannot read: {exc.strerror or exc}")]) from None
+    try:
+        text = data.decode("utf-8")
+    except UnicodeDecodeError as exc:
+        raise JobFileError(p, [("", f"not UTF-8 text (byte {exc.start})")]) from None
+    return LoadedJob(p, parse_job(text, p), hashlib.sha256(data).hexdigest())
+
+
+def dump_job(job: Job) -> str:
+    """The job as TOML text (defaults left out, so hand-written files stay short)."""
+    return tomli_w.dumps(job.model_dump(mode="json", exclude_defaults=True, exclude_none=True))
+
+
+def save_job(job: Job, path: str | os.PathLike[str], expected_digest: str | None = None) -> str:
+    """Write the job atomically: temp file in the same folder, flush + fsync, previous version
+    kept as `<name>.bak`, then atomic replace. Returns the new digest. Raises ChangedOnDisk if
+    `expected_digest` is given and the file on disk no longer has it."""
+    p = Path(path)
+    data = dump_job(job).encode("utf-8")
+    if expected_digest is not None and p.exists():
+        if hashlib.sha256(p.read_bytes()).hexdigest() != expected_digest:
+            raise ChangedOnDisk(f"{p} changed on disk since it was opened; not overwritten")
+    fd, tmp = tempfile.mkstemp(prefix=f".{p.name}.", suffix=".tmp", dir=p.parent)
+    try:
+        with os.fdopen(fd, "wb") as fh:
+            fh.write(data)
+            fh.flush()
+            os.fsync(fh.fileno())
+        if p.exists():
+            _keep_backup(p)
+        os.replace(tmp, p)
+        _fsync_dir(p.parent)
+    except BaseException:
+        Path(tmp).unlink(missing_ok=True)
+        raise
+    return hashlib.sha256(data).hexdigest()
+
+
+def _keep_backup(p: Path) -> None:
+    """Copy the current file to .bak atomically (the original stays in place until replaced)."""
+    bak = p.with_name(p.name + ".bak")
+    fd, tmp = tempfile.mkstemp(prefix=f".{bak.name}.", suffix=".tmp", dir=p.parent)
+    try:
+        with os.fdopen(fd, "wb") as fh:
+            fh.write(p.read_bytes())
+            fh.flush()
+            os.fsync(fh.fileno())
+        os.replace(tmp, bak)
+    except BaseException:
+        Path(tmp).unlink(missing_ok=True)
+        raise
+
+
+def _fsync_dir(folder: Path) -> None:
+    try:
+        fd = os.open(folder, os.O_RDONLY)
+    except OSError:
+        return
+    try:
+        os.fsync(fd)
+    except OSError:
+        pass
+    finally:
+        os.close(fd)
+
+
+def where(table: str, index: int | None, raw_item: Any, field: str) -> str:
+    """'beam 'B-3' (#4), field 'studs.count'' style location text."""
+    name = ""
+    if isinstance(raw_item, dict):
+        key = "mark" if table == "beam" else "id"
+        if isinstance(raw_item.get(key), str):
+            name = f" '{raw_item[key]}'"
+    num = f" #{index + 1}" if index is not None else ""
+    return f"{table}{name}{num}" + (f", field '{field}'" if field else "")
+
+
+def _merge(problems: list[tuple[str, str]]) -> list[tuple[str, str]]:
+    """One line per place: the alternatives of a union ('an integer' or '"design"') joined."""
+    merged: dict[str, list[str]] = {}
+    for place, msg in problems:
+        merged.setdefault(place, []).append(msg)
+    return [(place, "; or ".join(msgs)) for place, msgs in merged.items()]
+
+
+def _is_union_tag(part: Any) -> bool:
+    """pydantic names union branches in error locations ('int', "literal['design']"); not fields."""
+    return isinstance(part, str) and (part in ("int", "str", "float", "bool", "none") or "[" in part)
+
+
+def _describe(err: dict[str, Any], raw: dict[str, Any]) -> tuple[str, str]:
+    loc = [part for part in err["loc"] if not _is_union_tag(part)]
+    table = str(loc.pop(0)) if loc else ""
+    index = loc.pop(0) if loc and isinstance(loc[0], int) and table in ("beam", "deck", "slab") else None
+    item = raw.get(table)
+    if index is not None and isinstance(item, list) and index < len(item):
+        item = item[index]
+    field = ".".join(str(part) for part in loc)
+    msg = err["msg"].removeprefix("Value error, ")
+    if err["type"] == "extra_forbidden":
+        msg = f"unknown key {loc[-1]!r}" + _hint(str(loc[-1]), _known_keys(table, loc))
+    elif err["type"] == "missing":
+        msg = "required key is missing"
+    elif "input" in err and err["type"] not in ("model_type", "list_type"):
+        msg = f"{msg} (got {err['input']!r})"
+    return where(table, index, item, field), msg
+
+
+def _known_keys(table: str, loc: list[Any]) -> list[str]:
+    model: type[BaseModel] | None = Job
+    path = [table] + [p for p in loc[:-1] if not isinstance(p, int)]
+    for part in path:
+        if model is None or part not in model.model_fields:
+            return []
+        ann = model.model_fields[part].annotation
+        model = next((a for a in _flatten(ann) if isinstance(a, type) and issubclass(a, BaseModel)), None)
+    return list(model.model_fields) if model is not None else []
+
+
+def _flatten(ann: Any) -> list[Any]:
+    args = getattr(ann, "__args__", None)
+    if not args:
+        return [ann]
+    return [x for a in args for x in _flatten(a)]
+
+
+def _hint(word: str, choices: list[str]) -> str:
+    close = difflib.get_close_matches(word, choices, n=1)
+    return f"; did you mean {close[0]!r}?" if close else ""
+
+
+def _check_references(job: Job, path: str | os.PathLike[str]) -> None:
+    problems: list[tuple[str, str]] = []
+    decks = [d.id for d in job.deck]
+    slabs = [s.id for s in job.slab]
+    for table, ids in (("deck", decks), ("slab", slabs)):
+        for i, name in enumerate(ids):
+            if name in ids[:i]:
+                problems.append((f"{table} '{name}' #{i + 1}, field 'id'", "duplicate id"))
+    for i, s in enumerate(job.slab):
+        if s.deck is not None and s.deck not in decks:
+            problems.append((f"slab '{s.id}' #{i + 1}, field 'deck'",
+                             f"no deck with id {s.deck!r}" + _hint(s.deck, decks)))
+    marks: list[str] = []
+    for i, b in enumerate(job.beam):
+        if b.mark in marks:
+            problems.append((f"beam '{b.mark}' #{i + 1}, field 'mark'", "duplicate beam mark"))
+        marks.append(b.mark)
+        if b.slab not in slabs:
+            problems.append((f"beam '{b.mark}' #{i + 1}, field 'slab'", f"no slab with id {b.slab!r}" + _hint(b.slab, slabs)))
+    if problems:
+        raise JobFileError(path, problems)
