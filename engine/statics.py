@@ -12,6 +12,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
+_BLOCK = 13  # stations per block of the prefix product in ponded_deflection (speed only)
+
 
 @dataclass(frozen=True, slots=True)
 class UniformLoad:
@@ -45,9 +47,6 @@ class PointLoad:
 
 
 Load = UniformLoad | PointLoad
-
-
-_BLOCK = 13  # stations per block of the prefix product (speed only)
 
 
 class PondingInstability(ValueError):
@@ -91,7 +90,7 @@ def _check_loads(span: float, loads: Iterable[Load]) -> tuple[Load, ...]:
 def reactions(span: float, loads: Iterable[Load]) -> tuple[float, float]:
     """Left and right support reactions (kip, upward positive) of a simple span.
 
-    Statics (sum of moments about each support); AISC Manual Table 3-23 cases 1, 3, 7, 9.
+    Statics (sum of moments about each support); AISC Manual Table 3-23 (simple beam diagrams).
     """
     left = right = 0.0
     for load in _check_loads(span, loads):
@@ -130,7 +129,7 @@ def _shear_moment(
 def shear_moment(x: np.ndarray, span: float, loads: Iterable[Load]) -> tuple[np.ndarray, np.ndarray]:
     """Exact V (kip) and M (kip-in, sagging +) at x; V is taken just right of a point load.
 
-    Statics of a simple beam, closed forms of AISC Manual Table 3-23 cases 1, 3, 7, 9.
+    Statics of a simple beam, closed forms of AISC Manual Table 3-23 (simple beam diagrams).
     """
     x = np.asarray(x, dtype=float)
     return _shear_moment(x, span, _check_loads(span, loads), right_side=True)
@@ -304,7 +303,8 @@ def ponded_deflection(
     except np.linalg.LinAlgError as exc:
         raise PondingInstability("ponding load makes the beam singular (critical stiffness)") from exc
     y_base, y_probe = (deflections[:, :2] @ starts + deflections[:, 2:]).T
-    if not (np.all(np.isfinite(y_base)) and np.all(y_probe[1:-1] > 0.0)):
+    inside = (x > x[0]) & (x < x[-1])
+    if not (np.all(np.isfinite(y_base)) and np.all(y_probe[inside] > 0.0)):
         crit = float(np.max(k) * span**4 * np.max(flex) / math.pi**4)
         raise PondingInstability(
             "ponding is unstable: the deflection-dependent load exceeds the beam's stiffness "
