@@ -144,9 +144,13 @@ def where(table: str, index: int | None, raw_item: Any, field: str) -> str:
 def _merge(problems: list[tuple[str, str]]) -> list[tuple[str, str]]:
     """One line per place: the alternatives of a union ('an integer' or '"design"') joined."""
     merged: dict[str, list[str]] = {}
+    loose: list[tuple[str, str]] = []
     for place, msg in problems:
-        merged.setdefault(place, []).append(msg)
-    return [(place, "; or ".join(msgs)) for place, msgs in merged.items()]
+        if place:
+            merged.setdefault(place, []).append(msg)
+        else:
+            loose.append((place, msg))
+    return loose + [(place, "; or ".join(msgs)) for place, msgs in merged.items()]
 
 
 def _is_union_tag(part: Any) -> bool:
@@ -155,26 +159,44 @@ def _is_union_tag(part: Any) -> bool:
 
 
 def _describe(err: dict[str, Any], raw: dict[str, Any]) -> tuple[str, str]:
-    loc = [part for part in err["loc"] if not _is_union_tag(part)]
+    full = [part for part in err["loc"] if not _is_union_tag(part)]
+    loc = list(full)
     table = str(loc.pop(0)) if loc else ""
     index = loc.pop(0) if loc and isinstance(loc[0], int) and table in ("beam", "deck", "slab") else None
-    item = raw.get(table)
+    item = raw.get(table) if table in raw else None
     if index is not None and isinstance(item, list) and index < len(item):
         item = item[index]
     field = ".".join(str(part) for part in loc)
-    msg = err["msg"].removeprefix("Value error, ")
-    if err["type"] == "extra_forbidden":
-        msg = f"unknown key {loc[-1]!r}" + _hint(str(loc[-1]), _known_keys(table, loc))
-    elif err["type"] == "missing":
+    msg = str(err.get("msg", "invalid value")).removeprefix("Value error, ")
+    if err.get("type") == "extra_forbidden" and full:
+        unknown = str(full[-1])
+        parents = [p for p in full[:-1] if not isinstance(p, int)]
+        if not loc:  # an unknown top-level table
+            return "", f"unknown table {unknown!r}" + _hint(unknown, list(Job.model_fields))
+        msg = f"unknown key {unknown!r}" + _hint(unknown, _known_keys(parents))
+    elif err.get("type") == "missing":
+        if not loc and index is None:
+            return "", f"required table {table!r} is missing"
         msg = "required key is missing"
-    elif "input" in err and err["type"] not in ("model_type", "list_type"):
-        msg = f"{msg} (got {err['input']!r})"
+    elif err.get("type") in ("model_type", "dict_type"):
+        msg = f"must be a table, got {_short(err.get('input'))}"
+    elif err.get("type") == "list_type":
+        msg = f"must be a list (e.g. [[{table}]] tables), got {_short(err.get('input'))}"
+    elif "input" in err:
+        msg = f"{msg} (got {_short(err['input'])})"
+    if not loc and index is None:
+        return f"table '{table}'", msg
     return where(table, index, item, field), msg
 
 
-def _known_keys(table: str, loc: list[Any]) -> list[str]:
+def _short(value: Any) -> str:
+    text = repr(value)
+    return text if len(text) <= 60 else text[:57] + "..."
+
+
+def _known_keys(path: list[Any]) -> list[str]:
+    """Field names of the model at `path` (table and nested keys), for "did you mean" hints."""
     model: type[BaseModel] | None = Job
-    path = [table] + [p for p in loc[:-1] if not isinstance(p, int)]
     for part in path:
         if model is None or part not in model.model_fields:
             return []

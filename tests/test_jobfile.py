@@ -89,7 +89,7 @@ def test_unknown_key_in_deck_names_the_deck():
 
 def test_bad_toml_and_missing_tables():
     assert "not valid TOML" in str(error_of("[project\nname = 1"))
-    assert "required key is missing" in str(error_of('[project]\nname = "x"'))
+    assert "required table 'beam' is missing" in str(error_of('[project]\nname = "x"'))
 
 
 def test_duplicate_marks_and_unknown_deck():
