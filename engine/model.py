@@ -74,13 +74,13 @@ class ConstructionSpec:
 
     live_psf: float = 25.0
     screed: str = "constant-thickness"
-    unbraced_length: float | None = None  # None: top flange braced continuously by fastened deck
+    unbraced_length: float | None = None  # None: braced by fastened perpendicular deck, else at point loads
     pours: tuple[PourStage, ...] = ()
     camber: CamberRules = field(default_factory=CamberRules)
-    lrfd_dead_factor: float = 1.2
-    lrfd_live_factor: float = 1.6
+    combinations: tuple[tuple[float, float], ...] = ()  # (dead, live) factors; () = defaults of the method
     dead_limit_ratio: float = 360.0  # span / ratio ...
-    dead_limit_max: float = 1.0  # ... and not over 1 in (AISC Design Guide 3, via DE16 I.1)
+    dead_limit_max: float | None = 1.0  # ... and not over 1 in (AISC Design Guide 3, via DE16 I.1)
+    live_limit_ratio: float | None = None  # construction live-load deflection limit; None: not checked
 
 
 @dataclass(frozen=True, slots=True)

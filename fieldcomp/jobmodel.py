@@ -97,6 +97,20 @@ class Pour(Strict):
     screed: Literal["constant-thickness", "level"] | None = Field(None, description="Overrides the beam's screeding mode.")
 
 
+ConstructionLoadClass = Literal["very-light", "light", "medium", "heavy"]
+
+
+class CombinationIn(Strict):
+    dead: float = Field(ge=0.0, le=3.0, description="Factor on the dead load (steel, deck, wet concrete).")
+    live: float = Field(ge=0.0, le=3.0, description="Factor on the construction live load.")
+
+
+class ConstructionLimitsIn(Strict):
+    dead_ratio: float = Field(360.0, ge=60.0, le=2000.0, description="Pre-composite dead-load deflection less camber: limit span / ratio (AISC Design Guide 3 via AISC Design Examples v16.0 Chapter I: 360).")
+    dead_max: Length | None = Field("1 in", description="... and not over this length (Design Guide 3: 1 in); leave out for no cap.")
+    live_ratio: float | None = Field(None, ge=60.0, le=2000.0, description="Construction live-load deflection limit, span / ratio; leave out: not checked.")
+
+
 FindingKind = Literal["missing", "failed-test", "weak-side", "off-rib", "short", "added"]
 
 
@@ -132,7 +146,10 @@ class Beam(Strict):
     live_psf: float = Field(0.0, ge=0.0, le=1000.0, description="Live load, psf.")
     construction_live_psf: float = Field(25.0, ge=0.0, le=200.0, description="Construction live load during placement, psf.")
     screed: Literal["constant-thickness", "level"] = Field("constant-thickness", description="How the slab is screeded.")
-    unbraced_length: Length | None = Field(None, description="Unbraced length of the top flange while wet (default: braced by fastened perpendicular deck).")
+    unbraced_length: Length | None = Field(None, description="Unbraced length of the top flange while wet (default: braced continuously by fastened perpendicular deck, otherwise at the point loads).")
+    construction_load: ConstructionLoadClass | None = Field(None, description="ASCE/SEI 37-14 Table 4-1 operational class; sets the construction live load (very-light 20, light 25, medium 50, heavy 75 psf). Give this or construction_live_psf, not both.")
+    construction_factors: list[CombinationIn] = Field(default_factory=list, description="Construction-stage load combinations for the job's method (default LRFD 1.4D and 1.2D + 1.6L, ASD D + L).")
+    construction_limits: ConstructionLimitsIn = Field(default_factory=ConstructionLimitsIn, description="Construction-stage deflection limits.")
     camber: Literal["auto", "none"] = Field("auto", description="\"none\" for beams that must not be cambered.")
     no_camber_reason: str | None = Field(None, max_length=80, description="Why not to camber (moment-connected, spandrel, cantilevered ...).")
     reference_end: str = Field("left end", max_length=40, description="Name of the end stations are measured from (e.g. \"west\", \"grid 3\").")
@@ -153,6 +170,12 @@ class Beam(Strict):
             spacing, edge = getattr(self, f"spacing_{side}"), getattr(self, f"edge_{side}")
             if (spacing is None) == (edge is None):
                 raise ValueError(f"give exactly one of spacing_{side} or edge_{side}")
+        return self
+
+    @model_validator(mode="after")
+    def _one_construction_load(self) -> "Beam":
+        if self.construction_load is not None and "construction_live_psf" in self.model_fields_set:
+            raise ValueError("give construction_load (a class) or construction_live_psf, not both")
         return self
 
 

@@ -4,6 +4,8 @@ from __future__ import annotations
 
 import os
 
+from engine.construction import CONSTRUCTION_LOAD_PSF
+from engine.pours import check_stages
 from engine.deck import DeckProfile, Slab
 from engine.model import (
     BeamInput, CamberRules, ConstructionSpec, Finding, Limits, PointLoad, PourStage, RibSettings, StudSpec,
@@ -90,13 +92,22 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         if not 0.0 <= start < end <= span + 1e-6:
             raise _FieldProblem(f"pour[{k}]", f"stage '{stage.name}' must run from 0 to the span with start < end")
         pours.append(PourStage(stage.name, start, min(end, span), stage.side, stage.day, stage.screed))
+    if pours:
+        try:
+            check_stages(tuple(pours), span)
+        except ValueError as exc:
+            raise _FieldProblem("pour", str(exc)) from None
     camber = rules if b.camber == "auto" else CamberRules(
         rules.fraction, rules.increment, rules.minimum, rules.min_length, rules.min_depth,
         do_not_camber=b.no_camber_reason or "marked not to be cambered")
+    limits = b.construction_limits
     construction = ConstructionSpec(
-        live_psf=b.construction_live_psf, screed=b.screed,
-        unbraced_length=None if b.unbraced_length is None else parse_length(b.unbraced_length),
-        pours=tuple(pours), camber=camber)
+        live_psf=b.construction_live_psf if b.construction_load is None else CONSTRUCTION_LOAD_PSF[b.construction_load],
+        screed=b.screed, unbraced_length=None if b.unbraced_length is None else parse_length(b.unbraced_length),
+        pours=tuple(pours), camber=camber, combinations=tuple((f.dead, f.live) for f in b.construction_factors),
+        dead_limit_ratio=limits.dead_ratio,
+        dead_limit_max=None if limits.dead_max is None else parse_length(limits.dead_max),
+        live_limit_ratio=limits.live_ratio)
     keep_start, keep_end = parse_length(b.keep_out_start), parse_length(b.keep_out_end)
     if keep_start + keep_end >= span:
         raise _FieldProblem("keep_out_start", "keep-out zones cover the whole span")

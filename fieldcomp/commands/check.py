@@ -1,4 +1,4 @@
-"""`fieldcomp check JOB [--beam MARK] [--json]`: the finished-beam report."""
+"""`fieldcomp check JOB [--beam MARK] [--json]`: the finished-beam report and the construction stage."""
 
 from __future__ import annotations
 
@@ -17,27 +17,32 @@ def register(sub) -> None:
 
 
 def run(args: argparse.Namespace) -> int:
+    from engine.construction import evaluate_construction
     from engine.evaluate import evaluate_beam
     from fieldcomp.jobfile import JobFileError
     from fieldcomp.report import beam_json, beam_text, caution_block
+    from fieldcomp.report_construction import construction_text, merge_into_check
 
     try:
         job, beams = load_inputs(args.job, args.beam)
-    except JobFileError as exc:
+        constructions = [evaluate_construction(b) for b in beams]
+    except (JobFileError, ValueError) as exc:
         return fail_input(exc)
     results = [evaluate_beam(b) for b in beams]
+    failed = [r.beam.mark for r, c in zip(results, constructions) if "fail" in (r.verdict, c.verdict)]
     if args.json:
-        out = {"job": job.project.name, "caution": CAUTION, "beams": [beam_json(r) for r in results]}
+        records = [merge_into_check(beam_json(r), c, r.checks) for r, c in zip(results, constructions)]
+        out = {"job": job.project.name, "caution": CAUTION, "beams": records}
         print(json.dumps(out, indent=2))
     else:
         print(f"fieldcomp {__version__} - job '{job.project.name}' ({args.job})")
         print(caution_block())
-        for r in results:
+        for r, c in zip(results, constructions):
             print()
             print(beam_text(r))
-        failed = [r.beam.mark for r in results if r.verdict == "fail"]
+            print(construction_text(c))
         print()
         print(f"{len(results)} beam(s): {len(results) - len(failed)} pass, {len(failed)} fail"
               + (f" ({', '.join(failed)})" if failed else ""))
         print(caution_block())
-    return EXIT_FAIL if any(r.verdict == "fail" for r in results) else EXIT_PASS
+    return EXIT_FAIL if failed else EXIT_PASS

@@ -1,0 +1,88 @@
+"""Level screeding: wet concrete ponds into the sag of the beam.
+
+When the slab is struck off level at the elevation set at the supports, the concrete at x is
+deeper than nominal by the sag of the steel below that line, so the load grows by
+k(x) * sag(x), k = unit weight x width placed (REFERENCE.md section 2, "Closed form", after
+Ruddy, "Ponding of Concrete Deck Floors", AISC Engineering Journal 23(3), 1986). The sag is
+the deflection so far less the camber; the linear problem is solved exactly on the station grid
+by engine.statics.ponded_deflection, not with a fixed percentage.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+
+import numpy as np
+
+from engine.statics import Load, UniformLoad, deflection_from_curvature, ponded_deflection
+
+PIECES = 8  # uniform pieces that carry a known station load into ponded_deflection (1e-4 relative)
+
+
+def camber_shape(x: np.ndarray, span: float) -> np.ndarray:
+    """Shape of a cambered beam, 1 at midspan and 0 at the supports: the parabola 4x(L-x)/L^2.
+    Assumption of this tool: a cold-cambered beam is close to a circular arc, which differs from
+    the parabola by well under 1% of the camber for cambers under span/200 (geometry)."""
+    return 4.0 * x * (span - x) / (span * span)
+
+
+def line_load_effects(x: np.ndarray, q: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Shear V (kip) and moment M (kip-in) of a simple span x[0]..x[-1] under a line load q.
+    Statics: R_left = (1/L) int_0^L int_0^s q, V = R_left - int q, M = R_left x - int int q.
+
+    q (kip/in, downward +) is given at the stations and taken linear between them; the integrals
+    are exact for that.
+    """
+    h = np.diff(x)
+    q0, q1 = q[:-1], q[1:]
+    load = np.concatenate(([0.0], np.cumsum(0.5 * h * (q0 + q1))))
+    second = np.concatenate(([0.0], np.cumsum(h * load[:-1] + h * h * (q0 / 3.0 + q1 / 6.0))))
+    xs = x - x[0]
+    r_left = second[-1] / xs[-1]
+    return r_left - load, r_left * xs - second
+
+
+def _pieces(x: np.ndarray, q: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Uniform pieces with the same resultant as q over each of PIECES runs of stations."""
+    nonzero = np.flatnonzero(q)
+    lo, hi = max(nonzero[0] - 1, 0), min(nonzero[-1] + 1, x.size - 1)
+    cuts = np.unique(np.round(np.linspace(lo, hi, PIECES + 1)).astype(int))
+    h = np.diff(x)
+    load = np.concatenate(([0.0], np.cumsum(0.5 * h * (q[:-1] + q[1:]))))
+    start, end = x[cuts[:-1]], x[cuts[1:]]
+    return start, end, (load[cuts[1:]] - load[cuts[:-1]]) / (end - start)
+
+
+def _pieces_moment(x: np.ndarray, span: float, start: np.ndarray, end: np.ndarray, w: np.ndarray) -> np.ndarray:
+    """Moment (kip-in) of uniform loads w on [start, end] (AISC Manual Table 3-23 case 3, summed)."""
+    length = end - start
+    r_left = w * length * (span - 0.5 * (start + end)) / span
+    loaded = np.clip(x[None, :] - start[:, None], 0.0, length[:, None])
+    moment = r_left[:, None] * x[None, :] - w[:, None] * loaded * (x[None, :] - start[:, None] - 0.5 * loaded)
+    return moment.sum(axis=0)
+
+
+def level_deflection(
+    x: np.ndarray, span: float, loads: Sequence[Load], known: np.ndarray, k: np.ndarray, ei: np.ndarray
+) -> np.ndarray:
+    """Deflection y (in) under `loads`, a known station load `known` and the ponding load k y.
+    REFERENCE.md section 2 (level placement adds gamma_c s Delta): y = A (loads + known + k y).
+
+    A is the simple-span flexibility with EI(x); solved by engine.statics.ponded_deflection.
+    `known` (kip/in at stations) enters it as uniform pieces of equal resultant; the
+    remainder (known less pieces) is added through its own deflection without ponding
+    amplification: about 1e-4 of the deflection with 8 pieces (tests/test_construction_ponding.py).
+    """
+    if not np.any(known):
+        return ponded_deflection(x, span, loads, ei, k)
+    start, end, w = _pieces(x, known)
+    pieces = [UniformLoad(float(wi), float(a), float(b)) for wi, a, b in zip(w, start, end) if wi != 0.0]
+    y = ponded_deflection(x, span, list(loads) + pieces, ei, k)
+    remainder = line_load_effects(x, known)[1] - _pieces_moment(x, span, start, end, w)
+    return y + deflection_from_curvature(x, remainder / ei)
+
+
+def first_mode_ratio(k_max: float, span: float, ei_min: float) -> float:
+    """C_c = k L^4 / (pi^4 EI): level placement is stable only for C_c < 1 (largest k, least EI).
+    REFERENCE.md section 2, "Closed form" (amplification 1 / (1 - C_c))."""
+    return float(k_max * span**4 / (np.pi**4 * ei_min))
