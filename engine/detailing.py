@@ -9,6 +9,7 @@ from engine.model import BeamInput
 from engine.section import StudGroups
 
 DECK_ANCHOR_SPACING_MAX = 18.0  # in, AISC 360-22 I3.2c.1
+DECK_ANCHOR_CLAUSE = "AISC 360-22 I3.2c.1"  # deck anchored to every support at 18 in max
 
 
 def deck_checks(beam: BeamInput) -> list[Check]:
@@ -32,12 +33,43 @@ def deck_checks(beam: BeamInput) -> list[Check]:
     return checks
 
 
-def studs_across_flange(beam: BeamInput) -> int:
-    """Most studs that fit in one transverse row on the flange: 4d apart (AISC 360-22 I8.2d),
-    each shank fully on the flange (common practice), and no more than the job allows."""
+def studs_across(beam: BeamInput) -> int:
+    """Most studs that fit in one transverse row, no more than the job allows.
+    AISC 360-22 I8.2d (4 d apart), I3.2c.3 (parallel flute: w_r >= 2 in + 4 d per added stud,
+    for h_r >= 1 1/2 in); each shank fully on the flange and the flute bottom (common practice)."""
     d = beam.studs.diameter
-    fit = int(np.floor((beam.shape.bf - d) / (4.0 * d) + 1e-9)) + 1
+    deck = beam.slab.deck
+    width = beam.shape.bf
+    fit = int(np.floor((width - d) / (4.0 * d) + 1e-9)) + 1
+    if deck is not None and beam.orientation == "parallel":
+        fit = min(fit, int(np.floor((deck.rib_bottom_width - d) / (4.0 * d) + 1e-9)) + 1)
+        if deck.rib_height >= 1.5:
+            fit = min(fit, int(np.floor((deck.rib_average_width - 2.0) / (4.0 * d) + 1e-9)) + 1)
     return max(0, min(fit, beam.studs.max_per_rib))
+
+
+def off_web_allowed(beam: BeamInput) -> bool:
+    """Whether studs may stand off the web: d <= 2.5 t_f (AISC 360-22 I8.1). A single stud per
+    slot stands over the web."""
+    return beam.studs.diameter <= 2.5 * beam.shape.tf + 1e-9
+
+
+def studs_per_slot(beam: BeamInput) -> int:
+    """Most studs one slot (rib or stud row) may take: the transverse row (`studs_across`), and
+    one only, over the web, when the flange is too thin for studs off it (AISC 360-22 I8.1)."""
+    across = studs_across(beam)
+    return min(across, 1) if not off_web_allowed(beam) else across
+
+
+def spacing_limits(beam: BeamInput) -> tuple[float, float]:
+    """(least, greatest) centre-to-centre stud spacing along the beam, in.
+
+    AISC 360-22 I8.2d: 4 d within deck ribs perpendicular to the beam, 6 d otherwise; at most
+    8 x the total slab thickness and 36 in.
+    """
+    d = beam.studs.diameter
+    perpendicular = beam.slab.deck is not None and beam.orientation == "perpendicular"
+    return (4.0 * d if perpendicular else 6.0 * d), min(8.0 * beam.slab.total_thickness, 36.0)
 
 
 def spacing_checks(beam: BeamInput, groups: StudGroups) -> tuple[list[Check], list[Flag]]:
@@ -49,8 +81,7 @@ def spacing_checks(beam: BeamInput, groups: StudGroups) -> tuple[list[Check], li
         return checks, flags
     x = np.sort(groups.x)
     perpendicular = beam.slab.deck is not None and beam.orientation == "perpendicular"
-    smin = 4.0 * d if perpendicular else 6.0 * d
-    smax = min(8.0 * beam.slab.total_thickness, 36.0)
+    smin, smax = spacing_limits(beam)
     gaps = np.diff(x)
     ends = np.array([x[0], beam.span - x[-1]])
     if gaps.size:
@@ -61,15 +92,16 @@ def spacing_checks(beam: BeamInput, groups: StudGroups) -> tuple[list[Check], li
         checks.append(Check("stud spacing along beam (max)", "AISC 360-22 I8.2d", gaps[j], smax, "in",
                             station=float(x[j]), kind="detailing"))
     most = int(groups.count.max())
-    checks.append(Check("studs in one transverse row", "AISC 360-22 I8.2d (4d transverse)",
-                        most, studs_across_flange(beam), "studs", kind="detailing"))
+    row_clause = "AISC 360-22 I8.2d (4d transverse)" + (", I3.2c.3" if beam.deck_case == "parallel" else "")
+    checks.append(Check("studs in one transverse row", row_clause,
+                        most, studs_across(beam), "studs", kind="detailing"))
     if most >= 2:
         checks.append(Check("stud diameter off the web (max 2.5 tf)", "AISC 360-22 I8.1",
                             d, 2.5 * beam.shape.tf, "in", kind="detailing"))
     if perpendicular:
         longest = float(max(gaps.max() if gaps.size else 0.0, ends.max()))
         if longest > DECK_ANCHOR_SPACING_MAX + 1e-9:
-            flags.append(Flag("AISC 360-22 I3.2c.1",
+            flags.append(Flag(DECK_ANCHOR_CLAUSE,
                               f"studs alone leave up to {longest:.1f} in between deck anchors (max 18 in): "
                               "the ribs without studs need puddle welds or other specified anchors"))
     return checks, flags

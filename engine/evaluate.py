@@ -23,9 +23,9 @@ from engine.aisc360.concrete import E_STEEL, ec, fc_strength_range
 from engine.aisc360.shear import web_shear_strength
 from engine.checks import Check, Flag
 from engine.detailing import deck_checks, spacing_checks
-from engine.loads import combinations, factored, finished_loads
+from engine.loads import FinishedLoads, combinations, factored, finished_loads
 from engine.model import BeamInput
-from engine.section import StudGroups, slab_force, uniform_groups
+from engine.section import StudGroups, slab_force
 from engine.statics import deflection, max_abs_shear, shear_moment, stations
 
 PHI_B, OMEGA_B = 0.90, 1.67  # AISC 360-22 I3.2a
@@ -76,7 +76,7 @@ class BeamResult:
     @property
     def capacity(self) -> np.ndarray:
         """Available strength along the span for the beam's method (phi Mn or Mn / Omega)."""
-        return PHI_B * self.mn if self.beam.method == "LRFD" else self.mn / OMEGA_B
+        return available_strength(self.beam, self.mn)
 
     @property
     def demand(self) -> np.ndarray:
@@ -123,41 +123,108 @@ def check_scope(beam: BeamInput) -> None:
                          "not established (AISC 360-22 I3.2a); not computed")
 
 
+@dataclass(frozen=True, slots=True)
+class Demand:
+    """Finished-beam demand along the span: LRFD envelope `mu` and ASD `ma` (kip-in), the
+    largest shears `vu`, `va` (kip)."""
+
+    mu: np.ndarray
+    ma: np.ndarray
+    vu: float
+    va: float
+
+
+def moment_envelope(beam: BeamInput, x: np.ndarray, loads: FinishedLoads | None = None) -> tuple[np.ndarray, np.ndarray]:
+    """(Mu, Ma) at stations `x` (kip-in): the LRFD envelope and the ASD moment of the finished loads.
+
+    ASCE/SEI 7-22 2.3.1 (LRFD) and 2.4.1 (ASD), via `engine.loads`.
+    """
+    loads = finished_loads(beam) if loads is None else loads
+    mu = np.zeros_like(x)
+    for fd, fl in combinations("LRFD"):
+        mu = np.maximum(mu, shear_moment(x, beam.span, factored(loads.dead, loads.live, fd, fl))[1])
+    return mu, shear_moment(x, beam.span, factored(loads.dead, loads.live, 1.0, 1.0))[1]
+
+
+def moment_demand(beam: BeamInput, x: np.ndarray, loads: FinishedLoads | None = None) -> Demand:
+    """Moments and shears of the finished loads in their combinations at stations `x`.
+
+    ASCE/SEI 7-22 2.3.1 (LRFD) and 2.4.1 (ASD), via `engine.loads`.
+    """
+    loads = finished_loads(beam) if loads is None else loads
+    mu, ma = moment_envelope(beam, x, loads)
+    vu = max(max_abs_shear(beam.span, factored(loads.dead, loads.live, fd, fl)) for fd, fl in combinations("LRFD"))
+    return Demand(mu, ma, vu, max_abs_shear(beam.span, factored(loads.dead, loads.live, 1.0, 1.0)))
+
+
+@dataclass(frozen=True, slots=True)
+class SlabLimits:
+    """Effective width `b_eff` (in), strength concrete area `ac` (in^2), full-composite slab
+    force `cf` and the largest force the stress block may take within the topping `c_block` (kip)."""
+
+    b_eff: float
+    ac: float
+    cf: float
+    c_block: float
+
+
+def slab_limits(beam: BeamInput) -> SlabLimits:
+    """Effective width, strength concrete area and C_f = min(A_s F_y, 0.85 f'c A_c).
+    AISC 360-22 I3.1a (b_eff), I3.2c.2-3 (A_c), I3.2d.1 (C_f).
+
+    The stress block is taken within the topping; where it would reach into parallel ribs the
+    force is limited to the topping (conservative; AISC 360-22 I3.2a).
+    """
+    slab = beam.slab
+    b_left, b_right = effective_width(beam.span, beam.slab_left, beam.slab_right)
+    b_eff = float(b_left + b_right)
+    ac = slab.strength_concrete_area(b_eff, beam.orientation)
+    cf = min(beam.shape.area * beam.fy, 0.85 * slab.fc_ksi * ac)
+    return SlabLimits(b_eff, ac, cf, min(cf, 0.85 * slab.fc_ksi * b_eff * slab.topping))
+
+
+def composite_strength(beam: BeamInput, limits: SlabLimits, c: np.ndarray):
+    """Plastic stress distribution for the slab force `c` (kip), the stress block in the topping.
+
+    AISC 360-22 I3.2a; returns `engine.aisc360.composite.PlasticMoment`.
+    """
+    return plastic_moment(np.minimum(c, limits.c_block), beam.shape, beam.fy, beam.slab.fc_ksi,
+                          limits.b_eff, beam.slab.total_thickness)
+
+
+def available_strength(beam: BeamInput, mn: np.ndarray) -> np.ndarray:
+    """phi_b Mn (LRFD) or Mn / Omega_b (ASD).
+
+    AISC 360-22 I3.2a (phi_b = 0.90, Omega_b = 1.67).
+    """
+    return PHI_B * mn if beam.method == "LRFD" else mn / OMEGA_B
+
+
 def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResult:
-    """Evaluate the finished composite beam with the studs in `groups` (default: the specified
-    count spread uniformly, AISC 360-22 I8.2d)."""
+    """Evaluate the finished composite beam with the studs in `groups` (default: the studs laid
+    out rib by rib by `engine.layout.design_layout`, whose checks then join the beam's)."""
     check_scope(beam)
     shape, slab = beam.shape, beam.slab
-    if groups is None:
-        groups = uniform_groups(beam, beam.studs.count or 0)
     x = stations(beam.span, beam.n_stations)
     loads = finished_loads(beam)
+    dem = moment_demand(beam, x, loads)
+    placed = None
+    if groups is None:
+        from engine.layout import design_layout  # late import: the layout builds on this module
 
-    mu = np.zeros_like(x)
-    vu = 0.0
-    for fd, fl in combinations("LRFD"):
-        combo = factored(loads.dead, loads.live, fd, fl)
-        mu = np.maximum(mu, shear_moment(x, beam.span, combo)[1])
-        vu = max(vu, max_abs_shear(beam.span, combo))
-    service = factored(loads.dead, loads.live, 1.0, 1.0)
-    ma = shear_moment(x, beam.span, service)[1]
-    va = max_abs_shear(beam.span, service)
+        placed = design_layout(beam, demand=dem)
+        groups = placed.layout.groups()
+    mu, ma, vu, va = dem.mu, dem.ma, dem.vu, dem.va
 
-    b_left, b_right = effective_width(beam.span, beam.slab_left, beam.slab_right)
-    b_eff = b_left + b_right
-    ac = slab.strength_concrete_area(b_eff, beam.orientation)
-    as_fy = shape.area * beam.fy
-    cf = min(as_fy, 0.85 * slab.fc_ksi * ac)
-    # The stress block is taken within the topping; where it would reach into parallel ribs the
-    # force is limited to the topping (conservative; AISC 360-22 I3.2a).
-    c_block = min(cf, 0.85 * slab.fc_ksi * b_eff * slab.topping)
+    lim = slab_limits(beam)
+    b_eff, ac, cf = lim.b_eff, lim.ac, lim.cf
     c, left, right = slab_force(x, groups, cf)
     y_con = slab.total_thickness
-    plastic = plastic_moment(np.minimum(c, c_block), shape, beam.fy, slab.fc_ksi, b_eff, y_con)
+    plastic = composite_strength(beam, lim, c)
     mn = plastic.mn
 
     demand = mu if beam.method == "LRFD" else ma
-    capacity = PHI_B * mn if beam.method == "LRFD" else mn / OMEGA_B
+    capacity = available_strength(beam, mn)
     k = int(np.argmax(demand))
     ratio = np.divide(demand, capacity, out=np.zeros_like(demand), where=capacity > 0)
     g = int(np.argmax(ratio))
@@ -194,7 +261,10 @@ def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResu
               MIN_COMPOSITE, composite_ratio, "ratio", kind="detailing"),
     ]
     checks += deck_checks(beam)
-    spacing, flags = spacing_checks(beam, groups)
+    if placed is None:
+        spacing, flags = spacing_checks(beam, groups)
+    else:  # the layout's checks hold the spacing checks of the same studs, and its own
+        spacing, flags = list(placed.checks), list(placed.flags)
     checks += spacing
     flags += _ductility_flags(beam, composite_ratio, groups)
     return BeamResult(

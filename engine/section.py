@@ -14,7 +14,6 @@ import numpy as np
 from engine.aisc360.anchors import qn_stud, rg_rp, stud_area, emid_ht
 from engine.aisc360.concrete import ec
 from engine.model import BeamInput
-from engine.ribs import rib_stations
 
 
 @dataclass(frozen=True, slots=True)
@@ -52,33 +51,11 @@ def stud_qn(beam: BeamInput, studs_in_rib: np.ndarray, position: np.ndarray | st
     elif beam.orientation == "parallel":
         rg, rp = rg_rp("parallel", n, wr_over_hr=deck.rib_average_width / deck.rib_height)
     else:
-        e = emid_ht(deck.rib_mid_height_width, deck.stud_offset, spec.diameter, position)
+        # a stud cannot stand further off the rib centreline than the rib bottom allows
+        offset = min(deck.stud_offset, max(0.0, 0.5 * (deck.rib_bottom_width - spec.diameter)))
+        e = emid_ht(deck.rib_mid_height_width, offset, spec.diameter, position)
         rg, rp = rg_rp("perpendicular", n, emid_ht=e)
     return qn_stud(asa, slab.fc_ksi, e_c, spec.fu, rg, rp)
-
-
-def uniform_groups(beam: BeamInput, total: int) -> StudGroups:
-    """`total` studs spread uniformly along the beam (AISC 360-22 I8.2d: uniform spacing unless
-    the drawings say otherwise); in perpendicular deck, spread over the available ribs with the
-    extra studs of a rib placed in the ribs nearest the ends."""
-    if total <= 0:
-        return StudGroups(np.empty(0), np.empty(0, dtype=int), np.empty(0))
-    ribs = rib_stations(beam)
-    if beam.slab.deck is not None and beam.orientation == "perpendicular" and ribs.size:
-        base, extra = divmod(total, ribs.size)
-        count = np.full(ribs.size, base, dtype=int)
-        nearest_end_first = np.argsort(np.minimum(ribs, beam.span - ribs), kind="stable")
-        count[nearest_end_first[:extra]] += 1
-        if base == 0:  # fewer studs than ribs: every k-th rib, evenly
-            count[:] = 0
-            idx = np.unique(np.round(np.linspace(0, ribs.size - 1, total)).astype(int))
-            count[idx] = 1
-        keep = count > 0
-        x, count = ribs[keep], count[keep]
-    else:
-        x = beam.span * (np.arange(total) + 0.5) / total
-        count = np.ones(total, dtype=int)
-    return StudGroups(x, count, stud_qn(beam, count))
 
 
 def slab_force(x: np.ndarray, groups: StudGroups, cap: float) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
