@@ -1,0 +1,397 @@
+"""The fieldcomp workbench (Textual): one job, beam by beam, every pane live.
+
+Edits go through `JobSession` (the job-file loader's validation, undo); engine work runs in a
+thread worker that posts `ResultsReady`; files are saved atomically with a .bak, guarded against
+changes on disk; unsaved edits are kept in a recovery file that the next start offers back.
+"""
+
+from __future__ import annotations
+
+import datetime
+import time
+from functools import partial
+from pathlib import Path
+from typing import Callable, Iterator
+
+from textual import work
+from textual.worker import get_current_worker
+from textual.app import App
+from textual.binding import Binding
+from textual.theme import Theme
+
+from fieldcomp.commands_palette import WorkbenchCommands
+from fieldcomp.jobfile import ChangedOnDisk, JobFileError
+from fieldcomp.jobmodel import Job
+from fieldcomp.messages import BeamSelected, EditRequested, RepairReady, ResultsReady, RowAdded, RowRemoved
+from fieldcomp.outcome import BeamOutcome, OutcomeCache
+from fieldcomp.screens.dialogs import AskPath, Choice
+from fieldcomp.screens.help import HelpScreen
+from fieldcomp.screens.workbench import WorkbenchScreen
+from fieldcomp.session import (
+    EditRejected, JobSession, default_state_dir, discard_recovery, read_recovery, write_recovery,
+)
+
+THEMES = {
+    "light": Theme(name="fieldcomp-light", dark=False, primary="#1D5A85", secondary="#56646F", accent="#A8561C",
+                   warning="#9A6400", error="#B3261E", success="#2D7A36", foreground="#1A1C1E",
+                   background="#FBFBF8", surface="#F1F1EC", panel="#E3E4DD",
+                   variables={"footer-key-foreground": "#1D5A85", "block-cursor-text-style": "bold"}),
+    "dark": Theme(name="fieldcomp-dark", dark=True, primary="#6DB0DE", secondary="#9AA8B3", accent="#E39B55",
+                  warning="#E3B04B", error="#EF6B60", success="#79C187", foreground="#E4E5E1",
+                  background="#14181C", surface="#1C2228", panel="#26303A",
+                  variables={"footer-key-foreground": "#6DB0DE"}),
+}
+DISK_POLL_SECONDS = 2.0
+# Actions offered only in the command palette (no key of their own).
+PALETTE_ONLY = (
+    ("New job from the starter", "Start an untitled job from fieldcomp/starter.toml.", "new_job"),
+    ("Duplicate beam", "Copy the selected beam (new mark) after it.", "duplicate_beam"),
+    ("Remove beam", "Remove the selected beam (undo brings it back).", "remove_beam"),
+    ("Show keys panel", "Textual's key panel beside the workbench.", "show_help_panel"),
+)
+
+
+class FieldcompApp(App[None]):
+    CSS_PATH = "app.tcss"
+    TITLE = "fieldcomp"
+    COMMANDS = App.COMMANDS | {WorkbenchCommands}
+    MODES = {"workbench": WorkbenchScreen}
+    DEFAULT_MODE = "workbench"
+    BINDINGS = [
+        Binding("f1", "help", "Help", id="app.help", tooltip="Every key, the panes, how to type values."),
+        Binding("ctrl+s", "save", "Save", id="app.save", tooltip="Save the job (atomic; the old file kept as .bak)."),
+        Binding("f2", "save_as", "Save as", id="app.save_as", tooltip="Save the job under a new file name."),
+        Binding("ctrl+o", "open_job", "Open", id="app.open", show=False, tooltip="Open another job file."),
+        Binding("f5", "reopen", "Reopen", id="app.reopen", show=False,
+                tooltip="Read the job file again from disk (your edits stay in undo)."),
+        Binding("ctrl+z", "undo", "Undo", id="app.undo", tooltip="Undo the last edit."),
+        Binding("ctrl+y", "redo", "Redo", id="app.redo", tooltip="Redo the edit just undone."),
+        Binding("ctrl+t", "toggle_theme", "Light/dark", id="app.theme", tooltip="Switch between the light and dark theme."),
+        Binding("ctrl+q", "quit", "Quit", id="app.quit", priority=True,
+                tooltip="Quit; asks first when there are unsaved edits."),
+    ]
+
+    def __init__(self, session: JobSession, *, state_dir: Path | None = None, theme: str = "dark",
+                 date: str | None = None) -> None:
+        """`date`: printed on marks sheets (default: today, YYYY-MM-DD)."""
+        super().__init__()
+        self.session = session
+        self.state_dir = state_dir if state_dir is not None else default_state_dir()
+        self.cache = OutcomeCache()
+        self.date = date or datetime.date.today().isoformat()
+        self.outcomes: list[BeamOutcome] = []
+        self.selected = 0
+        self.redraw_ms: list[float] = []  # edit accepted -> every pane redrawn, per edit
+        self.repair_ms: list[float] = []  # edit accepted -> the repair of the selected beam shown
+        self._disk_warned = False
+        for look in THEMES.values():
+            self.register_theme(look)
+        self.theme = THEMES[theme].name  # before mount: the CSS is computed once
+
+    # -- start ----------------------------------------------------------------------------------
+    def on_mount(self) -> None:
+        self.set_interval(DISK_POLL_SECONDS, self.watch_disk)
+
+    def workbench_ready(self) -> None:
+        """Called by the workbench once its panes are mounted: first show, then any recovery."""
+        self.job_changed(time.perf_counter())
+        self.offer_recovery()
+
+    @property
+    def workbench(self) -> WorkbenchScreen:
+        return self.query_one_screen()
+
+    def query_one_screen(self) -> WorkbenchScreen:
+        for screen in self.screen_stack:
+            if isinstance(screen, WorkbenchScreen):
+                return screen
+        raise LookupError("no workbench screen")
+
+    # -- edits and recompute ----------------------------------------------------------------------
+    def on_edit_requested(self, message: EditRequested) -> None:
+        started = time.perf_counter()
+        try:
+            changed = self.session.set_text(message.path, message.text)
+        except EditRejected as exc:
+            self.notify(str(exc), title="Not accepted", severity="error")
+            return
+        if changed:
+            self.job_changed(started)
+
+    def on_row_added(self, message: RowAdded) -> None:
+        self._apply(lambda: self.session.append(message.path, message.items, message.description))
+
+    def on_row_removed(self, message: RowRemoved) -> None:
+        self._apply(lambda: self.session.remove(message.path, message.index, message.description))
+
+    def _apply(self, edit: Callable[[], bool]) -> None:
+        started = time.perf_counter()
+        try:
+            changed = edit()
+        except EditRejected as exc:
+            self.notify(str(exc), title="Not accepted", severity="error")
+            return
+        if changed:
+            self.job_changed(started)
+
+    def job_changed(self, started: float) -> None:
+        """The job changed (edit, undo, open): refill the panes' inputs, recompute, keep recovery."""
+        self.selected = max(0, min(self.selected, len(self.session.job.beam) - 1))
+        self.workbench.show_job(self.session, self.selected)
+        self.update_title()
+        self.recompute(self.session.job, self.session.version, started)
+        self.keep_recovery(self.session.job if self.session.dirty else None)
+
+    @work(exclusive=True, thread=True, group="compute", description="recompute the job")
+    def recompute(self, job: Job, version: int, started: float) -> None:
+        outcomes = self.cache.job(job, self.date)
+        self.post_message(ResultsReady(version, outcomes, started))
+
+    def on_results_ready(self, message: ResultsReady) -> None:
+        if message.version != self.session.version:
+            return  # a later edit is on its way
+        self.outcomes = list(message.outcomes)
+        self.show_outcomes()
+        self.call_after_refresh(self._redrawn, self.redraw_ms, message.started)
+        pending = [k for k, o in enumerate(self.outcomes) if o.repair is None]
+        if pending:
+            pending.sort(key=lambda k: k != self.selected)
+            self.find_repairs(message.version, [(k, self.outcomes[k]) for k in pending], message.started)
+
+    def _redrawn(self, log: list[float], started: float) -> None:
+        log.append((time.perf_counter() - started) * 1000.0)
+
+    @work(exclusive=True, thread=True, group="repair", description="find repairs")
+    def find_repairs(self, version: int, todo: list[tuple[int, BeamOutcome]], started: float) -> None:
+        """Second pass: the repair search of every beam that fails as built, selected beam first."""
+        worker = get_current_worker()
+        for index, outcome in todo:
+            if worker.is_cancelled:
+                return
+            self.post_message(RepairReady(version, index, self.cache.repaired(outcome), started))
+
+    def on_repair_ready(self, message: RepairReady) -> None:
+        if message.version != self.session.version or message.index >= len(self.outcomes):
+            return
+        self.outcomes[message.index] = message.outcome
+        if message.index == self.selected:
+            self.show_outcomes()
+            self.call_after_refresh(self._redrawn, self.repair_ms, message.started)
+
+    def show_outcomes(self) -> None:
+        if len(self.outcomes) == len(self.session.job.beam):
+            self.workbench.show_outcomes([b.mark for b in self.session.job.beam], self.outcomes, self.selected)
+
+    def on_beam_selected(self, message: BeamSelected) -> None:
+        if message.index != self.selected:
+            self.select_beam(message.index)
+
+    def select_beam(self, index: int) -> None:
+        self.selected = max(0, min(index, len(self.session.job.beam) - 1))
+        self.workbench.show_job(self.session, self.selected)
+        self.show_outcomes()
+
+    def update_title(self) -> None:
+        s = self.session
+        self.title = f"fieldcomp - {s.job.project.name}"
+        self.sub_title = f"{s.where}{'  [modified]' if s.dirty else ''}"
+
+    # -- undo, beams --------------------------------------------------------------------------------
+    def action_undo(self) -> None:
+        what = self.session.undo()
+        if what is None:
+            self.notify("Nothing to undo.")
+            return
+        self.notify(f"Undone: {what}")
+        self.job_changed(time.perf_counter())
+
+    def action_redo(self) -> None:
+        what = self.session.redo()
+        if what is None:
+            self.notify("Nothing to redo.")
+            return
+        self.notify(f"Redone: {what}")
+        self.job_changed(time.perf_counter())
+
+    def action_duplicate_beam(self) -> None:
+        job = self.session.job
+        marks = {b.mark for b in job.beam}
+        source = job.beam[self.selected]
+        mark = next(f"{source.mark}-{n}" for n in range(2, 1000) if f"{source.mark}-{n}" not in marks)
+        item = source.model_copy(update={"mark": mark}).model_dump(mode="json", exclude_none=True)
+
+        def change(raw: dict) -> None:
+            raw["beam"].insert(self.selected + 1, item)
+        self._apply(lambda: self.session.apply(change, f"duplicate beam {source.mark} as {mark}"))
+        self.select_beam(self.selected + 1)
+
+    def action_remove_beam(self) -> None:
+        mark = self.session.job.beam[self.selected].mark
+        self._apply(lambda: self.session.remove(("beam",), self.selected, f"remove beam {mark}"))
+
+    # -- files ----------------------------------------------------------------------------------------
+    def action_save(self) -> None:
+        self.save_then(None)
+
+    def save_then(self, after: Callable[[], None] | None, path: Path | None = None, overwrite: bool = False) -> None:
+        """Save (to `path`, or the job's own file), then run `after`. Asks for a name when the
+        job is untitled, and asks before overwriting a file someone else changed."""
+        if path is None and self.session.path is None:
+            self.action_save_as(after)
+            return
+        old = self.session.path
+        try:
+            saved = self.session.save(path, overwrite=overwrite)
+        except ChangedOnDisk:
+            self.push_screen(Choice(
+                "Changed on disk", f"{self.session.where} was changed by someone else since it was opened. "
+                "Saving now would overwrite their edit.",
+                [("cancel", "Cancel", "default"), ("save_as", "Save as...", "primary"),
+                 ("overwrite", "Overwrite", "error"), ("reopen", "Reopen theirs", "warning")],
+                id="changed-on-disk"), lambda answer: self._changed_answer(answer, after))
+            return
+        except OSError as exc:
+            self.notify(f"Not saved: {exc}", severity="error")
+            return
+        if old is not None and old != saved:
+            discard_recovery(self.state_dir, old)
+        discard_recovery(self.state_dir, saved)
+        self._disk_warned = False
+        self.update_title()
+        self.notify(f"Saved {saved}")
+        if after is not None:
+            after()
+
+    def _changed_answer(self, answer: str | None, after: Callable[[], None] | None) -> None:
+        if answer == "overwrite":
+            self.save_then(after, overwrite=True)
+        elif answer == "save_as":
+            self.action_save_as(after)
+        elif answer == "reopen":
+            self.action_reopen()
+
+    def action_save_as(self, after: Callable[[], None] | None = None) -> None:
+        initial = str(self.session.path) if self.session.path else str(Path.cwd() / "untitled.toml")
+
+        def chosen(path: Path | None) -> None:
+            if path is None:
+                return
+            same = self.session.path is not None and path.resolve() == self.session.path.resolve()
+            if path.exists() and not same:
+                self.push_screen(Choice("Replace file?", f"{path} exists. Replace it (kept as .bak)?",
+                                        [("cancel", "Cancel", "default"), ("replace", "Replace", "error")]),
+                                 lambda answer: answer == "replace" and self.save_then(after, path, overwrite=True))
+                return
+            self.save_then(after, path)
+        self.push_screen(AskPath("Save job as", initial, "A .toml file; Enter saves, Escape cancels."), chosen)
+
+    def action_reopen(self) -> None:
+        if self.session.path is None:
+            self.notify("An untitled job has no file to reopen.", severity="warning")
+            return
+        try:
+            self.session.reload()
+        except JobFileError as exc:
+            self.notify(str(exc), title="Cannot reopen", severity="error", timeout=10)
+            return
+        self._disk_warned = False
+        self.notify(f"Reopened {self.session.path.name}; ctrl+z brings back the edits it replaced.")
+        self.job_changed(time.perf_counter())
+
+    def action_open_job(self) -> None:
+        def chosen(path: Path | None) -> None:
+            if path is not None:
+                self.guard_unsaved(lambda: self.switch_session(lambda: JobSession.open(path)), "open another job")
+        self.push_screen(AskPath("Open job", str(self.session.path or Path.cwd()), "Path of a .toml job file."), chosen)
+
+    def action_new_job(self) -> None:
+        self.guard_unsaved(lambda: self.switch_session(JobSession.untitled), "start a new job")
+
+    def switch_session(self, make: Callable[[], JobSession]) -> None:
+        try:
+            session = make()
+        except JobFileError as exc:
+            self.notify(str(exc), title="Cannot open", severity="error", timeout=10)
+            return
+        discard_recovery(self.state_dir, self.session.path)
+        self.session, self.selected, self.outcomes, self._disk_warned = session, 0, [], False
+        self.job_changed(time.perf_counter())
+        self.offer_recovery()
+
+    def guard_unsaved(self, then: Callable[[], None], doing: str) -> None:
+        """Run `then` now, or after asking what to do with unsaved edits."""
+        if not self.session.dirty:
+            then()
+            return
+
+        def answer(choice: str | None) -> None:
+            if choice == "save":
+                self.save_then(then)
+            elif choice == "discard":
+                discard_recovery(self.state_dir, self.session.path)
+                then()
+        self.push_screen(Choice("Unsaved edits", f"{self.session.name} has unsaved edits. Save them before you {doing}?",
+                                [("save", "Save", "primary"), ("discard", "Discard", "error"),
+                                 ("cancel", "Cancel", "default")], id="unsaved"), answer)
+
+    async def action_quit(self) -> None:
+        self.guard_unsaved(self.exit, "quit")
+
+    # -- recovery and the file on disk --------------------------------------------------------------
+    @work(exclusive=True, thread=True, group="recovery", description="keep the recovery file")
+    def keep_recovery(self, job) -> None:
+        """Write the unsaved job to its recovery file (or remove it once nothing is unsaved)."""
+        if job is None:
+            discard_recovery(self.state_dir, self.session.path)
+        else:
+            write_recovery(self.state_dir, self.session.path, job)
+
+    def offer_recovery(self) -> None:
+        job = read_recovery(self.state_dir, self.session.path)
+        if job is None or job == self.session.job:
+            return
+
+        def answer(choice: str | None) -> None:
+            if choice == "restore":
+                self.session.replace_job(job, "restore unsaved edits")
+                self.job_changed(time.perf_counter())
+                self.notify("Unsaved edits restored; save to keep them.")
+            elif choice == "discard":
+                discard_recovery(self.state_dir, self.session.path)
+        self.push_screen(Choice("Unsaved edits found",
+                                f"fieldcomp stopped before {self.session.name} was saved. Restore the unsaved edits?",
+                                [("restore", "Restore", "primary"), ("discard", "Discard them", "error"),
+                                 ("cancel", "Later", "default")], id="recovery"), answer)
+
+    def watch_disk(self) -> None:
+        if self._disk_warned or not self.session.changed_on_disk():
+            return
+        self._disk_warned = True
+        self.notify(f"{self.session.where} changed on disk. F5 reopens it; saving asks before overwriting.",
+                    title="Changed on disk", severity="warning", timeout=12)
+
+    # -- views ----------------------------------------------------------------------------------------
+    def action_toggle_theme(self) -> None:
+        self.theme = THEMES["light" if self.theme == THEMES["dark"].name else "dark"].name
+
+    def all_bindings(self) -> list[Binding]:
+        out = list(Binding.make_bindings(self.BINDINGS))
+        out += list(Binding.make_bindings(WorkbenchScreen.BINDINGS))
+        out.append(Binding(self.COMMAND_PALETTE_BINDING, "command_palette", "Commands", id="app.palette",
+                           tooltip="Search every action and beam by name."))
+        return out
+
+    def action_help(self) -> None:
+        if not isinstance(self.screen, HelpScreen):
+            self.push_screen(HelpScreen(self.all_bindings()))
+
+    def palette_actions(self) -> Iterator[tuple[str, str, Callable[[], object]]]:
+        """(name, help, callback) of every action for the command palette."""
+        screen_actions = {b.action for b in Binding.make_bindings(WorkbenchScreen.BINDINGS)}
+        for b in self.all_bindings():
+            if b.action == "command_palette":
+                continue
+            target = self.workbench if b.action in screen_actions else self
+            yield b.description, f"{b.tooltip} ({self.get_key_display(b)})", partial(self.run_action, b.action, target)
+        for name, help_text, action in PALETTE_ONLY:
+            yield name, help_text, partial(self.run_action, action, self)

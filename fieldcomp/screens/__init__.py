@@ -1,0 +1,1 @@
+"""Workbench screens: the workbench itself, the help screen and the small dialogs."""

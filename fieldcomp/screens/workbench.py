@@ -1,0 +1,97 @@
+"""The workbench screen: beam list, the six panes, the caution line and the footer."""
+
+from __future__ import annotations
+
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.containers import Horizontal
+from textual.screen import Screen
+from textual.widgets import Footer, Header, TabbedContent, TabPane
+
+from fieldcomp.outcome import BeamOutcome
+from fieldcomp.session import JobSession
+from fieldcomp.widgets.beam_list import BeamList
+from fieldcomp.widgets.caution import CautionLine
+from fieldcomp.widgets.pane_base import Pane
+from fieldcomp.widgets.pane_beam import BeamPane
+from fieldcomp.widgets.pane_camber import CamberPane
+from fieldcomp.widgets.pane_findings import FindingsPane
+from fieldcomp.widgets.pane_pour import PourPane
+from fieldcomp.widgets.pane_sheet import SheetPane
+from fieldcomp.widgets.pane_studs import StudsPane
+
+PANES = (("beam", "Beam", BeamPane), ("pour", "Pour", PourPane), ("camber", "Camber", CamberPane),
+         ("studs", "Studs", StudsPane), ("findings", "Findings", FindingsPane), ("sheet", "Sheet", SheetPane))
+PANE_KEYS = Binding.Group("panes", compact=True)
+
+
+class WorkbenchScreen(Screen[None]):
+    CSS_PATH = "workbench.tcss"
+    BINDINGS = [
+        *(Binding(str(k), f"pane('{key}')", title, id=f"pane.{key}", group=PANE_KEYS,
+                  tooltip=f"Show the {title} pane (outside text fields).")
+          for k, (key, title, _) in enumerate(PANES, start=1)),
+        Binding("[", "step_beam(-1)", "Previous beam", id="beam.previous", show=False,
+                tooltip="Select the beam above in the list."),
+        Binding("]", "step_beam(1)", "Next beam", id="beam.next", show=False,
+                tooltip="Select the beam below in the list."),
+        Binding("ctrl+b", "focus_beams", "Beams", id="beam.list", show=False,
+                tooltip="Move the focus to the beam list."),
+    ]
+
+    def compose(self) -> ComposeResult:
+        yield Header(icon="≡")
+        with Horizontal(id="main"):
+            yield BeamList(id="beams")
+            with TabbedContent(id="panes"):
+                for key, title, cls in PANES:
+                    with TabPane(title, id=f"tab-{key}"):
+                        yield cls(id=f"pane-{key}")
+        yield CautionLine()
+        yield Footer()
+
+    def on_mount(self) -> None:
+        self._job: tuple[JobSession, int] | None = None
+        self._outcome: tuple[BeamOutcome | None, list[BeamOutcome]] | None = None
+        self._stale_job: set[str | None] = set()
+        self._stale_outcome: set[str | None] = set()
+        self.app.workbench_ready()  # type: ignore[attr-defined]
+
+    def active_pane(self) -> Pane:
+        return self.query_one(f"#pane-{self.query_one(TabbedContent).active.removeprefix('tab-')}", Pane)
+
+    def show_job(self, session: JobSession, index: int) -> None:
+        """Inputs changed (edit, undo, other beam): refill the visible pane now, the others
+        when they are shown (hidden panes cost nothing until then)."""
+        self._job = (session, index)
+        self._stale_job = {p.id for p in self.query(Pane)}
+        self.call_next(self._show_active)
+
+    def show_outcomes(self, marks: list[str], outcomes: list[BeamOutcome], index: int) -> None:
+        verdicts = [(o.verdict, o.governing_ratio) for o in outcomes]
+        self.query_one(BeamList).show(marks, verdicts, index)
+        self._outcome = (outcomes[index] if 0 <= index < len(outcomes) else None, outcomes)
+        self._stale_outcome = {p.id for p in self.query(Pane)}
+        self.call_next(self._show_active)
+
+    async def _show_active(self) -> None:
+        pane = self.active_pane()
+        await pane.ensure_built()
+        if pane.id in self._stale_job and self._job is not None:
+            self._stale_job.discard(pane.id)
+            pane.show_job(*self._job)
+        if pane.id in self._stale_outcome and self._outcome is not None:
+            self._stale_outcome.discard(pane.id)
+            pane.show_outcome(*self._outcome)
+
+    async def on_tabbed_content_tab_activated(self, event: TabbedContent.TabActivated) -> None:
+        await self._show_active()
+
+    def action_pane(self, key: str) -> None:
+        self.query_one(TabbedContent).active = f"tab-{key}"
+
+    def action_step_beam(self, step: int) -> None:
+        self.app.select_beam(self.app.selected + step)  # type: ignore[attr-defined]
+
+    def action_focus_beams(self) -> None:
+        self.query_one(BeamList).focus()

@@ -1,0 +1,87 @@
+"""Pour pane: the stage editor and each stage's and the cumulative deflection profiles."""
+
+from __future__ import annotations
+
+from typing import Any
+
+from rich.text import Text
+from textual.app import ComposeResult
+from textual.widgets import Static
+
+from fieldcomp.outcome import BeamOutcome
+from fieldcomp.session import JobSession
+from fieldcomp.widgets.field_form import FieldSpec
+from fieldcomp.widgets.fmt import signed_inches, station
+from fieldcomp.widgets.pane_base import Pane
+from fieldcomp.widgets.plot import Series, TerminalPlot
+from fieldcomp.widgets.row_editor import RowEditor
+from fieldcomp.widgets.table import Table
+
+IN3_PER_FT3 = 1728.0  # unit conversion
+STAGE_FIELDS = (
+    FieldSpec("name", ("name",), "Stage name."),
+    FieldSpec("start", ("start",), "Station where this stage's concrete starts."),
+    FieldSpec("end", ("end",), "Station where it ends; blank: the far end."),
+    FieldSpec("side", ("side",), "Side of the beam the concrete is placed on.", ("both", "left", "right")),
+    FieldSpec("day", ("day",), "Days after the first placement."),
+    FieldSpec("screed", ("screed",), "Overrides the beam's screeding mode; blank: the beam's.",
+              ("constant-thickness", "level"), optional=True),
+)
+
+
+def new_stage(rows: list[Any]) -> dict[str, Any]:
+    day = max((r.day for r in rows), default=-1.0) + 1.0
+    return {"name": f"stage {len(rows) + 1}", "start": "0 in", "day": day}
+
+
+class PourPane(Pane):
+    def build(self) -> ComposeResult:
+        yield Static("", classes="pane--head", id="pour-head")
+        yield RowEditor("pour", "stage", STAGE_FIELDS, new_stage, id="pour-stages",
+                        empty="No stages: the whole slab is placed at once (one stage). Add a stage to plan the pour.")
+        yield Static("Steps in time order (bare steel; 'cured': earlier concrete acting at its age)",
+                     classes="pane--section")
+        yield Table("step", "day", "placed", "screed", "adds", "total", "total cured", "constr. live", "flexure ratio",
+                    "stress ksi", "ponded ft3", id="pour-steps")
+        yield TerminalPlot("Deflection added by each step (down)", id="pour-step-plot")
+        yield TerminalPlot("Cumulative deflection after each step (down)", id="pour-total-plot")
+        yield Static("", id="pour-notes", classes="pane--note")
+
+
+    def show_job(self, session: JobSession, index: int) -> None:
+        self.query_one(RowEditor).show(session, index)
+        beam = session.job.beam[index]
+        self.query_one("#pour-head", Static).update(
+            f"{beam.mark}: pour plan, screed {beam.screed}, construction live {beam.construction_live_psf:g} psf")
+
+    def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
+        table = self.query_one("#pour-steps", Table)
+        table.clear()
+        con = outcome.construction.value if outcome else None
+        notes = self.query_one("#pour-notes", Static)
+        if outcome is None or con is None:
+            for plot in self.query(TerminalPlot):
+                plot.clear("not computed")
+            notes.update(Text(outcome.construction.error if outcome else "", style="bold red"))
+            return
+        b = con.beam
+        for st in con.stages:
+            where = "steel, deck" if st.kind == "erection" else f"{station(st.start)}-{station(st.end)} {st.side}"
+            ratio = st.demand / st.capacity if st.capacity > 0 else float("inf")
+            table.add_row(st.name, f"{st.day:g}", where, st.screed if st.kind != "erection" else "",
+                          signed_inches(st.deflection), signed_inches(st.cumulative), signed_inches(st.cumulative_cured),
+                          signed_inches(st.live_deflection), Text(f"{ratio:.2f}", style="" if ratio <= 1 else "bold red"),
+                          f"{st.stress:.1f}", f"{st.ponded_volume / IN3_PER_FT3:.1f}")
+        x, names = con.x, [st.name for st in con.stages]
+        fmt = signed_inches
+        self.query_one("#pour-step-plot", TerminalPlot).plot(
+            [Series(n, x, con.run.dead[k], tone=k) for k, n in enumerate(names)], b.span, downward=True, fmt=fmt)
+        cum = con.run.cumulative
+        series = [Series(f"after {n}", x, cum[k], tone=k) for k, n in enumerate(names)]
+        series.append(Series("final, cured", x, con.cured.cumulative[-1], tone=5))
+        self.query_one("#pour-total-plot", TerminalPlot).plot(series, b.span, downward=True, fmt=fmt)
+        ponding = ""
+        if con.ponded_weight > 0:
+            ponding = (f"Level screed: {con.ponded_weight:.2f} kip of concrete ponds beyond the nominal thickness "
+                       f"({con.ponding_extra_psf:.1f} psf over the tributary area, {con.ponded_share:.0%} of the slab). ")
+        notes.update(ponding + f"Bracing while wet: {con.bracing.note}")

@@ -1,0 +1,20 @@
+"""A data table that knows its columns from the start."""
+
+from __future__ import annotations
+
+from textual.widgets import DataTable
+
+
+class Table(DataTable):
+    """Columns given at creation. Display tables (the default) take no focus and show no cursor;
+    `rows=True` makes a table whose row cursor picks a row to edit."""
+
+    DEFAULT_CSS = "Table { height: auto; max-height: 24; }"
+
+    def __init__(self, *columns: str, id: str | None = None, rows: bool = False) -> None:
+        super().__init__(id=id, cursor_type="row" if rows else "none", zebra_stripes=True)
+        self.columns_wanted = columns
+        self.can_focus = rows
+
+    def on_mount(self) -> None:
+        self.add_columns(*self.columns_wanted)

@@ -1,0 +1,294 @@
+"""Workbench flows, headless (App.run_test): edit and see the panes follow, findings and repair,
+save / reopen, the unsaved-edits guard, recovery after a crash, a file changed on disk.
+
+Expected engineering values are not asserted here (the engine's own tests carry their sources);
+these tests check that the workbench shows what the engine returns for the edited job.
+"""
+
+from __future__ import annotations
+
+import asyncio
+import shutil
+from pathlib import Path
+
+from textual.widgets import Input, Static
+
+from engine.construction import evaluate_construction
+from fieldcomp.app import FieldcompApp
+from fieldcomp.jobfile import load_job, parse_job
+from fieldcomp.screens.dialogs import Choice
+from fieldcomp.screens.help import HelpScreen
+from fieldcomp.session import JobSession, read_recovery, recovery_path
+from fieldcomp.to_engine import to_engine
+
+ROOT = Path(__file__).resolve().parents[1]
+DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
+SIZE = (170, 48)
+
+
+def demo_copy(tmp_path: Path) -> Path:
+    target = tmp_path / "demo.toml"
+    shutil.copyfile(DEMO, target)
+    return target
+
+
+def make_app(path: Path, tmp_path: Path) -> FieldcompApp:
+    app = FieldcompApp(JobSession.open(path), state_dir=tmp_path / "state", theme="light")
+    app.animation_level = "none"
+    return app
+
+
+async def settle(pilot, app: FieldcompApp) -> None:
+    """Wait until every worker (recompute, repair, recovery file) has finished and the screen
+    has caught up."""
+    for _ in range(3):
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+
+
+async def type_into(pilot, app: FieldcompApp, selector: str, text: str) -> Input:
+    """Enter `text` in a field (as pasted: one change event) and press Enter."""
+    field = app.workbench.query_one(selector, Input)
+    field.focus()
+    field.value = text
+    await pilot.press("enter")
+    await settle(pilot, app)
+    return field
+
+
+def rib_that_fails(outcome) -> int:
+    """A rib where one more missing stud makes the beam fail as built (found with the engine)."""
+    from engine.findings import evaluate_as_built
+    from engine.model import Finding
+
+    beam, designed = outcome.beam, outcome.layout.value.layout
+    for rib in designed.number[designed.count > 0]:
+        trial = beam.findings + (Finding("missing", rib=int(rib)),)
+        try:
+            if evaluate_as_built(beam, designed, trial).verdict == "fail":
+                return int(rib)
+        except ValueError:  # the rib's studs are already accounted for
+            continue
+    raise AssertionError("no single missing stud fails this beam")
+
+
+def run(coro) -> None:
+    asyncio.run(coro)
+
+
+def test_change_span_and_the_camber_follows(tmp_path):
+    async def flow():
+        app = make_app(demo_copy(tmp_path), tmp_path)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            before = app.outcomes[0].construction.value.camber
+            assert before.camber == 0.0  # the demo's 30 ft infill beam is not cambered
+            await type_into(pilot, app, "#beam-form #f-span", "36 ft 6 in")
+            assert app.session.job.beam[0].span == "36 ft 6 in"
+            after = app.outcomes[0].construction.value.camber
+            # the engine's own decision for the edited beam, computed independently of the app
+            expected = evaluate_construction(to_engine(app.session.job)[0]).camber
+            assert after == expected and after.camber > 0.0
+            app.workbench.action_pane("camber")
+            await settle(pilot, app)
+            head = str(app.workbench.query_one("#camber-head", Static).render())
+            assert "order camber" in head
+            assert app.session.dirty and "[modified]" in app.sub_title
+    run(flow())
+
+
+def test_units_as_typed_and_inline_loader_messages(tmp_path):
+    async def flow():
+        app = make_app(demo_copy(tmp_path), tmp_path)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            field = app.workbench.query_one("#beam-form #f-span", Input)
+            field.focus()
+            field.value = ""
+            await pilot.press(*"32 6")
+            await pilot.pause()
+            assert field.has_class("-invalid")
+            shown = str(app.workbench.query_one("#beam-form .form--problem", Static).render())
+            raw = DEMO.read_text().replace("span = \"30'-0\\\"\"", "span = \"32 6\"", 1)
+            try:
+                parse_job(raw, app.session.where)
+            except ValueError as exc:
+                loader = exc.problems[0]
+            assert shown == f"{loader[0]}: {loader[1]}"
+            await pilot.press("enter")
+            await settle(pilot, app)
+            assert app.session.job.beam[0].span == "30'-0\""  # refused: the job is unchanged
+            await type_into(pilot, app, "#beam-form #f-span", "32'-6 1/2\"")
+            assert app.session.job.beam[0].span == "32'-6 1/2\""
+            assert not field.has_class("-invalid")
+    run(flow())
+
+
+def test_undo_and_redo_the_last_edits(tmp_path):
+    async def flow():
+        app = make_app(demo_copy(tmp_path), tmp_path)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            original = app.session.job
+            await type_into(pilot, app, "#beam-form #f-live_psf", "150")
+            await type_into(pilot, app, "#beam-form #f-studs-count", "20")
+            assert app.session.job.beam[0].studs.count == 20
+            await pilot.press("ctrl+z")
+            await settle(pilot, app)
+            assert app.session.job.beam[0].studs.count == 26
+            assert app.workbench.query_one("#beam-form #f-studs-count", Input).value == "26"
+            await pilot.press("ctrl+z")
+            await settle(pilot, app)
+            assert app.session.job == original and not app.session.dirty
+            await pilot.press("ctrl+y")
+            await settle(pilot, app)
+            assert app.session.job.beam[0].live_psf == 150
+    run(flow())
+
+
+def test_add_a_finding_flips_the_verdict_and_a_repair_appears(tmp_path):
+    async def flow():
+        app = make_app(demo_copy(tmp_path), tmp_path)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            assert app.outcomes[0].as_built.value.verdict == "pass"  # 3B-101: accepted as built
+            before = len(app.session.job.beam[0].finding)
+            app.workbench.action_pane("findings")
+            await settle(pilot, app)
+            await pilot.click("#finding-add")
+            await settle(pilot, app)
+            assert len(app.session.job.beam[0].finding) == before + 1
+            await type_into(pilot, app, "#finding-form #f-rib", str(rib_that_fails(app.outcomes[0])))
+            outcome = app.outcomes[0]
+            assert outcome.as_built.value.verdict == "fail" and outcome.verdict == "fail"
+            repair = outcome.repair.value
+            assert repair is not None and repair.total >= 1 and repair.after.verdict == "pass"
+            text = str(app.workbench.query_one("#findings-repair", Static).render())
+            assert f"add {repair.total} stud(s)" in text
+            assert "fail" in str(app.workbench.query_one("#beams").get_option_at_index(0).prompt)
+    run(flow())
+
+
+def test_save_then_reopen_gives_an_equal_job(tmp_path):
+    async def flow():
+        path = demo_copy(tmp_path)
+        app = make_app(path, tmp_path)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            await type_into(pilot, app, "#beam-form #f-live_psf", "125")
+            await pilot.press("ctrl+s")
+            await settle(pilot, app)
+            assert not app.session.dirty
+            assert path.with_name("demo.toml.bak").read_bytes() == DEMO.read_bytes()
+            assert load_job(path).job == app.session.job
+            edited = app.session.job
+            await pilot.press("f5")
+            await settle(pilot, app)
+            assert app.session.job == edited and not app.session.dirty
+    run(flow())
+
+
+def test_quit_with_unsaved_edits_asks_first(tmp_path):
+    async def flow():
+        app = make_app(demo_copy(tmp_path), tmp_path)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            await type_into(pilot, app, "#beam-form #f-live_psf", "90")
+            await pilot.press("ctrl+q")
+            await pilot.pause()
+            assert isinstance(app.screen, Choice) and app.screen.id == "unsaved"
+            await pilot.press("escape")
+            await pilot.pause()
+            assert app.is_running and not isinstance(app.screen, Choice)
+            await pilot.press("ctrl+q")
+            await pilot.pause()
+            await pilot.click("#discard")
+            await pilot.pause()
+            assert not app.is_running
+        assert read_recovery(tmp_path / "state", app.session.path) is None
+    run(flow())
+
+
+def test_a_recovery_file_is_offered_after_a_crash(tmp_path):
+    async def flow():
+        path = demo_copy(tmp_path)
+        first = make_app(path, tmp_path)
+        async with first.run_test(size=SIZE) as pilot:
+            await settle(pilot, first)
+            await type_into(pilot, first, "#beam-form #f-superimposed_dead_psf", "45")
+            edited = first.session.job
+            assert recovery_path(tmp_path / "state", path).exists()
+            first.exit()  # a crash: the unsaved-edits guard never runs
+        assert load_job(path).job != edited
+        second = make_app(path, tmp_path)
+        async with second.run_test(size=SIZE) as pilot:
+            await settle(pilot, second)
+            assert isinstance(second.screen, Choice) and second.screen.id == "recovery"
+            await pilot.click("#restore")
+            await settle(pilot, second)
+            assert second.session.job == edited and second.session.dirty
+            assert second.workbench.query_one("#beam-form #f-superimposed_dead_psf", Input).value == "45"
+    run(flow())
+
+
+def test_a_file_changed_on_disk_is_not_overwritten_without_asking(tmp_path):
+    async def flow():
+        path = demo_copy(tmp_path)
+        app = make_app(path, tmp_path)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            await type_into(pilot, app, "#beam-form #f-live_psf", "80")
+            theirs = DEMO.read_text().replace('name = "Harbor Row', 'name = "Edited elsewhere: Harbor Row')
+            path.write_text(theirs)
+            await pilot.press("ctrl+s")
+            await pilot.pause()
+            assert isinstance(app.screen, Choice) and app.screen.id == "changed-on-disk"
+            assert path.read_text() == theirs
+            await pilot.click("#cancel")
+            await pilot.pause()
+            assert path.read_text() == theirs and app.session.dirty
+    run(flow())
+
+
+def test_keys_help_palette_theme_and_caution(tmp_path):
+    async def flow():
+        app = make_app(demo_copy(tmp_path), tmp_path)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            from fieldcomp import CAUTION
+            assert str(app.workbench.query_one("#caution", Static).render()) == CAUTION
+            names = [name for name, _, _ in app.palette_actions()]
+            for action in ("Save", "Save as", "Undo", "Redo", "Help", "Quit", "Beam", "Findings", "Duplicate beam"):
+                assert action in names
+            app.workbench.query_one("#beams").focus()
+            await pilot.press("4")
+            assert app.workbench.query_one("#panes").active == "tab-studs"
+            await pilot.press("f1")
+            await pilot.pause()
+            assert isinstance(app.screen, HelpScreen)
+            await pilot.press("escape")
+            await pilot.press("ctrl+t")
+            assert app.theme == "fieldcomp-dark"
+            await pilot.press("ctrl+t")
+            assert app.theme == "fieldcomp-light"
+            assert all(b.id and b.tooltip for b in app.all_bindings())
+    run(flow())
+
+
+def test_new_untitled_job_from_the_starter(tmp_path):
+    async def flow():
+        app = FieldcompApp(JobSession.untitled(), state_dir=tmp_path / "state", theme="light")
+        app.animation_level = "none"
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            assert "untitled" in app.sub_title and not app.session.dirty
+            assert app.outcomes and app.outcomes[0].result is not None
+            await pilot.press("f2")
+            await pilot.pause()
+            field = app.screen.query_one("#path", Input)
+            field.value = str(tmp_path / "new.toml")
+            await pilot.press("enter")
+            await settle(pilot, app)
+            assert load_job(tmp_path / "new.toml").job == app.session.job
+            assert app.session.path == tmp_path / "new.toml" and not app.session.dirty
+    run(flow())

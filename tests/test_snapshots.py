@@ -1,0 +1,56 @@
+"""Snapshots of every workbench pane on the demo job (pytest-textual-snapshot, fixed size).
+
+Update after a deliberate change with `pytest tests/test_snapshots.py --snapshot-update`, then
+read the SVG diffs (tests/__snapshots__/) before accepting them.
+"""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import pytest
+
+from fieldcomp.app import FieldcompApp
+from fieldcomp.session import JobSession
+
+ROOT = Path(__file__).resolve().parents[1]
+SIZE = (170, 48)  # wide enough for the caution line in full
+DATE = "2025-06-02"  # printed on marks sheets; fixed so the snapshot does not change with the day
+
+
+def demo_app(tmp_path: Path, theme: str = "light") -> FieldcompApp:
+    """The demo job opened by a relative path (the title shows no machine-specific folder)."""
+    app = FieldcompApp(JobSession.open(Path("jobs") / "harbor_row_level3.toml"), state_dir=tmp_path / "state",
+                       theme=theme, date=DATE)
+    app.animation_level = "none"
+    return app
+
+
+def show(pane: str, beam: int = 0):
+    async def run_before(pilot) -> None:
+        app = pilot.app
+        for _ in range(3):
+            await app.workers.wait_for_complete()
+            await pilot.pause()
+        app.select_beam(beam)
+        app.workbench.action_pane(pane)
+        for _ in range(3):
+            await app.workers.wait_for_complete()
+            await pilot.pause()
+    return run_before
+
+
+@pytest.fixture(autouse=True)
+def _at_root(monkeypatch):
+    monkeypatch.chdir(ROOT)
+
+
+@pytest.mark.parametrize("pane, beam", [
+    ("beam", 0), ("pour", 1), ("camber", 1), ("studs", 0), ("findings", 2), ("sheet", 0),
+])
+def test_pane(snap_compare, tmp_path, pane, beam):
+    assert snap_compare(demo_app(tmp_path), terminal_size=SIZE, run_before=show(pane, beam))
+
+
+def test_dark_theme_beam_pane(snap_compare, tmp_path):
+    assert snap_compare(demo_app(tmp_path, "dark"), terminal_size=SIZE, run_before=show("camber", 6))
