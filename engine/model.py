@@ -93,6 +93,7 @@ class RibSettings:
     keep_out_start: float = 0.0  # no studs closer than this to the reference end
     keep_out_end: float = 0.0  # ... and to the far end
     station_origin: str = "beam-end"  # or "support" (work point)
+    end_setback: float = 0.0  # support centreline (work point) to the end of the steel, each end
 
 
 @dataclass(frozen=True, slots=True)

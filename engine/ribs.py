@@ -27,6 +27,20 @@ def rib_stations(beam: BeamInput) -> np.ndarray:
 
 def in_keep_out(beam: BeamInput, x: np.ndarray) -> np.ndarray:
     """True at stations closer to an end than its keep-out distance (connections, girder
-    flanges), where no stud may stand."""
+    flanges) or beyond the end of the steel, where no stud may stand."""
     x = np.asarray(x, dtype=float)
-    return (x < beam.ribs.keep_out_start - _EPS) | (x > beam.span - beam.ribs.keep_out_end + _EPS)
+    start = max(beam.ribs.keep_out_start, beam.ribs.end_setback)
+    end = max(beam.ribs.keep_out_end, beam.ribs.end_setback)
+    return (x < start - _EPS) | (x > beam.span - end + _EPS)
+
+
+def station_offset(beam: BeamInput) -> float:
+    """Engine stations run from the support centreline at the reference end; erector-facing
+    stations (marks, findings) run from the end of the steel when project.station_origin is
+    "beam-end". This is what to subtract from an engine station to print it."""
+    return beam.ribs.end_setback if beam.ribs.station_origin == "beam-end" else 0.0
+
+
+def printed_station(beam: BeamInput, x):
+    """An engine station as the erector measures it (see `station_offset`)."""
+    return x - station_offset(beam)

@@ -18,6 +18,7 @@ from engine.checks import Check
 from engine.detailing import DECK_ANCHOR_CLAUSE
 from engine.layout import StudLayout, deck_anchor_slots, layout_qn
 from engine.model import BeamInput
+from engine.ribs import printed_station
 from engine.units import format_ft_in, format_inches
 
 FORMULA_START = ("=", "+", "-", "@", "\t", "\r")  # spreadsheet formula triggers (OWASP CSV injection)
@@ -123,7 +124,7 @@ def mark_rows(sheet: SheetData) -> list[MarkRow]:
     rows = []
     for i in np.flatnonzero((lay.count > 0) | (added > 0)):
         qn = float(lay.qn[i]) if lay.count[i] > 0 else float(layout_qn(sheet.beam, added[i:i + 1], lay.position[i])[0])
-        rows.append(MarkRow(int(lay.number[i]), float(lay.x[i]), format_ft_in(float(lay.x[i])), int(lay.count[i]),
+        rows.append(MarkRow(int(lay.number[i]), float(lay.x[i]), format_ft_in(float(printed_station(sheet.beam, lay.x[i]))), int(lay.count[i]),
                             int(lost[i]), int(added[i]), side_text(sheet.beam, str(sides[i])), qn))
     return rows
 
@@ -172,7 +173,7 @@ def summary_lines(sheet: SheetData) -> list[str]:
     if sheet.required_sum_qn is not None:
         lines.append(f"required sum Qn each side: {sheet.required_sum_qn:.1f} kips")
     for c in sheet.checks:
-        where = f" at {format_ft_in(c.station)}" if c.station is not None else ""
+        where = f" at {format_ft_in(printed_station(sheet.beam, c.station))}" if c.station is not None else ""
         lines.append(f"{'pass' if c.passed else 'FAIL'} {c.ratio:.2f}  {c.name}{where}  [{c.clause}]")
     anchors = anchor_ribs(sheet)
     if anchors:
@@ -233,7 +234,7 @@ def marks_csv(sheet: SheetData) -> str:
     for r in mark_rows(sheet):
         i = r.slot - 1
         half = b.ribs.reference_end if r.x <= flip + 1e-6 else b.ribs.far_end
-        w.writerow([csv_text(sheet.job), csv_text(b.mark), r.slot, round(r.x, 4), r.station, r.studs, r.lost,
+        w.writerow([csv_text(sheet.job), csv_text(b.mark), r.slot, round(float(printed_station(b, r.x)), 4), r.station, r.studs, r.lost,
                     r.added, csv_text(r.side), str(lay.position[i]), round(r.qn, 3),
                     round((r.studs - r.lost) * r.qn, 3), csv_text(half), csv_text(station_origin_text(b))])
     return out.getvalue()

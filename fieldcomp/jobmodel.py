@@ -154,6 +154,7 @@ class Beam(Strict):
     no_camber_reason: str | None = Field(None, max_length=80, description="Why not to camber (moment-connected, spandrel, cantilevered ...).")
     reference_end: str = Field("left end", max_length=40, description="Name of the end stations are measured from (e.g. \"west\", \"grid 3\").")
     far_end: str = Field("far end", max_length=40, description="Name of the other end (e.g. \"east\", \"grid 4\").")
+    end_setback: Length = Field("0 in", description="Support centreline (work point) to the end of the steel, at each end. Stations printed for the erector and finding stations are measured from the end of the steel when project.station_origin is \"beam-end\".")
     first_rib: Length | None = Field(None, description="Station of the first rib centreline (default half a pitch).")
     keep_out_start: Length = Field("0 in", description="No studs closer than this to the reference end.")
     keep_out_end: Length = Field("0 in", description="No studs closer than this to the far end.")

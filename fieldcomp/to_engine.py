@@ -111,10 +111,15 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
     keep_start, keep_end = parse_length(b.keep_out_start), parse_length(b.keep_out_end)
     if keep_start + keep_end >= span:
         raise _FieldProblem("keep_out_start", "keep-out zones cover the whole span")
+    setback = parse_length(b.end_setback)
+    if 2.0 * setback >= span:
+        raise _FieldProblem("end_setback", "the setbacks at both ends cover the whole span")
     ribs = RibSettings(b.reference_end, b.far_end, None if b.first_rib is None else parse_length(b.first_rib),
-                       keep_start, keep_end, job.project.station_origin)
-    findings = tuple(Finding(f.kind, f.rib, None if f.station is None else parse_length(f.station), f.count, f.note)
-                     for f in b.finding)
+                       keep_start, keep_end, job.project.station_origin, setback)
+    # finding stations are read off the marks, so they follow the printed station convention
+    offset = setback if job.project.station_origin == "beam-end" else 0.0
+    findings = tuple(Finding(f.kind, f.rib, None if f.station is None else parse_length(f.station) + offset,
+                             f.count, f.note) for f in b.finding)
     diameter = parse_length(b.studs.diameter)
     if not 0.25 <= diameter <= 1.0:
         raise _FieldProblem("studs.diameter", f"{b.studs.diameter} is outside 1/4 in to 1 in")

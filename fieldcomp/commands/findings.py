@@ -124,14 +124,22 @@ def _num(value: float, digits: int = 3) -> float | None:
 
 
 def _station(beam, x: float | None) -> str:
+    from engine.ribs import printed_station
     from engine.units import format_ft_in
 
-    return "" if x is None else f"{format_ft_in(x)} from {beam.ribs.reference_end}"
+    return "" if x is None else f"{format_ft_in(printed_station(beam, x))} from {beam.ribs.reference_end}"
+
+
+def _at(beam, x: float) -> float | None:
+    """A station as printed for the erector (project.station_origin), for JSON."""
+    from engine.ribs import printed_station
+
+    return _num(float(printed_station(beam, x)), 2)
 
 
 def _repair_rows(before, repair) -> list[dict[str, Any]]:
     d = before.designed
-    return [{"rib": int(k) + 1, "station_in": _num(float(d.x[k]), 2), "station": _station(before.beam, float(d.x[k])),
+    return [{"rib": int(k) + 1, "station_in": _at(before.beam, float(d.x[k])), "station": _station(before.beam, float(d.x[k])),
              "added": int(repair.added[k]),
              "studs_in_rib_after": int(before.state.in_rib[k] + repair.added[k])}
             for k in range(d.x.size) if repair.added[k] > 0]
@@ -146,7 +154,7 @@ def _governing_station(r) -> float:
 
 def _governing(r) -> dict[str, Any]:
     gov = r.governing
-    return {"check": gov.name, "clause": gov.clause, "ratio": _num(gov.ratio), "station_in": _num(_governing_station(r), 2)}
+    return {"check": gov.name, "clause": gov.clause, "ratio": _num(gov.ratio), "station_in": _at(r.beam, _governing_station(r))}
 
 
 def findings_json(job_name: str, before, repair) -> dict[str, Any]:
@@ -161,7 +169,7 @@ def findings_json(job_name: str, before, repair) -> dict[str, Any]:
     for i, f in enumerate(b.findings):
         k = finding_slot(d, f, i)
         effect, clause = finding_effect(d, f, k)
-        found.append({"index": i + 1, "kind": f.kind, "rib": k + 1, "station_in": _num(float(d.x[k]), 2),
+        found.append({"index": i + 1, "kind": f.kind, "rib": k + 1, "station_in": _at(b, float(d.x[k])),
                       "count": f.count, "note": f.note, "effect": effect, "clause": clause})
     return {
         "job": job_name,
@@ -179,7 +187,7 @@ def findings_json(job_name: str, before, repair) -> dict[str, Any]:
         "sum_qn_kips_left": _num(r.sum_qn_left),
         "sum_qn_kips_right": _num(r.sum_qn_right),
         "min_strength_ratio": _num(ratio),
-        "min_ratio_station_in": _num(station, 2),
+        "min_ratio_station_in": _at(b, station),
         "composite_ratio": _num(r.composite_ratio),
         "i_lb_in4": _num(r.i_lb, 0),
         "i_equiv_in4": _num(r.i_equiv, 0),
@@ -197,7 +205,7 @@ def findings_json(job_name: str, before, repair) -> dict[str, Any]:
         "repair_proven_fewest": repair.proven_fewest,
         "after_repair": None if after is None else {
             "verdict": after.verdict, "min_strength_ratio": _num(after.min_strength_ratio[0]),
-            "min_ratio_station_in": _num(after.min_strength_ratio[1], 2), "governing": _governing(after)},
+            "min_ratio_station_in": _at(b, after.min_strength_ratio[1]), "governing": _governing(after)},
         "alternatives": list(repair.alternatives),
         "repair_notes": list(repair.notes),
     }
@@ -206,30 +214,35 @@ def findings_json(job_name: str, before, repair) -> dict[str, Any]:
 def findings_text(job_name: str, job_path: str, before, repair) -> str:
     """A readable report: findings with their effect and clause, the beam as built, the repair."""
     from engine.findings import finding_effect, finding_slot
+    from engine.ribs import printed_station
+    from engine.sheet import station_origin_text
     from engine.units import format_ft_in, format_inches
     from fieldcomp.report import check_line
+
+    def at(x: float) -> str:
+        return format_ft_in(float(printed_station(b, x)))
 
     b, r, d = before.beam, before.result, before.designed
     ratio, station = before.min_strength_ratio
     k = r.critical
     lines = [f"fieldcomp {__version__} - job '{job_name}' ({job_path}) - stud inspection of beam {b.mark}",
              f"CAUTION: {CAUTION}", f"REPAIRS: {REPAIR_CAUTION}", "",
-             f"Beam {b.mark}: {b.shape.name}, span {format_ft_in(b.span)}, {b.method}; stations from "
-             f"{b.ribs.reference_end}, ribs numbered 1-{d.x.size} from there"]
+             f"Beam {b.mark}: {b.shape.name}, span {format_ft_in(b.span)}, {b.method}; {station_origin_text(b)}, "
+             f"ribs numbered 1-{d.x.size} from there"]
     lines.append(f"  findings ({len(b.findings)}):" if b.findings else "  no findings recorded for this beam")
     for i, f in enumerate(b.findings):
         s = finding_slot(d, f, i)
         effect, clause = finding_effect(d, f, s)
         note = f" - \"{f.note}\"" if f.note else ""
-        lines.append(f"  #{i + 1:<2} {f.kind:11} x{f.count} rib {s + 1:>3} @ {format_ft_in(float(d.x[s])):>10}: "
+        lines.append(f"  #{i + 1:<2} {f.kind:11} x{f.count} rib {s + 1:>3} @ {at(float(d.x[s])):>10}: "
                      f"{effect} [{clause}]{note}")
     lines += [
         f"  studs: {d.total} as designed, {before.layout.total} working, {int(before.lost.sum())} lost, "
         f"{int(before.state.added.sum())} added in the field",
         f"  as built: sum Qn {r.sum_qn_left:.0f} / {r.sum_qn_right:.0f} kips left/right of max moment "
-        f"(at {format_ft_in(float(r.x[k]))}); composite {r.composite_ratio:.0%}; "
+        f"(at {at(float(r.x[k]))}); composite {r.composite_ratio:.0%}; "
         f"I_LB {r.i_lb:,.0f} in4, I_equiv {r.i_equiv:,.0f} in4",
-        f"  strength: least capacity/demand {ratio:.2f} at {format_ft_in(station)}; live-load deflection "
+        f"  strength: least capacity/demand {ratio:.2f} at {at(station)}; live-load deflection "
         f"{format_inches(r.live_deflection)} vs {format_inches(b.span / b.limits.live_ratio)}; "
         f"longest gap between working studs {before.anchor_gap:.1f} in",
         "  checks as built (ratio = demand / capacity):",
@@ -238,7 +251,7 @@ def findings_text(job_name: str, job_path: str, before, repair) -> str:
     lines += [f"  note  [{f.clause}] {f.message}" for f in before.flags]
     gov = before.governing
     lines.append(f"  verdict: {before.verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f} "
-                 f"at {format_ft_in(_governing_station(before))})")
+                 f"at {at(_governing_station(before))})")
     lines.append("")
     if before.verdict == "pass":
         lines.append("Repair: none needed.")
