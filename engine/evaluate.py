@@ -118,6 +118,9 @@ def check_scope(beam: BeamInput) -> None:
     if deck is not None and beam.studs.diameter > 0.75:
         raise OutOfScope("diameter", f"stud diameter {beam.studs.diameter:g} in exceeds 3/4 in through deck "
                          "(AISC 360-22 I8.1 / I3.2c.1(c)); not computed")
+    if beam.support != "simple":
+        raise OutOfScope("support", f"a {beam.support} beam has negative moment over its supports (AISC 360-22 I3.2b); "
+                         "fieldcomp computes simply supported beams only; not computed")
     if beam.fy > 70.0:
         raise OutOfScope("fy_ksi", f"Fy = {beam.fy:g} ksi exceeds 70 ksi; plastic stress distribution "
                          "not established (AISC 360-22 I3.2a); not computed")
@@ -267,6 +270,9 @@ def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResu
         spacing, flags = list(placed.checks), list(placed.flags)
     checks += spacing
     flags += _ductility_flags(beam, composite_ratio, groups)
+    if beam.web_openings:
+        flags.append(Flag("AISC Design Guide 2", "web openings are not checked: strength and deflection here assume "
+                          "a solid web", severity="not-checked"))
     return BeamResult(
         beam=beam, x=x, mu=mu, ma=ma, mn=mn, slab_force=c, groups=groups, b_eff=b_eff, ac=ac, cf=cf,
         ec=e_c, n=n, critical=k, sum_qn_left=float(left[k]), sum_qn_right=float(right[k]),

@@ -144,6 +144,8 @@ class BeamInput:
     findings: tuple[Finding, ...] = ()
     limits: Limits = field(default_factory=Limits)
     n_stations: int = 401
+    support: str = "simple"  # engine.scope.SUPPORTS; only "simple" is computed
+    web_openings: bool = False
 
     @property
     def tributary_width(self) -> float:

@@ -152,6 +152,8 @@ class Beam(Strict):
     construction_limits: ConstructionLimitsIn = Field(default_factory=ConstructionLimitsIn, description="Construction-stage deflection limits.")
     camber: Literal["auto", "none"] = Field("auto", description="\"none\" for beams that must not be cambered.")
     no_camber_reason: str | None = Field(None, max_length=80, description="Why not to camber (moment-connected, spandrel, cantilevered ...).")
+    support: Literal["simple", "continuous", "cantilever"] = Field("simple", description="Support condition; only simple spans are computed, the others are refused (AISC 360-22 I3.2b).")
+    web_openings: bool = Field(False, description="The beam has web openings (not checked: AISC Design Guide 2); reports flag it.")
     reference_end: str = Field("left end", max_length=40, description="Name of the end stations are measured from (e.g. \"west\", \"grid 3\").")
     far_end: str = Field("far end", max_length=40, description="Name of the other end (e.g. \"east\", \"grid 4\").")
     end_setback: Length = Field("0 in", description="Support centreline (work point) to the end of the steel, at each end. Stations printed for the erector and finding stations are measured from the end of the steel when project.station_origin is \"beam-end\".")

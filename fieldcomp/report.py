@@ -101,5 +101,20 @@ def beam_text(r: BeamResult) -> str:
     return "\n".join(lines)
 
 
+def not_checked_json() -> list[dict[str, str]]:
+    """What fieldcomp does not check (engine.scope), for JSON reports."""
+    from engine.scope import NOT_CHECKED
+
+    return [{"item": item, "reference": ref} for item, ref in NOT_CHECKED]
+
+
+def scope_block() -> str:
+    """One line per item fieldcomp does not check, for text reports."""
+    from engine.scope import NOT_CHECKED
+
+    return "\n".join(["Not checked by fieldcomp (the engineer of record's to check):"]
+                     + [f"  - {item} ({ref})" for item, ref in NOT_CHECKED])
+
+
 def caution_block() -> str:
     return f"CAUTION: {CAUTION}"

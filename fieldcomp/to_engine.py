@@ -131,5 +131,5 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         live_psf=b.live_psf, studs=studs, method=job.project.method, point_loads=tuple(point_loads),
         load_width=None if b.load_width is None else parse_length(b.load_width),
         construction=construction, ribs=ribs, findings=findings,
-        limits=Limits(b.live_limit_ratio, b.total_limit_ratio),
+        limits=Limits(b.live_limit_ratio, b.total_limit_ratio), support=b.support, web_openings=b.web_openings,
     )

@@ -101,3 +101,22 @@ def test_every_verb_has_help(verb, capsys):
     with pytest.raises(SystemExit) as info:
         main([verb, "--help"])
     assert info.value.code == 0
+
+
+def test_continuous_beam_is_refused_and_scope_is_stated(tmp_path, capsys):
+    cont = tmp_path / "cont.toml"
+    cont.write_text(Path(DEMO).read_text().replace('mark = "3B-101"', 'mark = "3B-101"\nsupport = "continuous"', 1))
+    assert main(["check", str(cont)]) == 2
+    err = capsys.readouterr().err
+    assert "3B-101" in err and "'support'" in err and "I3.2b" in err
+    assert main(["check", DEMO, "--json"]) == 0
+    out = json.loads(capsys.readouterr().out)
+    assert any("vibration" in item["item"] for item in out["not_checked"])
+
+
+def test_web_openings_are_flagged_not_checked(tmp_path, capsys):
+    holes = tmp_path / "holes.toml"
+    holes.write_text(Path(DEMO).read_text().replace('mark = "3B-101"', 'mark = "3B-101"\nweb_openings = true', 1))
+    assert main(["check", str(holes), "--beam", "3B-101", "--json"]) == 0
+    flags = json.loads(capsys.readouterr().out)["beams"][0]["flags"]
+    assert any(f["severity"] == "not-checked" and "Design Guide 2" in f["clause"] for f in flags)

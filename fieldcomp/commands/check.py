@@ -20,7 +20,7 @@ def run(args: argparse.Namespace) -> int:
     from engine.construction import evaluate_construction
     from engine.evaluate import evaluate_beam
     from fieldcomp.jobfile import JobFileError
-    from fieldcomp.report import beam_json, beam_text, caution_block
+    from fieldcomp.report import beam_json, beam_text, caution_block, not_checked_json, scope_block
     from fieldcomp.report_construction import construction_text, merge_into_check
 
     try:
@@ -32,7 +32,7 @@ def run(args: argparse.Namespace) -> int:
     failed = [r.beam.mark for r, c in zip(results, constructions) if "fail" in (r.verdict, c.verdict)]
     if args.json:
         records = [merge_into_check(beam_json(r), c, r.checks) for r, c in zip(results, constructions)]
-        out = {"job": job.project.name, "caution": CAUTION, "beams": records}
+        out = {"job": job.project.name, "caution": CAUTION, "not_checked": not_checked_json(), "beams": records}
         print(json.dumps(out, indent=2))
     else:
         print(f"fieldcomp {__version__} - job '{job.project.name}' ({args.job})")
@@ -44,5 +44,6 @@ def run(args: argparse.Namespace) -> int:
         print()
         print(f"{len(results)} beam(s): {len(results) - len(failed)} pass, {len(failed)} fail"
               + (f" ({', '.join(failed)})" if failed else ""))
+        print(scope_block())
         print(caution_block())
     return EXIT_FAIL if failed else EXIT_PASS
