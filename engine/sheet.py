@@ -109,6 +109,9 @@ def side_text(beam: BeamInput, side: str) -> str:
         return "in flute" if beam.deck_case == "parallel" else "on flange"
     if side == "center":
         return "centre of rib"
+    if beam.studs.position == "weak":  # strength assumes the weak side: either side works, the strong side is better
+        strong = beam.ribs.far_end if side == "reference" else beam.ribs.reference_end
+        return f"either; {clean(strong)} side better"
     return f"toward {clean(beam.ribs.reference_end if side == 'reference' else beam.ribs.far_end)}"
 
 

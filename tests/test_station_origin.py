@@ -16,7 +16,7 @@ DEMO = (Path(__file__).resolve().parents[1] / "jobs" / "harbor_row_level3.toml")
 
 def beam_with(origin: str, setback: str, finding: str = ""):
     text = DEMO.replace('method = "LRFD"', f'method = "LRFD"\nstation_origin = "{origin}"', 1)
-    text = text.replace('reference_end = "grid 2"', f'reference_end = "grid 2"\nend_setback = "{setback}"{finding}', 1)
+    text = text.replace('far_end = "grid 3"', f'far_end = "grid 3"\nend_setback = "{setback}"{finding}', 1)
     return next(b for b in to_engine(parse_job(text)) if b.mark == "3B-101")
 
 
