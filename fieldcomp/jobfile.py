@@ -72,9 +72,53 @@ def load_job(path: str | os.PathLike[str]) -> LoadedJob:
     return LoadedJob(p, parse_job(text, p), hashlib.sha256(data).hexdigest())
 
 
-def dump_job(job: Job) -> str:
-    """The job as TOML text (defaults left out, so hand-written files stay short)."""
-    return tomli_w.dumps(job.model_dump(mode="json", exclude_defaults=True, exclude_none=True))
+def _plain(job: Job) -> dict[str, Any]:
+    """The job as plain data: keys the file gave or an edit set, no None values."""
+    return job.model_dump(mode="json", exclude_unset=True, exclude_none=True)
+
+
+def dump_job(job: Job, previous: str | None = None) -> str:
+    """The job as TOML text. Given the file's previous text, edits are merged into it so the
+    engineer's comments and layout survive (tomlkit); the merge is kept only if it reads back as
+    the same job, otherwise a plain rendering is written."""
+    plain = tomli_w.dumps(_plain(job))
+    if previous is None:
+        return plain
+    try:
+        import tomlkit
+
+        doc = tomlkit.parse(previous)
+        _merge_into(doc, _plain(job))
+        merged = tomlkit.dumps(doc)
+        if parse_job(merged) == job:
+            return merged
+    except Exception:  # noqa: BLE001 - any failure of the comment-keeping path falls back to plain TOML
+        pass
+    return plain
+
+
+def _merge_into(node: Any, new: dict[str, Any]) -> None:
+    """Make tomlkit container `node` hold `new`, touching only what differs."""
+    for key in [k for k in node if k not in new]:
+        del node[key]
+    for key, value in new.items():
+        old = node.get(key)
+        if isinstance(value, dict) and hasattr(old, "items"):
+            _merge_into(old, value)
+        elif (isinstance(value, list) and isinstance(old, list) and value and old
+              and all(isinstance(v, dict) for v in value) and all(hasattr(o, "items") for o in old)):
+            for item_old, item_new in zip(old, value):
+                _merge_into(item_old, item_new)
+            while len(old) > len(value):
+                old.pop()
+            for item_new in value[len(old):]:
+                old.append(item_new)
+        elif _unwrap(old) != value:
+            node[key] = value
+
+
+def _unwrap(value: Any) -> Any:
+    return value.unwrap() if hasattr(value, "unwrap") else value
 
 
 def save_job(job: Job, path: str | os.PathLike[str], expected_digest: str | None = None) -> str:
@@ -82,7 +126,13 @@ def save_job(job: Job, path: str | os.PathLike[str], expected_digest: str | None
     kept as `<name>.bak`, then atomic replace. Returns the new digest. Raises ChangedOnDisk if
     `expected_digest` is given and the file on disk no longer has it."""
     p = Path(path)
-    data = dump_job(job).encode("utf-8")
+    previous = None
+    if p.exists():
+        try:
+            previous = p.read_text(encoding="utf-8")
+        except (OSError, UnicodeDecodeError):
+            previous = None
+    data = dump_job(job, previous).encode("utf-8")
     if expected_digest is not None and p.exists():
         if hashlib.sha256(p.read_bytes()).hexdigest() != expected_digest:
             raise ChangedOnDisk(f"{p} changed on disk since it was opened; not overwritten")

@@ -143,3 +143,34 @@ def test_committed_schema_matches_models():
     `fieldcomp schema > fieldcomp/schema/job.schema.json`)."""
     committed = json.loads((ROOT / "fieldcomp" / "schema" / "job.schema.json").read_text())
     assert committed == job_schema()
+
+
+def test_save_keeps_comments_and_layout_of_untouched_lines(tmp_path):
+    path = tmp_path / "demo.toml"
+    path.write_text(DEMO.read_text())
+    loaded = load_job(path)
+    beams = list(loaded.job.beam)
+    beams[0] = beams[0].model_copy(update={"span": "31'-0\""})
+    save_job(loaded.job.model_copy(update={"beam": beams}), path, expected_digest=loaded.digest)
+    text = path.read_text()
+    assert "# fieldcomp demo job: an invented building" in text  # file comment kept
+    assert "# typical infill beam, lab bay" in text  # table comment kept
+    assert "span = \"31'-0\\\"\"" in text
+    assert load_job(path).job.beam[0].span == "31'-0\""
+    old, new = DEMO.read_text().splitlines(), text.splitlines()
+    assert sum(a != b for a, b in zip(old, new)) == 1 and len(old) == len(new)  # one line changed
+
+
+def test_save_removes_a_deleted_beam_and_adds_a_finding(tmp_path):
+    path = tmp_path / "demo.toml"
+    path.write_text(DEMO.read_text())
+    job = load_job(path).job
+    from fieldcomp.jobmodel import FindingIn
+
+    last = job.beam[-1]
+    beams = list(job.beam[:-1])
+    beams[1] = beams[1].model_copy(update={"finding": [FindingIn(kind="missing", rib=3)]})
+    edited = job.model_copy(update={"beam": beams})
+    save_job(edited, path)
+    again = load_job(path).job
+    assert again == edited and last.mark not in path.read_text()
