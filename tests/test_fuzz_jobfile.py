@@ -13,7 +13,10 @@ import tomli_w
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
+from engine.construction import evaluate_construction
 from engine.evaluate import OutOfScope, check_scope, evaluate_beam
+from engine.findings import FindingError, evaluate_as_built
+from engine.layout import design_layout
 from fieldcomp.jobfile import JobFileError, parse_job
 from fieldcomp.to_engine import to_engine
 
@@ -87,15 +90,22 @@ def _drop_none(node):
 
 
 def load_and_evaluate(text: str) -> None:
-    """The CLI's path: parse, convert, refuse out-of-scope, evaluate."""
+    """The CLI's path: parse, convert, refuse out-of-scope, then every computation a report
+    makes (finished beam, construction stage, layout, findings); no NaN reaches a check."""
     job = parse_job(text, PATH)
     for beam in to_engine(job, PATH):
         try:
             check_scope(beam)
         except OutOfScope:
             continue
-        result = evaluate_beam(beam)
-        for c in result.checks:
+        checks = list(evaluate_beam(beam).checks) + list(evaluate_construction(beam).checks)
+        checks += list(design_layout(beam).checks)
+        if beam.findings:
+            try:
+                checks += list(evaluate_as_built(beam, design_layout(beam).layout).checks)
+            except FindingError:  # a finding that contradicts the layout: reported as input error
+                pass
+        for c in checks:
             assert not math.isnan(c.demand) and not math.isnan(c.capacity), c
 
 
