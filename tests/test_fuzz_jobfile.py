@@ -59,6 +59,8 @@ def mutated_jobs(draw):
             for part in path[:-1]:
                 parent = parent[part]
             key = path[-1]
+            if not isinstance(parent, (dict, list)):
+                continue  # an earlier mutation replaced this branch
             parent[key]  # still there?
         except (KeyError, IndexError, TypeError):
             continue
