@@ -19,17 +19,14 @@ from textual.app import App
 from textual.binding import Binding
 from textual.theme import Theme
 
+from fieldcomp.app_files import FileActions
 from fieldcomp.commands_palette import WorkbenchCommands
-from fieldcomp.jobfile import ChangedOnDisk, JobFileError
 from fieldcomp.jobmodel import Job
-from fieldcomp.messages import BeamSelected, EditRequested, RepairReady, ResultsReady, RowAdded, RowRemoved
+from fieldcomp.messages import BeamSelected, EditRequested, OutcomeFinished, ResultsReady, RowRemoved, RowsSet
 from fieldcomp.outcome import BeamOutcome, OutcomeCache
-from fieldcomp.screens.dialogs import AskPath, Choice
 from fieldcomp.screens.help import HelpScreen
 from fieldcomp.screens.workbench import WorkbenchScreen
-from fieldcomp.session import (
-    EditRejected, JobSession, default_state_dir, discard_recovery, read_recovery, write_recovery,
-)
+from fieldcomp.session import EditRejected, JobSession, default_state_dir
 
 THEMES = {
     "light": Theme(name="fieldcomp-light", dark=False, primary="#1D5A85", secondary="#56646F", accent="#A8561C",
@@ -45,13 +42,13 @@ DISK_POLL_SECONDS = 2.0
 # Actions offered only in the command palette (no key of their own).
 PALETTE_ONLY = (
     ("New job from the starter", "Start an untitled job from fieldcomp/starter.toml.", "new_job"),
-    ("Duplicate beam", "Copy the selected beam (new mark) after it.", "duplicate_beam"),
-    ("Remove beam", "Remove the selected beam (undo brings it back).", "remove_beam"),
+    ("Duplicate beam", "Copy the selected beam (new mark) after it (+ in the beam list).", "duplicate_beam"),
+    ("Remove beam", "Remove the selected beam, undo brings it back (- in the beam list).", "remove_beam"),
     ("Show keys panel", "Textual's key panel beside the workbench.", "show_help_panel"),
 )
 
 
-class FieldcompApp(App[None]):
+class FieldcompApp(FileActions, App[None]):
     CSS_PATH = "app.tcss"
     TITLE = "fieldcomp"
     COMMANDS = App.COMMANDS | {WorkbenchCommands}
@@ -99,13 +96,8 @@ class FieldcompApp(App[None]):
 
     @property
     def workbench(self) -> WorkbenchScreen:
-        return self.query_one_screen()
-
-    def query_one_screen(self) -> WorkbenchScreen:
-        for screen in self.screen_stack:
-            if isinstance(screen, WorkbenchScreen):
-                return screen
-        raise LookupError("no workbench screen")
+        """The workbench screen (at the bottom of the stack, under any dialog)."""
+        return next(s for s in self.screen_stack if isinstance(s, WorkbenchScreen))
 
     # -- edits and recompute ----------------------------------------------------------------------
     def on_edit_requested(self, message: EditRequested) -> None:
@@ -118,8 +110,8 @@ class FieldcompApp(App[None]):
         if changed:
             self.job_changed(started)
 
-    def on_row_added(self, message: RowAdded) -> None:
-        self._apply(lambda: self.session.append(message.path, message.items, message.description))
+    def on_rows_set(self, message: RowsSet) -> None:
+        self._apply(lambda: self.session.set_rows(message.path, message.rows, message.description))
 
     def on_row_removed(self, message: RowRemoved) -> None:
         self._apply(lambda: self.session.remove(message.path, message.index, message.description))
@@ -135,12 +127,11 @@ class FieldcompApp(App[None]):
             self.job_changed(started)
 
     def job_changed(self, started: float) -> None:
-        """The job changed (edit, undo, open): refill the panes' inputs, recompute, keep recovery."""
+        """The job changed (edit, undo, open): recompute in a worker; the panes' inputs are
+        refilled with its results, so the interpreter is the worker's meanwhile."""
         self.selected = max(0, min(self.selected, len(self.session.job.beam) - 1))
-        self.workbench.show_job(self.session, self.selected)
         self.update_title()
         self.recompute(self.session.job, self.session.version, started)
-        self.keep_recovery(self.session.job if self.session.dirty else None)
 
     @work(exclusive=True, thread=True, group="compute", description="recompute the job")
     def recompute(self, job: Job, version: int, started: float) -> None:
@@ -151,32 +142,42 @@ class FieldcompApp(App[None]):
         if message.version != self.session.version:
             return  # a later edit is on its way
         self.outcomes = list(message.outcomes)
+        self.workbench.show_job(self.session, self.selected)
         self.show_outcomes()
-        self.call_after_refresh(self._redrawn, self.redraw_ms, message.started)
-        pending = [k for k, o in enumerate(self.outcomes) if o.repair is None]
-        if pending:
+        self.call_after_refresh(self._redrawn, message.version, message.started)
+
+    def _redrawn(self, version: int, started: float) -> None:
+        """The panes are on screen: log the time, then start the second pass (sheets, repairs),
+        which would otherwise compete with the redraw for the interpreter."""
+        self.redraw_ms.append((time.perf_counter() - started) * 1000.0)
+        if version == self.session.version:
+            self.keep_recovery(self.session.job if self.session.dirty else None)
+        pending = [k for k, o in enumerate(self.outcomes) if not o.finished_all]
+        if pending and version == self.session.version:
             pending.sort(key=lambda k: k != self.selected)
-            self.find_repairs(message.version, [(k, self.outcomes[k]) for k in pending], message.started)
+            self.finish_outcomes(version, [(k, self.outcomes[k]) for k in pending], started)
 
-    def _redrawn(self, log: list[float], started: float) -> None:
-        log.append((time.perf_counter() - started) * 1000.0)
-
-    @work(exclusive=True, thread=True, group="repair", description="find repairs")
-    def find_repairs(self, version: int, todo: list[tuple[int, BeamOutcome]], started: float) -> None:
-        """Second pass: the repair search of every beam that fails as built, selected beam first."""
+    @work(exclusive=True, thread=True, group="finish", description="sheets and repairs")
+    def finish_outcomes(self, version: int, todo: list[tuple[int, BeamOutcome]], started: float) -> None:
+        """Second pass: marks sheets, and the repair of every beam that fails as built; the
+        selected beam first."""
         worker = get_current_worker()
         for index, outcome in todo:
             if worker.is_cancelled:
                 return
-            self.post_message(RepairReady(version, index, self.cache.repaired(outcome), started))
+            self.post_message(OutcomeFinished(version, index, self.cache.finished(outcome), started))
 
-    def on_repair_ready(self, message: RepairReady) -> None:
+    def on_outcome_finished(self, message: OutcomeFinished) -> None:
         if message.version != self.session.version or message.index >= len(self.outcomes):
             return
         self.outcomes[message.index] = message.outcome
         if message.index == self.selected:
             self.show_outcomes()
-            self.call_after_refresh(self._redrawn, self.repair_ms, message.started)
+            if message.outcome.needs_repair:
+                self.call_after_refresh(self._repair_shown, message.started)
+
+    def _repair_shown(self, started: float) -> None:
+        self.repair_ms.append((time.perf_counter() - started) * 1000.0)
 
     def show_outcomes(self) -> None:
         if len(self.outcomes) == len(self.session.job.beam):
@@ -229,147 +230,6 @@ class FieldcompApp(App[None]):
         mark = self.session.job.beam[self.selected].mark
         self._apply(lambda: self.session.remove(("beam",), self.selected, f"remove beam {mark}"))
 
-    # -- files ----------------------------------------------------------------------------------------
-    def action_save(self) -> None:
-        self.save_then(None)
-
-    def save_then(self, after: Callable[[], None] | None, path: Path | None = None, overwrite: bool = False) -> None:
-        """Save (to `path`, or the job's own file), then run `after`. Asks for a name when the
-        job is untitled, and asks before overwriting a file someone else changed."""
-        if path is None and self.session.path is None:
-            self.action_save_as(after)
-            return
-        old = self.session.path
-        try:
-            saved = self.session.save(path, overwrite=overwrite)
-        except ChangedOnDisk:
-            self.push_screen(Choice(
-                "Changed on disk", f"{self.session.where} was changed by someone else since it was opened. "
-                "Saving now would overwrite their edit.",
-                [("cancel", "Cancel", "default"), ("save_as", "Save as...", "primary"),
-                 ("overwrite", "Overwrite", "error"), ("reopen", "Reopen theirs", "warning")],
-                id="changed-on-disk"), lambda answer: self._changed_answer(answer, after))
-            return
-        except OSError as exc:
-            self.notify(f"Not saved: {exc}", severity="error")
-            return
-        if old is not None and old != saved:
-            discard_recovery(self.state_dir, old)
-        discard_recovery(self.state_dir, saved)
-        self._disk_warned = False
-        self.update_title()
-        self.notify(f"Saved {saved}")
-        if after is not None:
-            after()
-
-    def _changed_answer(self, answer: str | None, after: Callable[[], None] | None) -> None:
-        if answer == "overwrite":
-            self.save_then(after, overwrite=True)
-        elif answer == "save_as":
-            self.action_save_as(after)
-        elif answer == "reopen":
-            self.action_reopen()
-
-    def action_save_as(self, after: Callable[[], None] | None = None) -> None:
-        initial = str(self.session.path) if self.session.path else str(Path.cwd() / "untitled.toml")
-
-        def chosen(path: Path | None) -> None:
-            if path is None:
-                return
-            same = self.session.path is not None and path.resolve() == self.session.path.resolve()
-            if path.exists() and not same:
-                self.push_screen(Choice("Replace file?", f"{path} exists. Replace it (kept as .bak)?",
-                                        [("cancel", "Cancel", "default"), ("replace", "Replace", "error")]),
-                                 lambda answer: answer == "replace" and self.save_then(after, path, overwrite=True))
-                return
-            self.save_then(after, path)
-        self.push_screen(AskPath("Save job as", initial, "A .toml file; Enter saves, Escape cancels."), chosen)
-
-    def action_reopen(self) -> None:
-        if self.session.path is None:
-            self.notify("An untitled job has no file to reopen.", severity="warning")
-            return
-        try:
-            self.session.reload()
-        except JobFileError as exc:
-            self.notify(str(exc), title="Cannot reopen", severity="error", timeout=10)
-            return
-        self._disk_warned = False
-        self.notify(f"Reopened {self.session.path.name}; ctrl+z brings back the edits it replaced.")
-        self.job_changed(time.perf_counter())
-
-    def action_open_job(self) -> None:
-        def chosen(path: Path | None) -> None:
-            if path is not None:
-                self.guard_unsaved(lambda: self.switch_session(lambda: JobSession.open(path)), "open another job")
-        self.push_screen(AskPath("Open job", str(self.session.path or Path.cwd()), "Path of a .toml job file."), chosen)
-
-    def action_new_job(self) -> None:
-        self.guard_unsaved(lambda: self.switch_session(JobSession.untitled), "start a new job")
-
-    def switch_session(self, make: Callable[[], JobSession]) -> None:
-        try:
-            session = make()
-        except JobFileError as exc:
-            self.notify(str(exc), title="Cannot open", severity="error", timeout=10)
-            return
-        discard_recovery(self.state_dir, self.session.path)
-        self.session, self.selected, self.outcomes, self._disk_warned = session, 0, [], False
-        self.job_changed(time.perf_counter())
-        self.offer_recovery()
-
-    def guard_unsaved(self, then: Callable[[], None], doing: str) -> None:
-        """Run `then` now, or after asking what to do with unsaved edits."""
-        if not self.session.dirty:
-            then()
-            return
-
-        def answer(choice: str | None) -> None:
-            if choice == "save":
-                self.save_then(then)
-            elif choice == "discard":
-                discard_recovery(self.state_dir, self.session.path)
-                then()
-        self.push_screen(Choice("Unsaved edits", f"{self.session.name} has unsaved edits. Save them before you {doing}?",
-                                [("save", "Save", "primary"), ("discard", "Discard", "error"),
-                                 ("cancel", "Cancel", "default")], id="unsaved"), answer)
-
-    async def action_quit(self) -> None:
-        self.guard_unsaved(self.exit, "quit")
-
-    # -- recovery and the file on disk --------------------------------------------------------------
-    @work(exclusive=True, thread=True, group="recovery", description="keep the recovery file")
-    def keep_recovery(self, job) -> None:
-        """Write the unsaved job to its recovery file (or remove it once nothing is unsaved)."""
-        if job is None:
-            discard_recovery(self.state_dir, self.session.path)
-        else:
-            write_recovery(self.state_dir, self.session.path, job)
-
-    def offer_recovery(self) -> None:
-        job = read_recovery(self.state_dir, self.session.path)
-        if job is None or job == self.session.job:
-            return
-
-        def answer(choice: str | None) -> None:
-            if choice == "restore":
-                self.session.replace_job(job, "restore unsaved edits")
-                self.job_changed(time.perf_counter())
-                self.notify("Unsaved edits restored; save to keep them.")
-            elif choice == "discard":
-                discard_recovery(self.state_dir, self.session.path)
-        self.push_screen(Choice("Unsaved edits found",
-                                f"fieldcomp stopped before {self.session.name} was saved. Restore the unsaved edits?",
-                                [("restore", "Restore", "primary"), ("discard", "Discard them", "error"),
-                                 ("cancel", "Later", "default")], id="recovery"), answer)
-
-    def watch_disk(self) -> None:
-        if self._disk_warned or not self.session.changed_on_disk():
-            return
-        self._disk_warned = True
-        self.notify(f"{self.session.where} changed on disk. F5 reopens it; saving asks before overwriting.",
-                    title="Changed on disk", severity="warning", timeout=12)
-
     # -- views ----------------------------------------------------------------------------------------
     def action_toggle_theme(self) -> None:
         self.theme = THEMES["light" if self.theme == THEMES["dark"].name else "dark"].name
@@ -381,9 +241,21 @@ class FieldcompApp(App[None]):
                            tooltip="Search every action and beam by name."))
         return out
 
+    def local_bindings(self) -> list[tuple[str, list[Binding]]]:
+        """Keys that work where the focus is: (where, bindings)."""
+        from fieldcomp.widgets.beam_list import BeamList
+        from fieldcomp.widgets.pane_findings import FindingsPane
+        from fieldcomp.widgets.pane_pour import PourPane
+        from fieldcomp.widgets.pane_sheet import SheetPane
+
+        return [("beam list", list(Binding.make_bindings(BeamList.BINDINGS))),
+                ("Pour pane", list(Binding.make_bindings(PourPane.BINDINGS))),
+                ("Findings pane", list(Binding.make_bindings(FindingsPane.BINDINGS))),
+                ("Sheet pane", list(Binding.make_bindings(SheetPane.BINDINGS)))]
+
     def action_help(self) -> None:
         if not isinstance(self.screen, HelpScreen):
-            self.push_screen(HelpScreen(self.all_bindings()))
+            self.push_screen(HelpScreen(self.all_bindings(), self.local_bindings()))
 
     def palette_actions(self) -> Iterator[tuple[str, str, Callable[[], object]]]:
         """(name, help, callback) of every action for the command palette."""

@@ -18,13 +18,13 @@ class EditRequested(Message):
         self.text = text
 
 
-class RowAdded(Message):
-    """Append `items` to the table at `path` (pour stages, findings) as one edit."""
+class RowsSet(Message):
+    """Replace the rows of the table at `path` (pour stages, findings) as one edit."""
 
-    def __init__(self, path: Path_, items: list[dict[str, Any]], description: str) -> None:
+    def __init__(self, path: Path_, rows: list[dict[str, Any]], description: str) -> None:
         super().__init__()
         self.path = path
-        self.items = items
+        self.rows = rows
         self.description = description
 
 
@@ -48,8 +48,8 @@ class ResultsReady(Message):
         self.started = started
 
 
-class RepairReady(Message):
-    """The second pass found the repair of beam `index` of job `version`."""
+class OutcomeFinished(Message):
+    """The second pass (marks sheets, repair) finished beam `index` of job `version`."""
 
     def __init__(self, version: int, index: int, outcome: Any, started: float) -> None:
         super().__init__()

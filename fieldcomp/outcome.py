@@ -3,8 +3,8 @@
 No engineering here: each part is one engine entry point called with the beam's inputs. A part
 that raises (bad input, out of scope, an unstable ponding case, a finding that contradicts the
 layout) carries its message instead. Results are cached by the (frozen, hashable) engine input,
-so an edit recomputes only the beams it changed. The repair search, the slowest part, runs in a
-second pass after every pane has been drawn.
+so an edit recomputes only the beams it changed. The repair search (the slowest part) and the
+marks sheets run in a second pass, after the panes have been drawn (`finish`).
 """
 
 from __future__ import annotations
@@ -40,10 +40,12 @@ class BeamOutcome:
     finished: Part  # engine.evaluate.BeamResult
     construction: Part  # engine.construction.ConstructionResult
     layout: Part  # engine.layout.LayoutResult
+    deck_anchors: Any  # engine.layout.deck_anchor_slots of the layout (bool per slot), or None
     as_built: Part  # engine.findings.AsBuiltResult (beams with findings)
-    sheet: Part  # engine.sheet.SheetData of the marks as designed
-    repair: Part | None = None  # engine.repair.Repair; None until the second pass has run
-    repair_sheet: Part = NONE  # engine.sheet.SheetData of the repair marks
+    finding_slots: tuple[int, ...]  # slot index of each finding (engine.findings.finding_slot)
+    sheet: Part | None = None  # engine.sheet.SheetData of the marks as designed (second pass)
+    repair: Part | None = None  # engine.repair.Repair (second pass; NONE when not needed)
+    repair_sheet: Part = NONE  # engine.sheet.SheetData of the repair marks (second pass)
     key: tuple[str, str] = ("", "")  # (job name, sheet date) the sheets were made with
 
     @property
@@ -67,6 +69,11 @@ class BeamOutcome:
         return governing_check(checks).ratio if checks else None
 
     @property
+    def finished_all(self) -> bool:
+        """True once the second pass (sheets, repair) has run."""
+        return self.sheet is not None and self.repair is not None
+
+    @property
     def needs_repair(self) -> bool:
         return self.as_built.value is not None and self.as_built.value.verdict == "fail"
 
@@ -81,37 +88,40 @@ def _part(fn: Callable[[], Any]) -> Part:
 
 
 def compute_outcome(beam: BeamInput, job_name: str = "", date: str = "") -> BeamOutcome:
-    """Every part for one beam; the marks sheet as `fieldcomp marks` builds it."""
+    """The first pass for one beam: finished beam, construction stage, layout, as built."""
     from engine.construction import evaluate_construction
-    from engine.findings import evaluate_as_built
-    from engine.layout import design_layout
-    from fieldcomp.commands.marks import sheet_for
+    from engine.findings import evaluate_as_built, finding_slot
+    from engine.layout import deck_anchor_slots, design_layout
 
     finished = _part(lambda: evaluate_beam(beam))
     construction = _part(lambda: evaluate_construction(beam))
     layout = _part(lambda: design_layout(beam))
-    as_built = NONE
+    anchors = deck_anchor_slots(beam, layout.value.layout) if layout.value is not None else None
+    as_built, slots = NONE, ()
     if beam.findings and layout.value is not None:
         as_built = _part(lambda: evaluate_as_built(beam, layout.value.layout))
-    sheet = _part(lambda: sheet_for(job_name, beam, date)[0])
-    return BeamOutcome(beam, finished, construction, layout, as_built, sheet,
-                       None if as_built.value is not None else NONE, key=(job_name, date))
+        if as_built.value is not None:
+            slots = tuple(finding_slot(layout.value.layout, f, i) for i, f in enumerate(beam.findings))
+    return BeamOutcome(beam, finished, construction, layout, anchors, as_built, slots, key=(job_name, date))
 
 
-def with_repair(outcome: BeamOutcome) -> BeamOutcome:
-    """The outcome with its repair found (the slow part: many trial evaluations)."""
+def finish(outcome: BeamOutcome) -> BeamOutcome:
+    """The second pass: the marks sheet as `fieldcomp marks` builds it and, for a beam that
+    fails as built, the repair (many trial evaluations) and its marks sheet."""
     from engine.repair import find_repair
     from fieldcomp.commands.findings import repair_sheet
+    from fieldcomp.commands.marks import sheet_for
 
-    if outcome.repair is not None:
+    if outcome.finished_all:
         return outcome
+    sheet = _part(lambda: sheet_for(outcome.key[0], outcome.beam, outcome.key[1])[0])
     if not outcome.needs_repair:
-        return replace(outcome, repair=NONE)
+        return replace(outcome, sheet=sheet, repair=NONE)
     repair = _part(lambda: find_repair(outcome.as_built.value))
-    sheet = NONE
+    fixed = NONE
     if repair.value is not None:
-        sheet = _part(lambda: repair_sheet(*outcome.key, outcome.as_built.value, repair.value))
-    return replace(outcome, repair=repair, repair_sheet=sheet)
+        fixed = _part(lambda: repair_sheet(*outcome.key, outcome.as_built.value, repair.value))
+    return replace(outcome, sheet=sheet, repair=repair, repair_sheet=fixed)
 
 
 class OutcomeCache:
@@ -142,10 +152,10 @@ class OutcomeCache:
         """Outcomes of every beam of a (validated) job, in job order; sheets dated `date`."""
         return [self.get(b, job.project.name, date) for b in to_engine(job)]
 
-    def repaired(self, outcome: BeamOutcome) -> BeamOutcome:
-        """`outcome` with its repair, cached."""
+    def finished(self, outcome: BeamOutcome) -> BeamOutcome:
+        """`outcome` after the second pass, cached."""
         done = self.get(outcome.beam, *outcome.key)
-        if done.repair is None:
-            done = with_repair(done)
+        if not done.finished_all:
+            done = finish(done)
             self.put(done)
         return done

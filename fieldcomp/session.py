@@ -148,11 +148,10 @@ class JobSession:
             return exc.problems
         return []
 
-    def append(self, path: Path_, items: list[dict[str, Any]], description: str) -> bool:
-        """Append table rows (pour stages, findings) at `path` as one edit."""
+    def set_rows(self, path: Path_, rows: list[dict[str, Any]], description: str) -> bool:
+        """Replace the rows of a table (pour stages, findings) at `path` as one edit."""
         def change(raw: dict[str, Any]) -> None:
-            parent = _node(raw, path[:-1])
-            parent.setdefault(path[-1], []).extend(items)
+            _node(raw, path[:-1])[path[-1]] = rows
         return self.apply(change, description)
 
     def remove(self, path: Path_, index: int, description: str) -> bool:

@@ -292,3 +292,47 @@ def test_new_untitled_job_from_the_starter(tmp_path):
             assert load_job(tmp_path / "new.toml").job == app.session.job
             assert app.session.path == tmp_path / "new.toml" and not app.session.dirty
     run(flow())
+
+
+def test_write_the_marks_sheet_and_import_an_inspection_log(tmp_path):
+    async def flow():
+        from engine.sheet import marks_csv, marks_svg
+        from fieldcomp.commands.marks import sheet_for
+
+        app = make_app(demo_copy(tmp_path), tmp_path)
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            app.workbench.action_pane("sheet")
+            await settle(pilot, app)
+            app.workbench.query_one("#sheet-svg", Input).value = str(tmp_path / "b1.svg")
+            app.workbench.query_one("#sheet-csv", Input).value = str(tmp_path / "b1.csv")
+            app.workbench.query_one("#sheet-folder", Input).value = str(tmp_path / "all")
+            await pilot.press("f6", "f7", "f8")
+            await settle(pilot, app)
+            expected = sheet_for(app.session.job.project.name, app.outcomes[0].beam, app.date)[0]
+            assert (tmp_path / "b1.svg").read_text() == marks_svg(expected)  # as `fieldcomp marks` writes it
+            assert (tmp_path / "b1.csv").read_text() == marks_csv(expected)
+            assert len(list((tmp_path / "all").glob("*.svg"))) == len(app.session.job.beam)
+            log = tmp_path / "log.csv"
+            log.write_text("kind,rib,note\nmissing,5,no stud\nweak-side,7,\n")
+            app.select_beam(1)
+            app.workbench.action_pane("findings")
+            await settle(pilot, app)
+            before = len(app.session.job.beam[1].finding)
+            app.workbench.query_one("#findings-rows").import_csv(log)
+            await settle(pilot, app)
+            assert len(app.session.job.beam[1].finding) == before + 2
+            await pilot.press("ctrl+z")
+            await settle(pilot, app)
+            assert len(app.session.job.beam[1].finding) == before  # the import is one edit
+    run(flow())
+
+
+def test_open_verb_refuses_a_bad_job_before_starting_the_app(tmp_path, capsys):
+    from fieldcomp.cli import main
+
+    bad = tmp_path / "bad.toml"
+    bad.write_text(DEMO.read_text().replace("span = \"30'-0\\\"\"", "span = \"30\"", 1))
+    assert main(["open", str(bad)]) == 2
+    err = capsys.readouterr().err
+    assert "beam '3B-101' #1, field 'span'" in err and "needs a unit" in err

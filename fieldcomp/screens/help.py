@@ -31,9 +31,9 @@ class HelpScreen(ModalScreen[None]):
     CSS_PATH = "help.tcss"
     BINDINGS = [Binding("escape,f1,q", "dismiss", "Close", id="help.close", tooltip="Close the help screen.")]
 
-    def __init__(self, bindings: list[Binding]) -> None:
+    def __init__(self, bindings: list[Binding], local: list[tuple[str, list[Binding]]]) -> None:
         super().__init__()
-        self.bindings = bindings
+        self.bindings, self.local = bindings, local
 
     def compose(self) -> ComposeResult:
         keys = Table(box=None, padding=(0, 2), show_header=True, header_style="bold")
@@ -42,6 +42,11 @@ class HelpScreen(ModalScreen[None]):
         keys.add_column("")
         for b in self.bindings:
             keys.add_row(Text(self.app.get_key_display(b), style="bold"), b.description, Text(b.tooltip, style="dim"))
+        for where, bindings in self.local:
+            keys.add_row("", Text(f"in the {where}:", style="italic"), "")
+            for b in bindings:
+                keys.add_row(Text(self.app.get_key_display(b), style="bold"), b.description,
+                             Text(b.tooltip, style="dim"))
         panes = Table(box=None, padding=(0, 2), show_header=False)
         for k, (name, what) in enumerate(PANES, start=1):
             panes.add_row(Text(f"{k}  {name}", style="bold"), what)

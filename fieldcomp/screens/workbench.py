@@ -65,18 +65,21 @@ class WorkbenchScreen(Screen[None]):
         when they are shown (hidden panes cost nothing until then)."""
         self._job = (session, index)
         self._stale_job = {p.id for p in self.query(Pane)}
-        self.call_next(self._show_active)
+        self._show_active()
 
     def show_outcomes(self, marks: list[str], outcomes: list[BeamOutcome], index: int) -> None:
         verdicts = [(o.verdict, o.governing_ratio) for o in outcomes]
         self.query_one(BeamList).show(marks, verdicts, index)
         self._outcome = (outcomes[index] if 0 <= index < len(outcomes) else None, outcomes)
         self._stale_outcome = {p.id for p in self.query(Pane)}
-        self.call_next(self._show_active)
+        self._show_active()
 
-    async def _show_active(self) -> None:
+    def _show_active(self) -> None:
+        """Bring the visible pane up to date: now if it is built, else once it is."""
         pane = self.active_pane()
-        await pane.ensure_built()
+        if not pane.built:
+            self.call_next(self._build_and_show, pane)
+            return
         if pane.id in self._stale_job and self._job is not None:
             self._stale_job.discard(pane.id)
             pane.show_job(*self._job)
@@ -84,11 +87,18 @@ class WorkbenchScreen(Screen[None]):
             self._stale_outcome.discard(pane.id)
             pane.show_outcome(*self._outcome)
 
-    async def on_tabbed_content_tab_activated(self, event: TabbedContent.TabActivated) -> None:
-        await self._show_active()
+    async def _build_and_show(self, pane: Pane) -> None:
+        await pane.ensure_built()
+        self._show_active()
+
+    def on_tabbed_content_tab_activated(self, event: TabbedContent.TabActivated) -> None:
+        self._show_active()
 
     def action_pane(self, key: str) -> None:
+        """Show a pane and move the focus into it (a focused field left in a hidden pane would
+        bring its pane back)."""
         self.query_one(TabbedContent).active = f"tab-{key}"
+        self.query_one(f"#pane-{key}", Pane).focus()
 
     def action_step_beam(self, step: int) -> None:
         self.app.select_beam(self.app.selected + step)  # type: ignore[attr-defined]

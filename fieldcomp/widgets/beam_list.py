@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from rich.text import Text
+from textual.binding import Binding
 from textual.widgets import OptionList
 from textual.widgets.option_list import Option
 
@@ -11,6 +12,13 @@ from fieldcomp.messages import BeamSelected
 
 class BeamList(OptionList):
     """Marks with verdicts; moving the highlight selects the beam for the panes."""
+
+    BINDINGS = [
+        Binding("plus", "app.duplicate_beam", "Copy beam", id="beams.duplicate",
+                tooltip="Copy the selected beam (new mark) after it."),
+        Binding("minus", "app.remove_beam", "Remove beam", id="beams.remove",
+                tooltip="Remove the selected beam (undo brings it back)."),
+    ]
 
     DEFAULT_CSS = """
     BeamList { width: 26; height: 1fr; border: round $primary 40%; border-title-color: $foreground; }

@@ -23,6 +23,4 @@ class ChecksTable(Table):
         super().__init__("", "ratio", "check", "demand", "capacity", "source", id=id)
 
     def show(self, checks: tuple[Check, ...] | list[Check]) -> None:
-        self.clear()
-        for c in sorted(checks, key=lambda c: -c.ratio):
-            self.add_row(*check_row(c))
+        self.set_rows([check_row(c) for c in sorted(checks, key=lambda c: -c.ratio)])

@@ -66,6 +66,7 @@ class FieldForm(Vertical):
     FieldForm Input:focus { background: $primary 25%; }
     FieldForm Input.-invalid { background: $error 35%; }
     FieldForm Select { width: 1fr; }
+    FieldForm SelectCurrent #label { text-wrap: nowrap; text-overflow: ellipsis; }
     FieldForm > .form--problem { color: $error; height: auto; padding: 0 1; }
     """
 

@@ -18,6 +18,8 @@ def value(v: float, unit: str) -> str:
         return signed_inches(v)
     if unit == "ratio":
         return f"{v:.0%}"
+    if unit == "studs":
+        return f"{v:,.0f} studs"
     return f"{v:,.1f} {unit}"
 
 

@@ -56,12 +56,12 @@ class CamberPane(Pane):
     def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
         self._schedule(outcomes)
         envelope = self.query_one("#camber-envelope", Table)
-        envelope.clear()
         con = outcome.construction.value if outcome else None
         head = self.query_one("#camber-head", Static)
         if outcome is None or con is None:
             head.update(Text(outcome.construction.error if outcome else "no beam", style="bold red"))
             self.query_one(TerminalPlot).clear("not computed")
+            envelope.set_rows([])
             self.query_one(ChecksTable).show([])
             return
         b, d = con.beam, con.camber
@@ -72,11 +72,10 @@ class CamberPane(Pane):
         self.query_one("#camber-reason", Static).update(
             f"{d.reason}.  Predicted pre-composite dead-load deflection at midspan {signed_inches(d.predicted)} "
             f"(constant thickness would give {signed_inches(con.at_midspan(con.no_ponding))}).")
-        for o in con.outcomes:
-            envelope.add_row(o.case, format_inches(o.camber), signed_inches(o.deflection), signed_inches(o.top_of_slab),
-                             signed_inches(o.thickness),
-                             Text(signed_inches(o.stud_cover), style="bold red" if o.warnings else ""),
-                             f"{o.extra_concrete / IN3_PER_FT3:.1f} ft3")
+        envelope.set_rows([(o.case, format_inches(o.camber), signed_inches(o.deflection), signed_inches(o.top_of_slab),
+                            signed_inches(o.thickness),
+                            Text(signed_inches(o.stud_cover), style="bold red" if o.warnings else ""),
+                            f"{o.extra_concrete / IN3_PER_FT3:.1f} ft3") for o in con.outcomes])
         self.query_one("#camber-warnings", Static).update(
             "\n".join(f"{o.case}: {w}" for o in con.outcomes for w in o.warnings))
         self._profile(con)
@@ -98,13 +97,15 @@ class CamberPane(Pane):
 
     def _schedule(self, outcomes: list[BeamOutcome]) -> None:
         table = self.query_one("#camber-schedule", Table)
-        table.clear()
+        rows = []
         for o in outcomes:
             con = o.construction.value
             if con is None:
-                table.add_row(o.beam.mark, o.beam.shape.name, "", "", Text("error", style="red"), o.construction.error or "")
+                rows.append((o.beam.mark, o.beam.shape.name, "", "", Text("error", style="red"),
+                             o.construction.error or "", ""))
                 continue
             d = con.camber
             word = Text(con.verdict, style="green" if con.verdict == "pass" else "bold red")
-            table.add_row(o.beam.mark, o.beam.shape.name, station(o.beam.span),
-                          signed_inches(d.predicted), Text(camber_word(o), style="bold"), d.reason, word)
+            rows.append((o.beam.mark, o.beam.shape.name, station(o.beam.span),
+                          signed_inches(d.predicted), Text(camber_word(o), style="bold"), d.reason, word))
+        table.set_rows(rows)

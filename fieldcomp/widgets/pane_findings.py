@@ -8,6 +8,7 @@ from typing import Any
 import numpy as np
 from rich.text import Text
 from textual.app import ComposeResult
+from textual.binding import Binding
 from textual.widgets import Button, Static
 
 from fieldcomp.outcome import BeamOutcome
@@ -15,7 +16,7 @@ from fieldcomp.session import JobSession
 from fieldcomp.widgets.checks_table import ChecksTable
 from fieldcomp.widgets.field_form import FieldSpec
 from fieldcomp.widgets.fmt import station
-from fieldcomp.widgets.pane_base import Pane
+from fieldcomp.widgets.pane_base import ROW_KEYS, Pane
 from fieldcomp.widgets.plot import Series, TerminalPlot
 from fieldcomp.widgets.row_editor import RowEditor
 from fieldcomp.widgets.strip import StripMark, StudStrip, legend
@@ -32,15 +33,13 @@ FINDING_FIELDS = (
 )
 
 
-def new_finding(rows: list[Any]) -> dict[str, Any]:
-    return {"kind": "missing", "rib": 1, "count": 1}
+def with_new_finding(rows: list[dict[str, Any]], beam: Any) -> list[dict[str, Any]]:
+    return rows + [{"kind": "missing", "rib": 1, "count": 1}]
 
 
-def as_built_marks(ab, repair) -> list[StripMark]:
-    """Strip marks of the studs as built: working, weak-side, added, each loss by its kind,
-    and the studs the repair adds."""
-    from engine.findings import finding_slot
-
+def as_built_marks(ab, slots: tuple[int, ...], repair) -> list[StripMark]:
+    """Strip marks of the studs as built: working, weak-side, added, each loss by its kind (at
+    the slot the engine found for it), and the studs the repair adds."""
     st, x = ab.state, ab.designed.x
     marks = []
     for k in range(x.size):
@@ -48,9 +47,9 @@ def as_built_marks(ab, repair) -> list[StripMark]:
         for kind, n in (("stud", working), ("weak-side", int(st.weak[k])), ("added", int(st.added[k]))):
             if n > 0:
                 marks.append(StripMark(float(x[k]), n, kind))
-    for i, f in enumerate(ab.beam.findings):
+    for f, k in zip(ab.beam.findings, slots):
         if f.kind not in ("added", "weak-side"):
-            marks.append(StripMark(float(x[finding_slot(ab.designed, f, i)]), f.count, f.kind))
+            marks.append(StripMark(float(x[k]), f.count, f.kind))
     if repair is not None:
         marks += [StripMark(float(x[k]), int(n), "repair") for k, n in enumerate(repair.added) if n > 0]
     return marks
@@ -89,9 +88,15 @@ class FindingsEditor(RowEditor):
 
 
 class FindingsPane(Pane):
+    BINDINGS = [*ROW_KEYS, Binding("f8", "import_csv", "Import CSV", id="findings.import",
+                                   tooltip="Add findings from an inspection log (CSV).")]
+
+    def action_import_csv(self) -> None:
+        self.query_one(FindingsEditor).ask_import()
+
     def build(self) -> ComposeResult:
         yield Static("", classes="pane--head", id="findings-head")
-        yield FindingsEditor("finding", "finding", FINDING_FIELDS, new_finding, id="findings-rows",
+        yield FindingsEditor("finding", "finding", FINDING_FIELDS, with_new_finding, id="findings-rows",
                              empty="No findings for this beam. Add them one by one or import an inspection log (CSV).")
         yield Static("", id="findings-verdict")
         yield StudStrip(id="findings-strip")
@@ -123,11 +128,11 @@ class FindingsPane(Pane):
         b, r, gov = ab.beam, ab.result, ab.governing
         low, at = ab.min_strength_ratio
         word = Text(" PASS ", style="bold reverse green") if ab.verdict == "pass" else Text(" FAIL ", style="bold reverse red")
-        verdict.update(Text.assemble("As built: ", word, f"   governing: {gov.name}, ratio {gov.ratio:.2f};  "
+        verdict.update(Text.assemble("As built: ", word, f"  governing: {gov.name}, ratio {gov.ratio:.2f};  "
                                      f"least capacity / demand {low:.2f} at {station(at)};  "
                                      f"{ab.layout.total} working studs of {ab.designed.total} designed"))
         repair = outcome.repair.value if outcome.repair is not None else None
-        strip.draw(b.span, ab.designed.x, as_built_marks(ab, repair), ends=(b.ribs.reference_end, b.ribs.far_end),
+        strip.draw(b.span, ab.designed.x, as_built_marks(ab, outcome.finding_slots, repair), ends=(b.ribs.reference_end, b.ribs.far_end),
                    keep_out=(b.ribs.keep_out_start, b.ribs.keep_out_end))
         kinds = {"stud"} | {f.kind for f in b.findings} | ({"repair"} if repair is not None and repair.total else set())
         self.query_one("#findings-legend", Static).update(legend(kinds))
@@ -135,9 +140,9 @@ class FindingsPane(Pane):
         series = [Series("demand", r.x, r.demand / 12.0, hatch=True, over=r.demand > r.capacity, tone=4)]
         if designed is not None:
             series.append(Series("as designed", designed.x, designed.capacity / 12.0, tone=5))
-        series.append(Series("as built", r.x, r.capacity / 12.0, tone=3 if ab.verdict == "fail" else 0))
         if repair is not None and repair.total:
             series.append(Series("repaired", repair.after.result.x, repair.after.result.capacity / 12.0, tone=2))
+        series.append(Series("as built", r.x, r.capacity / 12.0, tone=3 if ab.verdict == "fail" else 0))
         plot.plot(series, b.span, fmt=lambda v: f"{v:,.0f} k-ft")
         repair_text.update(self._repair_text(outcome, ab, repair))
         self.query_one(ChecksTable).show(ab.checks)
@@ -145,6 +150,8 @@ class FindingsPane(Pane):
 
     @staticmethod
     def _repair_text(outcome: BeamOutcome, ab, repair) -> Text:
+        from engine.ribs import printed_station
+
         if ab.verdict == "pass":
             return Text("No repair needed: every check passes as built.", style="green")
         if outcome.repair is None:
@@ -159,7 +166,8 @@ class FindingsPane(Pane):
             out.append(f"Proposed repair: add {repair.total} stud(s), {proof}"
                        f"{'' if repair.restores else ' - does NOT restore every check'}\n", style="bold")
             for k in np.flatnonzero(repair.added):
-                out.append(f"  rib {k + 1} at {station(float(ab.designed.x[k]))} from {b.ribs.reference_end}: "
+                at = station(float(printed_station(b, float(ab.designed.x[k]))))
+                out.append(f"  rib {k + 1} at {at} from {b.ribs.reference_end}: "
                            f"add {int(repair.added[k])}\n")
             after = repair.after
             out.append(f"  after repair: {after.verdict.upper()}, governing {after.governing.name} "

@@ -12,7 +12,7 @@ from fieldcomp.outcome import BeamOutcome
 from fieldcomp.session import JobSession
 from fieldcomp.widgets.field_form import FieldSpec
 from fieldcomp.widgets.fmt import signed_inches, station
-from fieldcomp.widgets.pane_base import Pane
+from fieldcomp.widgets.pane_base import ROW_KEYS, Pane
 from fieldcomp.widgets.plot import Series, TerminalPlot
 from fieldcomp.widgets.row_editor import RowEditor
 from fieldcomp.widgets.table import Table
@@ -29,15 +29,30 @@ STAGE_FIELDS = (
 )
 
 
-def new_stage(rows: list[Any]) -> dict[str, Any]:
-    day = max((r.day for r in rows), default=-1.0) + 1.0
-    return {"name": f"stage {len(rows) + 1}", "start": "0 in", "day": day}
+def with_new_stage(rows: list[dict[str, Any]], beam: Any) -> list[dict[str, Any]]:
+    """A new stage a day after the last: the far half of the last stage's length (the whole
+    span when there is none), so the plan stays one the engine accepts."""
+    from engine.units import format_ft_in, parse_length
+
+    if not rows:
+        return [{"name": "stage 1", "start": "0 in", "day": 0}]
+    last = dict(rows[-1])
+    start = parse_length(last.get("start", "0 in"))
+    end = parse_length(last["end"]) if "end" in last else parse_length(beam.span)
+    mid = format_ft_in((start + end) / 2.0)
+    new = {"name": f"stage {len(rows) + 1}", "start": mid, "day": last.get("day", 0) + 1, "side": last.get("side", "both")}
+    if "end" in last:
+        new["end"] = last["end"]
+    last["end"] = mid
+    return rows[:-1] + [last, new]
 
 
 class PourPane(Pane):
+    BINDINGS = ROW_KEYS
+
     def build(self) -> ComposeResult:
         yield Static("", classes="pane--head", id="pour-head")
-        yield RowEditor("pour", "stage", STAGE_FIELDS, new_stage, id="pour-stages",
+        yield RowEditor("pour", "stage", STAGE_FIELDS, with_new_stage, id="pour-stages",
                         empty="No stages: the whole slab is placed at once (one stage). Add a stage to plan the pour.")
         yield Static("Steps in time order (bare steel; 'cured': earlier concrete acting at its age)",
                      classes="pane--section")
@@ -56,22 +71,24 @@ class PourPane(Pane):
 
     def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
         table = self.query_one("#pour-steps", Table)
-        table.clear()
         con = outcome.construction.value if outcome else None
         notes = self.query_one("#pour-notes", Static)
         if outcome is None or con is None:
             for plot in self.query(TerminalPlot):
                 plot.clear("not computed")
             notes.update(Text(outcome.construction.error if outcome else "", style="bold red"))
+            table.set_rows([])
             return
         b = con.beam
+        rows = []
         for st in con.stages:
             where = "steel, deck" if st.kind == "erection" else f"{station(st.start)}-{station(st.end)} {st.side}"
             ratio = st.demand / st.capacity if st.capacity > 0 else float("inf")
-            table.add_row(st.name, f"{st.day:g}", where, st.screed if st.kind != "erection" else "",
+            rows.append((st.name, f"{st.day:g}", where, st.screed if st.kind != "erection" else "",
                           signed_inches(st.deflection), signed_inches(st.cumulative), signed_inches(st.cumulative_cured),
                           signed_inches(st.live_deflection), Text(f"{ratio:.2f}", style="" if ratio <= 1 else "bold red"),
-                          f"{st.stress:.1f}", f"{st.ponded_volume / IN3_PER_FT3:.1f}")
+                          f"{st.stress:.1f}", f"{st.ponded_volume / IN3_PER_FT3:.1f}"))
+        table.set_rows(rows)
         x, names = con.x, [st.name for st in con.stages]
         fmt = signed_inches
         self.query_one("#pour-step-plot", TerminalPlot).plot(

@@ -7,6 +7,7 @@ from pathlib import Path
 
 from rich.text import Text
 from textual.app import ComposeResult
+from textual.binding import Binding
 from textual.containers import Horizontal
 from textual.widgets import Button, Input, Label, Select, Static
 
@@ -18,6 +19,12 @@ KINDS = (("marks as designed", "design"), ("repair marks (findings)", "repair"))
 
 
 class SheetPane(Pane):
+    BINDINGS = [
+        Binding("f6", "write('svg')", "Write SVG", id="sheet.svg", tooltip="Write the sheet shown as SVG."),
+        Binding("f7", "write('csv')", "Write CSV", id="sheet.csv", tooltip="Write the marks shown as CSV."),
+        Binding("f8", "write('all')", "Write all", id="sheet.all",
+                tooltip="Write the SVG and CSV of every beam into the folder."),
+    ]
     DEFAULT_CSS = """
     SheetPane Horizontal { height: auto; padding: 0 0 1 0; }
     SheetPane Label { padding: 0 1 0 0; color: $foreground-muted; }
@@ -44,12 +51,20 @@ class SheetPane(Pane):
     def show_job(self, session: JobSession, index: int) -> None:
         from fieldcomp.commands.marks import safe_name
 
-        folder = session.path.parent if session.path is not None else Path.cwd()
-        name = safe_name(session.job.beam[index].mark)
-        self.query_one("#sheet-svg", Input).value = str(folder / f"{name}.svg")
-        self.query_one("#sheet-csv", Input).value = str(folder / f"{name}.csv")
+        self.folder = session.path.parent if session.path is not None else Path.cwd()
+        self.name = safe_name(session.job.beam[index].mark)
+        self._default_paths()
         if not self.query_one("#sheet-folder", Input).value:
-            self.query_one("#sheet-folder", Input).value = str(folder / "sheets")
+            self.query_one("#sheet-folder", Input).value = str(self.folder / "sheets")
+
+    folder = Path(".")
+    name = "beam"
+
+    def _default_paths(self) -> None:
+        """File names beside the job, from the mark; repair sheets get their own names."""
+        tail = "-repair" if self.query_one("#sheet-kind", Select).value == "repair" else ""
+        self.query_one("#sheet-svg", Input).value = str(self.folder / f"{self.name}{tail}.svg")
+        self.query_one("#sheet-csv", Input).value = str(self.folder / f"{self.name}{tail}.csv")
 
     def sheet(self):
         """The SheetData chosen (engine data built in the worker), or None."""
@@ -58,7 +73,7 @@ class SheetPane(Pane):
             return None
         if self.query_one("#sheet-kind", Select).value == "repair":
             return outcome.repair_sheet.value
-        return outcome.sheet.value
+        return outcome.sheet.value if outcome.sheet is not None else None
 
     outcome: BeamOutcome | None = None
     outcomes: list[BeamOutcome] = []
@@ -76,9 +91,13 @@ class SheetPane(Pane):
             return
         if sheet is None:
             part = outcome.repair_sheet if kind == "repair" else outcome.sheet
-            why = part.error or ("no repair for this beam: it has no findings, or passes as built"
-                                 if kind == "repair" else "not computed")
-            head.update(Text(f"{outcome.beam.mark}: {why}", style="bold red" if part.error else ""))
+            if not outcome.finished_all:
+                why, error = "preparing the sheet ...", None
+            else:
+                error = part.error if part is not None else None
+                why = error or ("no repair for this beam: it has no findings, or passes as built"
+                                if kind == "repair" else "not computed")
+            head.update(Text(f"{outcome.beam.mark}: {why}", style="bold red" if error else "italic"))
             preview.update("")
             return
         head.update(f"{outcome.beam.mark}: {sheet.title.lower()}, dated {sheet.date}")
@@ -86,21 +105,24 @@ class SheetPane(Pane):
 
     def on_select_changed(self, event: Select.Changed) -> None:
         event.stop()
+        self._default_paths()
         self.show_outcome(self.outcome, self.outcomes)
 
     def on_button_pressed(self, event: Button.Pressed) -> None:
+        event.stop()
+        self.action_write((event.button.id or "").removeprefix("sheet-write-"))
+
+    def action_write(self, which: str) -> None:
         from engine.sheet import marks_csv, marks_svg
 
-        event.stop()
-        which = event.button.id
-        if which == "sheet-write-all":
+        if which == "all":
             self.write_all()
             return
         sheet = self.sheet()
         if sheet is None:
             self.app.notify("Nothing to write for this beam.", severity="warning")
             return
-        field, render = ("#sheet-svg", marks_svg) if which == "sheet-write-svg" else ("#sheet-csv", marks_csv)
+        field, render = ("#sheet-svg", marks_svg) if which == "svg" else ("#sheet-csv", marks_csv)
         self.write([(Path(self.query_one(field, Input).value.strip()).expanduser(), render(sheet))])
 
     def write_all(self) -> None:
@@ -108,7 +130,10 @@ class SheetPane(Pane):
         from fieldcomp.commands.marks import inside, unique_names
 
         folder = Path(self.query_one("#sheet-folder", Input).value.strip()).expanduser()
-        sheets = [o.sheet.value for o in self.outcomes if o.sheet.value is not None]
+        sheets = [o.sheet.value for o in self.outcomes if o.sheet is not None and o.sheet.value is not None]
+        if len(sheets) < len(self.outcomes):
+            self.app.notify(f"{len(self.outcomes) - len(sheets)} beam(s) have no sheet (yet); the others are written.",
+                            severity="warning")
         names = unique_names([s.beam.mark for s in sheets])
         try:
             folder.mkdir(parents=True, exist_ok=True)

@@ -13,9 +13,6 @@ from fieldcomp.widgets.pane_base import Pane
 from fieldcomp.widgets.strip import StripMark, StudStrip, legend
 from fieldcomp.widgets.table import Table
 
-SIDE_WORDS = {"reference": "toward {ref}", "far": "toward {far}", "center": "centred"}
-
-
 def layout_marks(layout, anchors) -> list[StripMark]:
     """Strip marks of a designed layout: studs per slot, and ribs that need a deck weld."""
     marks = [StripMark(float(x), int(n)) for x, n in zip(layout.x, layout.count) if n > 0]
@@ -29,27 +26,28 @@ class StudsPane(Pane):
         yield StudStrip(id="studs-strip")
         yield Static("", id="studs-legend", classes="pane--note")
         yield Static("", id="studs-shortfall", classes="pane--warn")
-        yield Static("Marks (stations from the reference end)", classes="pane--section")
+        yield Static("Marks", classes="pane--section", id="studs-marks-title")
         yield Table("rib", "station", "studs", "side of rib", "Qn each", id="studs-marks")
         yield Static("Layout checks", classes="pane--section")
         yield ChecksTable(id="studs-checks")
         yield Static("", id="studs-flags", classes="pane--warn")
 
     def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
-        from engine.layout import deck_anchor_slots
+        from engine.ribs import printed_station
+        from engine.sheet import side_text, station_origin_text
 
         head = self.query_one("#studs-head", Static)
         strip = self.query_one(StudStrip)
         table = self.query_one("#studs-marks", Table)
-        table.clear()
         placed = outcome.layout.value if outcome else None
         if outcome is None or placed is None:
             head.update(Text(outcome.layout.error if outcome else "no beam", style="bold red"))
             strip.clear("no layout")
+            table.set_rows([])
             self.query_one(ChecksTable).show([])
             return
         b, lay = outcome.beam, placed.layout
-        anchors = deck_anchor_slots(b, lay)
+        anchors = outcome.deck_anchors
         mode = "count from the drawings" if placed.mode == "drawings" else "count designed"
         head.update(f"{b.mark}: {lay.total} studs ({mode}); sum Qn {placed.provided_left:.0f} kip toward "
                     f"{b.ribs.reference_end}, {placed.provided_right:.0f} kip toward {b.ribs.far_end}; "
@@ -58,12 +56,17 @@ class StudsPane(Pane):
                    keep_out=(b.ribs.keep_out_start, b.ribs.keep_out_end))
         kinds = {"stud"} | ({"anchor"} if anchors.any() else set())
         self.query_one("#studs-legend", Static).update(legend(kinds))
-        self.query_one("#studs-shortfall", Static).update(placed.shortfall or "")
-        words = {k: v.format(ref=b.ribs.reference_end, far=b.ribs.far_end) for k, v in SIDE_WORDS.items()}
+        short = self.query_one("#studs-shortfall", Static)
+        short.update(placed.shortfall or "")
+        short.display = bool(placed.shortfall)
+        self.query_one("#studs-marks-title", Static).update(f"Marks ({station_origin_text(b)})")
+        rows = []
         for n, x, count, side, qn, anchor in zip(lay.number, lay.x, lay.count, lay.side, lay.qn, anchors):
+            at = station(float(printed_station(b, float(x))))
             if count > 0:
-                table.add_row(str(n), station(float(x)), str(int(count)), words.get(str(side), str(side)), f"{qn:.1f} kip")
+                rows.append((str(n), at, str(int(count)), side_text(b, str(side)), f"{qn:.1f} kip"))
             elif anchor:
-                table.add_row(str(n), station(float(x)), "0", Text("deck weld (no stud)", style="dim"), "")
+                rows.append((str(n), at, "0", Text("deck weld (no stud)", style="dim"), ""))
+        table.set_rows(rows)
         self.query_one(ChecksTable).show(placed.checks)
         self.query_one("#studs-flags", Static).update("\n".join(f"note [{f.clause}] {f.message}" for f in placed.flags))

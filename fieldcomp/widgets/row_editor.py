@@ -9,7 +9,7 @@ from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
 from textual.widgets import Button, DataTable, Static
 
-from fieldcomp.messages import RowAdded, RowRemoved
+from fieldcomp.messages import RowRemoved, RowsSet
 from fieldcomp.session import JobSession, Path_, field_text
 from fieldcomp.widgets.field_form import FieldForm, FieldSpec
 from fieldcomp.widgets.table import Table
@@ -17,7 +17,8 @@ from fieldcomp.widgets.table import Table
 
 class RowEditor(Vertical):
     """Edits `beam[i].<table>`: `specs` are the row's fields (also the table's columns);
-    `new_row(existing_rows)` gives the row the Add button appends."""
+    `with_new_row(rows, beam)` gives the table after Add: the rows as plain data plus a new one
+    (a new pour stage may take part of the last one)."""
 
     DEFAULT_CSS = """
     RowEditor { height: auto; }
@@ -28,9 +29,10 @@ class RowEditor(Vertical):
     """
 
     def __init__(self, table: str, noun: str, specs: tuple[FieldSpec, ...],
-                 new_row: Callable[[list[Any]], dict[str, Any]], *, id: str | None = None, empty: str = "") -> None:
+                 with_new_row: Callable[[list[dict[str, Any]], Any], list[dict[str, Any]]], *,
+                 id: str | None = None, empty: str = "") -> None:
         super().__init__(id=id)
-        self.table, self.noun, self.specs, self.new_row, self.empty = table, noun, specs, new_row, empty
+        self.table, self.noun, self.specs, self.with_new_row, self.empty = table, noun, specs, with_new_row, empty
         self.session: JobSession | None = None
         self.beam_index = 0
         self.row = 0
@@ -58,11 +60,10 @@ class RowEditor(Vertical):
     def show(self, session: JobSession, index: int) -> None:
         self.session, self.beam_index = session, index
         rows = self.rows()
-        table = self.query_one(DataTable)
-        table.clear()
-        for k in range(len(rows)):
-            cells = [field_text(session.job, self.base() + (k,) + s.key) for s in self.specs]
-            table.add_row(str(k + 1), *cells)
+        table = self.query_one(Table)
+        with table.prevent(DataTable.RowHighlighted):
+            table.set_rows([(str(k + 1), *(field_text(session.job, self.base() + (k,) + s.key) for s in self.specs))
+                            for k in range(len(rows))])
         self.row = min(self.row, len(rows) - 1) if rows else 0
         self.query_one(".rows--empty", Static).display = not rows
         form = self.query_one(FieldForm)
@@ -88,10 +89,17 @@ class RowEditor(Vertical):
             event.stop()
             self.remove()
 
+    def plain_rows(self) -> list[dict[str, Any]]:
+        return [r.model_dump(mode="json", exclude_none=True) for r in self.rows()]
+
     def add(self, items: list[dict[str, Any]] | None = None, description: str = "") -> None:
-        rows = self.rows()
-        self.row = len(rows)
-        self.post_message(RowAdded(self.base(), items or [self.new_row(rows)], description or f"add {self.noun}"))
+        """Add a new row, or `items` (imported rows), as one edit."""
+        if self.session is None:
+            return
+        rows = self.plain_rows()
+        new = rows + items if items else self.with_new_row(rows, self.session.job.beam[self.beam_index])
+        self.row = len(new) - 1
+        self.post_message(RowsSet(self.base(), new, description or f"add {self.noun}"))
 
     def remove(self) -> None:
         if self.rows():

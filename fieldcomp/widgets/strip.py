@@ -12,6 +12,7 @@ from dataclasses import dataclass
 import numpy as np
 from rich.style import Style
 from rich.text import Text
+from textual.geometry import Size
 from textual.widget import Widget
 
 from engine.units import format_ft_in
@@ -42,7 +43,7 @@ class StudStrip(Widget):
     COMPONENT_CLASSES = {"strip--stud", "strip--bad", "strip--warn", "strip--good", "strip--repair",
                          "strip--deck", "strip--steel", "strip--axis", "strip--keepout"}
     DEFAULT_CSS = """
-    StudStrip { height: 10; }
+    StudStrip { height: auto; }
     StudStrip > .strip--stud { color: $foreground; }
     StudStrip > .strip--bad { color: $error; text-style: bold; }
     StudStrip > .strip--warn { color: $warning; }
@@ -73,8 +74,13 @@ class StudStrip(Widget):
         self.span, self.marks, self.note = 0.0, (), note
         self.refresh()
 
+    def get_content_height(self, container: Size, viewport: Size, width: int) -> int:
+        return self._text(width).plain.count("\n") + 1
+
     def render(self) -> Text:
-        width = self.size.width
+        return self._text(self.size.width)
+
+    def _text(self, width: int) -> Text:
         if self.span <= 0 or width < 20:
             return Text(self.note, style="italic")
         st = self.get_component_rich_style
@@ -83,7 +89,7 @@ class StudStrip(Widget):
         stacks: list[list[str]] = [[] for _ in range(cols)]
         for m in sorted(self.marks, key=lambda m: (m.kind != "stud", m.x)):
             stacks[col(m.x)].extend([m.kind] * m.count)
-        height = max(3, min(6, max((len(s) for s in stacks), default=0)))
+        height = max(1, min(6, max((len(s) for s in stacks), default=0)))
         out = Text(no_wrap=True, overflow="crop")
         left, right = self.ends
         out.append(f"◀ {left}", style=st("strip--axis"))

@@ -18,3 +18,14 @@ class Table(DataTable):
 
     def on_mount(self) -> None:
         self.add_columns(*self.columns_wanted)
+
+    shown: list[tuple] | None = None
+
+    def set_rows(self, rows: list[tuple]) -> None:
+        """Show `rows`; nothing is redrawn when they are the rows already shown."""
+        if rows == self.shown:
+            return
+        self.shown = rows
+        self.clear()
+        for row in rows:
+            self.add_row(*row)
