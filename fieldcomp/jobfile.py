@@ -6,7 +6,6 @@ from __future__ import annotations
 import difflib
 import hashlib
 import os
-import tempfile
 import tomllib
 from dataclasses import dataclass
 from pathlib import Path
@@ -15,6 +14,7 @@ from typing import Any
 import tomli_w
 from pydantic import BaseModel, ValidationError
 
+from fieldcomp.atomic import write_bytes_atomic
 from fieldcomp.jobmodel import Job
 
 MAX_BYTES = 20 * 1024 * 1024
@@ -136,48 +136,15 @@ def save_job(job: Job, path: str | os.PathLike[str], expected_digest: str | None
     if expected_digest is not None and p.exists():
         if hashlib.sha256(p.read_bytes()).hexdigest() != expected_digest:
             raise ChangedOnDisk(f"{p} changed on disk since it was opened; not overwritten")
-    fd, tmp = tempfile.mkstemp(prefix=f".{p.name}.", suffix=".tmp", dir=p.parent)
-    try:
-        with os.fdopen(fd, "wb") as fh:
-            fh.write(data)
-            fh.flush()
-            os.fsync(fh.fileno())
-        if p.exists():
-            _keep_backup(p)
-        os.replace(tmp, p)
-        _fsync_dir(p.parent)
-    except BaseException:
-        Path(tmp).unlink(missing_ok=True)
-        raise
+    if p.exists():
+        _keep_backup(p)
+    write_bytes_atomic(p, data)
     return hashlib.sha256(data).hexdigest()
 
 
 def _keep_backup(p: Path) -> None:
     """Copy the current file to .bak atomically (the original stays in place until replaced)."""
-    bak = p.with_name(p.name + ".bak")
-    fd, tmp = tempfile.mkstemp(prefix=f".{bak.name}.", suffix=".tmp", dir=p.parent)
-    try:
-        with os.fdopen(fd, "wb") as fh:
-            fh.write(p.read_bytes())
-            fh.flush()
-            os.fsync(fh.fileno())
-        os.replace(tmp, bak)
-    except BaseException:
-        Path(tmp).unlink(missing_ok=True)
-        raise
-
-
-def _fsync_dir(folder: Path) -> None:
-    try:
-        fd = os.open(folder, os.O_RDONLY)
-    except OSError:
-        return
-    try:
-        os.fsync(fd)
-    except OSError:
-        pass
-    finally:
-        os.close(fd)
+    write_bytes_atomic(p.with_name(p.name + ".bak"), p.read_bytes())
 
 
 def where(table: str, index: int | None, raw_item: Any, field: str) -> str:

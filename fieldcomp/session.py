@@ -40,17 +40,9 @@ class EditRejected(ValueError):
 
 def validate_job(job: Job, path: str | os.PathLike[str] = "<job>") -> None:
     """Raise JobFileError if the job would not load and compute (engine conversion, scope)."""
-    from engine.evaluate import OutOfScope, check_scope
-    from fieldcomp.to_engine import to_engine
+    from fieldcomp.to_engine import require_in_scope, to_engine
 
-    problems = []
-    for b in to_engine(job, path):
-        try:
-            check_scope(b)
-        except OutOfScope as exc:
-            problems.append((f"beam '{b.mark}', field '{exc.field}'", str(exc)))
-    if problems:
-        raise JobFileError(path, problems)
+    require_in_scope(to_engine(job, path), path)
 
 
 def field_text(job: Job, path: Path_) -> str:

@@ -133,3 +133,18 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         construction=construction, ribs=ribs, findings=findings,
         limits=Limits(b.live_limit_ratio, b.total_limit_ratio), support=b.support, web_openings=b.web_openings,
     )
+
+
+def require_in_scope(beams: list[BeamInput], path: str | os.PathLike[str] = "<job>") -> None:
+    """Raise JobFileError naming beam, field and clause for every beam outside the engine's scope
+    (engine.evaluate.check_scope)."""
+    from engine.evaluate import OutOfScope, check_scope
+
+    problems = []
+    for b in beams:
+        try:
+            check_scope(b)
+        except OutOfScope as exc:
+            problems.append((f"beam '{b.mark}', field '{exc.field}'", str(exc)))
+    if problems:
+        raise JobFileError(path, problems)

@@ -18,6 +18,7 @@ import os, sys
 sys.path.insert(0, {root!r})
 from fieldcomp.jobfile import load_job, save_job
 import fieldcomp.jobfile as jf
+import fieldcomp.atomic as at
 
 path, kill_at = sys.argv[1], int(sys.argv[2])
 loaded = load_job(path)
@@ -26,7 +27,7 @@ count = 0
 
 def tracer(frame, event, arg):
     global count
-    if frame.f_code.co_filename == jf.__file__ and event == "line":
+    if frame.f_code.co_filename in (jf.__file__, at.__file__) and event == "line":
         count += 1
         if count == kill_at:
             os._exit(9)
@@ -76,6 +77,7 @@ def test_kill_at_every_line_of_a_save_leaves_old_or_new(tmp_path):
 def test_injected_os_failures_keep_the_old_file(tmp_path, monkeypatch, fail):
     import os
 
+    import fieldcomp.atomic as at
     import fieldcomp.jobfile as jf
 
     path = tmp_path / "job.toml"
@@ -90,7 +92,7 @@ def test_injected_os_failures_keep_the_old_file(tmp_path, monkeypatch, fail):
     if fail == "write":
         monkeypatch.setattr(jf, "tomli_w", type("W", (), {"dumps": staticmethod(lambda d: boom())}))
     else:
-        monkeypatch.setattr(os, fail, boom)
+        monkeypatch.setattr(at.os, fail, boom)
     with pytest.raises(OSError):
         jf.save_job(job, path)
     monkeypatch.undo()

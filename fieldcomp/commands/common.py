@@ -10,9 +10,8 @@ EXIT_PASS, EXIT_FAIL, EXIT_INPUT = 0, 1, 2
 def load_inputs(path: str, only: str | None = None):
     """(job model, beam inputs) or raise JobFileError; `only` selects one beam by mark.
     Inputs outside the engine's scope are refused here, naming beam, field and clause."""
-    from engine.evaluate import OutOfScope, check_scope
     from fieldcomp.jobfile import JobFileError, load_job
-    from fieldcomp.to_engine import to_engine
+    from fieldcomp.to_engine import require_in_scope, to_engine
 
     loaded = load_job(path)
     beams = to_engine(loaded.job, path)
@@ -21,14 +20,7 @@ def load_inputs(path: str, only: str | None = None):
         if not beams:
             marks = ", ".join(b.mark for b in loaded.job.beam)
             raise JobFileError(path, [("", f"no beam with mark {only!r}; marks: {marks}")])
-    problems = []
-    for b in beams:
-        try:
-            check_scope(b)
-        except OutOfScope as exc:
-            problems.append((f"beam '{b.mark}', field '{exc.field}'", str(exc)))
-    if problems:
-        raise JobFileError(path, problems)
+    require_in_scope(beams, path)
     return loaded.job, beams
 
 

@@ -10,13 +10,12 @@ Exit codes: 0 every layout meets its requirement and the beam's flexure check, 1
 from __future__ import annotations
 
 import argparse
-import os
 import re
 import sys
-import tempfile
 from pathlib import Path
 
 from fieldcomp import CAUTION, __version__
+from fieldcomp.atomic import write_text_atomic as write_atomic
 from fieldcomp.commands.common import EXIT_FAIL, EXIT_INPUT, EXIT_PASS, fail_input
 
 _RESERVED = {"CON", "PRN", "AUX", "NUL", *(f"COM{i}" for i in range(1, 10)), *(f"LPT{i}" for i in range(1, 10))}
@@ -51,20 +50,6 @@ def unique_names(marks: list[str]) -> list[str]:
         seen[key] = seen.get(key, 0) + 1
         out.append(base if seen[key] == 1 else f"{base}-{seen[key]}")
     return out
-
-
-def write_atomic(path: Path, text: str) -> None:
-    """Write text to a temporary file beside `path`, flush and fsync, then replace `path`."""
-    fd, tmp = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".tmp")
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8", newline="") as fh:
-            fh.write(text)
-            fh.flush()
-            os.fsync(fh.fileno())
-        os.replace(tmp, path)
-    except BaseException:
-        Path(tmp).unlink(missing_ok=True)
-        raise
 
 
 def inside(folder: Path, name: str) -> Path:
