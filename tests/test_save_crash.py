@@ -1,5 +1,5 @@
-"""Crash-safe saves: a child process is killed (os._exit) at every line executed inside
-`save_job`; afterwards the job file holds either the old or the new content, never a torn one,
+"""Crash-safe saves: a child process is killed (os._exit) at every line executed on the write
+path of `save_job` (backup, temporary file, fsync, replace); afterwards the job file holds either the old or the new content, never a torn one,
 and the .bak, when present, holds a complete earlier version."""
 
 import subprocess
@@ -17,17 +17,18 @@ CHILD = r"""
 import os, sys
 sys.path.insert(0, {root!r})
 from fieldcomp.jobfile import load_job, save_job
-import fieldcomp.jobfile as jf
-import fieldcomp.atomic as at
 
 path, kill_at = sys.argv[1], int(sys.argv[2])
 loaded = load_job(path)
 job = loaded.job.model_copy(update={{"project": loaded.job.project.model_copy(update={{"name": "NEW VERSION"}})}})
 count = 0
+# every line that runs once the new text exists: backup, temp file, fsync, replace (the text
+# rendering before it writes nothing, so a kill there cannot tear a file)
+WRITE_PATH = {{"save_job", "_keep_backup", "write_bytes_atomic", "_mode_for", "fsync_folder"}}
 
 def tracer(frame, event, arg):
     global count
-    if frame.f_code.co_filename in (jf.__file__, at.__file__) and event == "line":
+    if frame.f_code.co_name in WRITE_PATH and event == "line":
         count += 1
         if count == kill_at:
             os._exit(9)
