@@ -7,7 +7,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from engine.aisc360.flexure import FlexureStrength, flexure_strength, unbraced_segments
+from engine.aisc360.flexure import FlexureStrength, cb_from_moments, flexure_strength
 from engine.model import BeamInput
 from engine.units import format_ft_in
 
@@ -65,23 +65,36 @@ def bracing(beam: BeamInput) -> Bracing:
     return Bracing(points, f"top flange braced {where}; state unbraced_length if the deck or forms brace it")
 
 
-def governing_segment(beam: BeamInput, x: np.ndarray, moment: np.ndarray, braces: Bracing,
-                      method: str) -> BareFlexure:
-    """The unbraced segment with the highest demand / available strength for this moment diagram:
-    Lb between brace points, Cb by AISC 360-22 Eq. F1-1 over the segment, Mn by F2 (or F3)."""
+def governing_segments(beam: BeamInput, x: np.ndarray, moments: np.ndarray, braces: Bracing,
+                       method: str) -> list[BareFlexure]:
+    """For each moment diagram (rows of `moments`, kip-in at stations x), the unbraced segment with
+    the highest demand / available strength: Lb between brace points, Cb by AISC 360-22 Eq. F1-1
+    over the segment (quarter-point moments interpolated linearly, Mmax over the segment), Mn by
+    F2 (or F3). The segments are found once for every diagram (engine.aisc360.flexure)."""
     shape, fy = beam.shape, beam.fy
-    peak = int(np.argmax(np.abs(moment)))
+    size = np.abs(moments)
     if braces.points is None:
         strength = flexure_strength(shape, fy, 0.0, 1.0)
-        return BareFlexure(float(abs(moment[peak])), float(x[peak]), float(x[0]), float(x[-1]), strength)
-    segs = unbraced_segments(x, moment, braces.points)
+        return [BareFlexure(float(size[d, p]), float(x[p]), float(x[0]), float(x[-1]), strength)
+                for d, p in enumerate(np.argmax(size, axis=1))]
+    if np.any(braces.points < x[0]) or np.any(braces.points > x[-1]):
+        raise ValueError(f"brace points must lie within {x[0]:g} to {x[-1]:g} in, got {braces.points.tolist()}")
+    points = np.unique(np.concatenate(([x[0]], braces.points, [x[-1]])))
+    start, end = points[:-1], points[1:]
+    where = np.concatenate((start[:, None] + (end - start)[:, None] * np.array([0.25, 0.5, 0.75]),
+                            start[:, None], end[:, None]), axis=1)
+    at_points = np.abs(np.array([np.interp(where, x, m) for m in moments]))  # quarter points, ends
+    inside = (x >= start[:, None]) & (x <= end[:, None])
+    m_max = np.maximum(np.where(inside, size[:, None, :], 0.0).max(axis=-1),
+                       np.maximum(at_points[..., 3], at_points[..., 4]))
+    cb = cb_from_moments(m_max, at_points[..., 0], at_points[..., 1], at_points[..., 2])
+    at = np.where(inside, size[:, None, :], -1.0).argmax(axis=-1)
+    for i in np.flatnonzero(~inside.any(axis=1)):  # segment shorter than the station spacing
+        at[:, i] = int(np.argmin(np.abs(x - 0.5 * (start[i] + end[i]))))
     found = []
-    for i in range(segs.lb.size):
-        strength = flexure_strength(shape, fy, float(segs.lb[i]), max(float(segs.cb[i]), 1.0))
-        inside = np.flatnonzero((x >= segs.start[i]) & (x <= segs.end[i]))
-        if inside.size == 0:  # segment shorter than the station spacing
-            inside = np.array([int(np.argmin(np.abs(x - 0.5 * (segs.start[i] + segs.end[i]))))])
-        at = int(inside[np.argmax(np.abs(moment[inside]))])
-        found.append(BareFlexure(float(segs.m_max[i]), float(x[at]), float(segs.start[i]), float(segs.end[i]),
-                                 strength))
-    return max(found, key=lambda f: f.ratio(method))
+    for d in range(size.shape[0]):
+        each = [BareFlexure(float(m_max[d, i]), float(x[at[d, i]]), float(start[i]), float(end[i]),
+                            flexure_strength(shape, fy, float(end[i] - start[i]), max(float(cb[d, i]), 1.0)))
+                for i in range(start.size)]
+        found.append(max(each, key=lambda f: f.ratio(method)))
+    return found

@@ -11,9 +11,11 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
+import numpy as np
+
 from engine.model import BeamInput, CamberRules
 from engine.pours import KIP_PER_IN3_PER_PCF, PourPlan
-from engine.staging import StagedRun, blend
+from engine.staging import StagedRun
 from engine.units import format_ft_in, format_inches
 
 COSP_BASE_TOLERANCE = 0.5  # in, members up to 50 ft (AISC 303 Section 6.4.4(a))
@@ -137,9 +139,12 @@ def camber_outcome(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: 
     concrete at midspan decides which applies. Stud cover = thickness - stud length (1/2 in
     minimum). Extra concrete: the ponded weight over the concrete unit weight.
     """
-    run = blend(at_zero, at_one, camber)
     mid = plan.midspan
-    after = run.cumulative[:, mid]
+    dead, ponded = at_zero.dead[:, mid], at_zero.ponded
+    if at_one is not at_zero:  # as `blend`, for the two fields needed
+        dead = dead + camber * (at_one.dead[:, mid] - dead)
+        ponded = ponded + camber * (at_one.ponded - ponded)
+    after = np.cumsum(dead)
     final = float(after[-1])
     first = plan.first_placed(mid)
     nominal = beam.slab.total_thickness
@@ -150,7 +155,7 @@ def camber_outcome(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: 
         thickness, top = nominal, camber - final
     cover = thickness - beam.studs.length
     unit_weight = beam.slab.concrete_pcf * KIP_PER_IN3_PER_PCF
-    extra = float(run.ponded.sum()) / unit_weight
+    extra = float(ponded.sum()) / unit_weight
     warnings = []
     if cover < 0.0:
         warnings.append(f"stud heads stand {format_inches(-cover)} proud of the slab at midspan")

@@ -15,7 +15,7 @@ import numpy as np
 
 from engine.aisc360.concrete import E_STEEL
 from engine.aisc360.shear import ShearStrength, web_shear_strength
-from engine.bare_steel import BareFlexure, Bracing, bracing, governing_segment
+from engine.bare_steel import BareFlexure, Bracing, bracing, governing_segments
 from engine.camber import CamberDecision, CamberOutcome, decide_camber, may_camber, outcome_envelope
 from engine.checks import Check, Flag
 from engine.deck import psf_to_kip_per_in
@@ -23,9 +23,9 @@ from engine.model import BeamInput
 from engine.ponding import first_mode_ratio
 from engine.pours import (
     KIP_PER_IN3_PER_PCF, STRENGTH_FRACTION, PourPlan, bare_sections, cured_sections, earlier_strength_ratio,
-    pour_plan, side_widths,
+    first_difference, pour_plan, side_widths,
 )
-from engine.staging import StagedRun, blend, run_stages
+from engine.staging import StagedRun, blend, constant_thickness_total, run_stages_at, step_effects
 from engine.statics import PondingInstability
 from engine.units import format_ft_in, format_inches
 
@@ -165,13 +165,16 @@ def evaluate_construction(beam: BeamInput) -> ConstructionResult:
     level = any(step.level for step in plan.steps)
     flags: list[Flag] = []
     mid = plan.midspan
-    try:
-        at_zero = run_stages(plan, bare, 0.0)
+    effects = step_effects(plan)
+    try:  # every field is linear in the camber: one pass gives the runs at cambers 0 and 1
+        runs = run_stages_at(plan, bare, (0.0, 1.0) if level else (0.0,), effects=effects)
+        at_zero, at_one = runs[0], runs[-1]
         delta0 = float(at_zero.total[mid])
-        at_one = run_stages(plan, bare, 1.0) if level and may_camber(beam, delta0) else at_zero
+        if not (level and may_camber(beam, delta0)):
+            at_one = at_zero
         stable = True
     except PondingInstability as exc:
-        at_zero = at_one = run_stages(plan, bare, 0.0, ponding=False)
+        at_zero = at_one = run_stages_at(plan, bare, (0.0,), False, effects=effects)[0]
         delta0 = float(at_zero.total[mid])
         stable = False
         flags.append(Flag("AISC 360-22 Commentary I3.1b", f"level screeding is unstable ({exc}); deflections "
@@ -179,19 +182,21 @@ def evaluate_construction(beam: BeamInput) -> ConstructionResult:
     decision = decide_camber(beam, delta0, max(delta0 - float(at_one.total[mid]), 0.0))
     run = blend(at_zero, at_one, decision.camber)
     stiff = cured_sections(beam, plan)
-    cured = run if stiff is None else run_stages(plan, stiff, decision.camber, ponding=stable)
-    no_ponding = run_stages(plan, bare, ponding=False).total if level and stable else run.total
+    cured = run if stiff is None else run_stages_at(plan, stiff, (decision.camber,), stable, run,
+                                                    first_difference(bare, stiff), effects)[0]
+    no_ponding = constant_thickness_total(plan, bare, effects) if level and stable else run.total
     outcomes = outcome_envelope(beam, plan, at_zero, at_one, decision)
 
     braces = bracing(beam)
     method = beam.method
     dead_moment = np.cumsum(run.dead_moment, axis=0)
     dead_shear = np.cumsum(run.dead_shear, axis=0)
-    per_step: list[BareFlexure] = []
-    for s in range(len(plan.steps)):
-        diagrams = [fd * dead_moment[s] + fl * run.live_moment[s] for fd, fl in combinations(beam, method)]
-        per_step.append(max((governing_segment(beam, plan.x, m, braces, method) for m in diagrams),
-                            key=lambda g: g.ratio(method)))
+    pairs = combinations(beam, method)
+    count = len(plan.steps)
+    diagrams = [fd * dead_moment[s] + fl * run.live_moment[s] for fd, fl in pairs for s in range(count)]
+    found = governing_segments(beam, plan.x, np.array(diagrams), braces, method)
+    per_step: list[BareFlexure] = [max((found[c * count + s] for c in range(len(pairs))), key=lambda g: g.ratio(method))
+                                   for s in range(count)]
     gov = int(np.argmax([g.ratio(method) for g in per_step]))
 
     def peak(values: np.ndarray, live: np.ndarray, m: str) -> float:

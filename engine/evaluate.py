@@ -8,6 +8,7 @@ deflection with I_LB (Commentary Eq. C-I3-1), minimum degree of composite, and d
 from __future__ import annotations
 
 from dataclasses import dataclass
+from functools import lru_cache
 
 import numpy as np
 
@@ -20,13 +21,13 @@ from engine.aisc360.composite import (
     transformed_inertia,
 )
 from engine.aisc360.concrete import E_STEEL, ec, fc_strength_range
-from engine.aisc360.shear import web_shear_strength
+from engine.aisc360.shear import ShearStrength, web_shear_strength
 from engine.checks import Check, Flag
 from engine.detailing import deck_checks, spacing_checks
-from engine.loads import FinishedLoads, combinations, factored, finished_loads
+from engine.loads import FinishedLoads, combinations, finished_loads, load_factors
 from engine.model import BeamInput
 from engine.section import StudGroups, slab_force
-from engine.statics import deflection, max_abs_shear, shear_moment, stations
+from engine.statics import deflection_rows, factored_max_abs_shear, factored_moment, stations
 
 PHI_B, OMEGA_B = 0.90, 1.67  # AISC 360-22 I3.2a
 MIN_COMPOSITE = 0.25  # Commentary I3.2a/I3.2d lower limit of the I_equiv fit (common practice minimum)
@@ -137,16 +138,29 @@ class Demand:
     va: float
 
 
+def _factors(loads: FinishedLoads) -> tuple[list[list[float]], int]:
+    """Load factors of each LRFD combination and then the ASD one, per load of dead + live
+    (ASCE/SEI 7-22 2.3.1 and 2.4.1), and the number of LRFD rows."""
+    lrfd = combinations("LRFD")
+    return load_factors(loads, lrfd + combinations("ASD")), len(lrfd)
+
+
 def moment_envelope(beam: BeamInput, x: np.ndarray, loads: FinishedLoads | None = None) -> tuple[np.ndarray, np.ndarray]:
     """(Mu, Ma) at stations `x` (kip-in): the LRFD envelope and the ASD moment of the finished loads.
 
     ASCE/SEI 7-22 2.3.1 (LRFD) and 2.4.1 (ASD), via `engine.loads`.
     """
     loads = finished_loads(beam) if loads is None else loads
-    mu = np.zeros_like(x)
-    for fd, fl in combinations("LRFD"):
-        mu = np.maximum(mu, shear_moment(x, beam.span, factored(loads.dead, loads.live, fd, fl))[1])
-    return mu, shear_moment(x, beam.span, factored(loads.dead, loads.live, 1.0, 1.0))[1]
+    rows, lrfd = _factors(loads)
+    return _envelope(factored_moment(x, beam.span, loads.dead + loads.live, rows), lrfd)
+
+
+def _envelope(moments: np.ndarray, lrfd: int) -> tuple[np.ndarray, np.ndarray]:
+    """(Mu, Ma) from moment rows of the LRFD combinations then the ASD one (ASCE/SEI 7-22 2.3.1, 2.4.1)."""
+    mu = np.zeros_like(moments[0])
+    for m in moments[:lrfd]:
+        mu = np.maximum(mu, m)
+    return mu, moments[lrfd]
 
 
 def moment_demand(beam: BeamInput, x: np.ndarray, loads: FinishedLoads | None = None) -> Demand:
@@ -156,8 +170,15 @@ def moment_demand(beam: BeamInput, x: np.ndarray, loads: FinishedLoads | None = 
     """
     loads = finished_loads(beam) if loads is None else loads
     mu, ma = moment_envelope(beam, x, loads)
-    vu = max(max_abs_shear(beam.span, factored(loads.dead, loads.live, fd, fl)) for fd, fl in combinations("LRFD"))
-    return Demand(mu, ma, vu, max_abs_shear(beam.span, factored(loads.dead, loads.live, 1.0, 1.0)))
+    return Demand(mu, ma, *_shears(beam, loads))
+
+
+def _shears(beam: BeamInput, loads: FinishedLoads) -> tuple[float, float]:
+    """Largest |Vu| (LRFD envelope) and |Va| (ASD) of the finished loads (kip).
+    ASCE/SEI 7-22 2.3.1 (LRFD) and 2.4.1 (ASD); statics (engine.statics)."""
+    rows, lrfd = _factors(loads)
+    shears = factored_max_abs_shear(beam.span, loads.dead + loads.live, rows)
+    return max(float(v) for v in shears[:lrfd]), float(shears[lrfd])
 
 
 @dataclass(frozen=True, slots=True)
@@ -196,11 +217,63 @@ def composite_strength(beam: BeamInput, limits: SlabLimits, c: np.ndarray):
 
 
 def available_strength(beam: BeamInput, mn: np.ndarray) -> np.ndarray:
-    """phi_b Mn (LRFD) or Mn / Omega_b (ASD).
+    """phi_b Mn (LRFD) or Mn / Omega_b (ASD) for the beam's design method.
 
     AISC 360-22 I3.2a (phi_b = 0.90, Omega_b = 1.67).
     """
-    return PHI_B * mn if beam.method == "LRFD" else mn / OMEGA_B
+    return method_strength(beam.method, mn)
+
+
+def method_strength(method: str, mn: np.ndarray) -> np.ndarray:
+    """phi_b Mn for "LRFD", else Mn / Omega_b.
+
+    AISC 360-22 I3.2a (phi_b = 0.90, Omega_b = 1.67).
+    """
+    return PHI_B * mn if method == "LRFD" else mn / OMEGA_B
+
+
+@dataclass(frozen=True, slots=True)
+class FinishedBasis:
+    """What the finished-beam evaluation of one beam needs whatever studs it has: stations `x`,
+    loads and their demand, the service moments (live; superimposed dead + live; kip-in, None
+    without such loads), slab limits, E_c, n, I_tr, the web shear strength and deck checks."""
+
+    x: np.ndarray
+    loads: FinishedLoads
+    demand: Demand
+    service: np.ndarray | None
+    limits: SlabLimits
+    ec: float
+    n: float
+    i_tr: float
+    shear: ShearStrength
+    deck_checks: tuple[Check, ...]
+
+
+@lru_cache(maxsize=64)
+def finished_basis(beam: BeamInput) -> FinishedBasis:
+    """The stud-independent part of `evaluate_beam`, computed once per beam input (layout, as-built
+    and repair evaluations of the same beam share it). Arrays are read-only.
+    ASCE/SEI 7-22 2.3.1 / 2.4.1 (demand); AISC 360-22 I3.1a, I3.2d.1 (limits), I2.1b (E_c),
+    Commentary I3.2 (I_tr), G2.1 (shear), I3.2c.1 (deck)."""
+    slab = beam.slab
+    x = stations(beam.span, beam.n_stations)
+    loads = finished_loads(beam)
+    rows, lrfd = _factors(loads)
+    pre, post, live = len(loads.precomposite_dead), len(loads.postcomposite_dead), len(loads.live)
+    rows += [[0.0] * (pre + post) + [1.0] * live, [0.0] * pre + [1.0] * (post + live)]  # service: L, SD + L
+    moments = factored_moment(x, beam.span, loads.dead + loads.live, rows)
+    moments.flags.writeable = False
+    dem = Demand(*_envelope(moments, lrfd), *_shears(beam, loads))
+    service = moments[-2:] if post + live else None
+    for arr in (x, dem.mu):
+        arr.flags.writeable = False
+    lim = slab_limits(beam)
+    e_c = float(ec(slab.concrete_pcf, slab.fc_ksi))
+    n = E_STEEL / e_c
+    i_tr, _ = transformed_inertia(beam.shape, lim.b_eff, n, slab.topping, slab.total_thickness)
+    return FinishedBasis(x, loads, dem, service, lim, e_c, n, float(i_tr), web_shear_strength(beam.shape, beam.fy),
+                         tuple(deck_checks(beam)))
 
 
 def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResult:
@@ -208,18 +281,17 @@ def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResu
     out rib by rib by `engine.layout.design_layout`, whose checks then join the beam's)."""
     check_scope(beam)
     shape, slab = beam.shape, beam.slab
-    x = stations(beam.span, beam.n_stations)
-    loads = finished_loads(beam)
-    dem = moment_demand(beam, x, loads)
+    basis = finished_basis(beam)
+    x, loads, dem = basis.x, basis.loads, basis.demand
     placed = None
     if groups is None:
         from engine.layout import design_layout  # late import: the layout builds on this module
 
-        placed = design_layout(beam, demand=dem)
+        placed = design_layout(beam)
         groups = placed.layout.groups()
     mu, ma, vu, va = dem.mu, dem.ma, dem.vu, dem.va
 
-    lim = slab_limits(beam)
+    lim = basis.limits
     b_eff, ac, cf = lim.b_eff, lim.ac, lim.cf
     c, left, right = slab_force(x, groups, cf)
     y_con = slab.total_thickness
@@ -232,22 +304,18 @@ def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResu
     ratio = np.divide(demand, capacity, out=np.zeros_like(demand), where=capacity > 0)
     g = int(np.argmax(ratio))
 
-    e_c = ec(slab.concrete_pcf, slab.fc_ksi)
-    n = E_STEEL / e_c
+    e_c, n, i_tr = basis.ec, basis.n, basis.i_tr
     sum_qn = float(min(left[k], right[k]))
     sum_qn_eff = min(sum_qn, cf)
     composite_ratio = sum_qn_eff / cf
-    i_tr, _ = transformed_inertia(shape, b_eff, n, slab.topping, y_con)
     a_k = float(plastic.a[k])
     i_lb = float(lower_bound_inertia(shape, sum_qn_eff, beam.fy, y_con, a_k)) if sum_qn_eff > 0 else shape.ix
     i_equiv = float(equivalent_inertia(shape.ix, i_tr, sum_qn_eff, cf)) if sum_qn_eff > 0 else shape.ix
 
-    shear = web_shear_strength(shape, beam.fy)
+    shear = basis.shear
     phi_vn, vn_omega = shear.phi * shear.vn, shear.vn / shear.omega
 
-    live_defl = float(deflection(x, beam.span, loads.live, E_STEEL * i_lb).max()) if loads.live else 0.0
-    after_cure = loads.postcomposite_dead + loads.live
-    after_cure_defl = float(deflection(x, beam.span, after_cure, E_STEEL * i_lb).max()) if after_cure else 0.0
+    live_defl, after_cure_defl = _service_deflections(basis, E_STEEL * i_lb)
 
     word = "phi Mn" if beam.method == "LRFD" else "Mn/Omega"
     checks = [
@@ -263,7 +331,7 @@ def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResu
         Check("degree of composite (min 25%)", "AISC 360-22 Commentary I3.2d (common practice)",
               MIN_COMPOSITE, composite_ratio, "ratio", kind="detailing"),
     ]
-    checks += deck_checks(beam)
+    checks += basis.deck_checks
     if placed is None:
         spacing, flags = spacing_checks(beam, groups)
     else:  # the layout's checks hold the spacing checks of the same studs, and its own
@@ -276,10 +344,20 @@ def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResu
     return BeamResult(
         beam=beam, x=x, mu=mu, ma=ma, mn=mn, slab_force=c, groups=groups, b_eff=b_eff, ac=ac, cf=cf,
         ec=e_c, n=n, critical=k, sum_qn_left=float(left[k]), sum_qn_right=float(right[k]),
-        composite_ratio=composite_ratio, pna=pna_label(int(plastic.pna[k])), i_tr=float(i_tr),
+        composite_ratio=composite_ratio, pna=pna_label(int(plastic.pna[k])), i_tr=i_tr,
         i_lb=i_lb, i_equiv=i_equiv, vu=vu, va=va, phi_vn=phi_vn, vn_omega=vn_omega,
         live_deflection=live_defl, after_cure_deflection=after_cure_defl, checks=tuple(checks), flags=tuple(flags),
     )
+
+
+def _service_deflections(basis: FinishedBasis, ei: float) -> tuple[float, float]:
+    """Largest deflection (in) under the live load and under superimposed dead + live load on the
+    composite section of stiffness `ei` (0 without such loads). AISC 360-22 Commentary I3.2 (I_LB);
+    deflection by double integration of M/EI (engine.statics)."""
+    if basis.service is None:
+        return 0.0, 0.0
+    y = deflection_rows(basis.x, basis.service / ei).max(axis=1)
+    return (float(y[0]) if basis.loads.live else 0.0), float(y[1])
 
 
 def _ductility_flags(beam: BeamInput, composite_ratio: float, groups: StudGroups) -> list[Flag]:

@@ -5,7 +5,6 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
-from typing import TYPE_CHECKING
 
 import numpy as np
 
@@ -14,9 +13,6 @@ from engine.detailing import DECK_ANCHOR_SPACING_MAX, spacing_limits, studs_per_
 from engine.model import BeamInput
 from engine.ribs import in_keep_out, rib_stations
 from engine.section import StudGroups, stud_qn
-
-if TYPE_CHECKING:
-    from engine.evaluate import Demand
 
 
 @dataclass(frozen=True, slots=True)
@@ -155,11 +151,11 @@ def deck_anchor_slots(beam: BeamInput, layout: StudLayout) -> np.ndarray:
     return need
 
 
-def design_layout(beam: BeamInput, demand: Demand | None = None) -> LayoutResult:
+def design_layout(beam: BeamInput) -> LayoutResult:
     """Studs rib by rib for one beam: the drawings' count, or with `count = "design"` the fewest
     that give phi Mn >= Mu at every station; singles first, doubles nearest the ends, within
     the limits of AISC 360-22 I8.1, I8.2d and I3.2c.3 (engine.placement, engine.layout_design).
-    `demand`: the beam's `engine.evaluate.moment_demand` when the caller has it already."""
+    Computed once per beam input (the finished-beam evaluation designs it too); arrays read-only."""
     from engine.layout_design import design  # it builds on this module's data
 
-    return design(beam, demand=demand)
+    return design(beam)

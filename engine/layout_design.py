@@ -5,12 +5,12 @@ from __future__ import annotations
 
 import math
 from dataclasses import replace
+from functools import lru_cache
 
 import numpy as np
 
 from engine.checks import Check, Flag
 from engine.detailing import spacing_checks, spacing_limits, studs_across
-from engine.evaluate import Demand
 from engine.layout import LayoutResult, StudLayout, layout_qn, slots_for
 from engine.model import BeamInput
 from engine.placement import Arrangement, Need, Slots, arrange, slab_force_needed
@@ -37,9 +37,11 @@ def stud_layout(slots: Slots, counts: np.ndarray, x_max: float) -> StudLayout:
     return StudLayout(slots.x, counts, slots.words, qn, slots.cap, x_max)
 
 
-def design(beam: BeamInput, suggest: bool = True, demand: Demand | None = None) -> LayoutResult:
-    """Place the studs of one beam and check them (see `engine.layout.design_layout`)."""
-    need = slab_force_needed(beam, demand)
+@lru_cache(maxsize=64)
+def design(beam: BeamInput, suggest: bool = True) -> LayoutResult:
+    """Place the studs of one beam and check them (see `engine.layout.design_layout`); computed
+    once per beam input, its arrays read-only."""
+    need = slab_force_needed(beam)
     slots = beam_slots(beam)
     total = beam.studs.count
     arr = arrange(beam, need, slots, total)
@@ -62,6 +64,8 @@ def design(beam: BeamInput, suggest: bool = True, demand: Demand | None = None) 
     text = shortfall(beam, need, slots, arr, layout, required, provided, suggest)
     if text is not None:
         flags.append(Flag(SHORTFALL_CLAUSE, f"stud layout short: {text}"))
+    for values in (layout.x, layout.count, layout.position, layout.qn, layout.max_count):
+        values.flags.writeable = False
     return LayoutResult(layout, required, provided[0], provided[1], text, tuple(checks), tuple(flags),
                         "design" if total is None else "drawings")
 
@@ -86,11 +90,11 @@ def shortfall(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, layou
 
 def _problems(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, layout: StudLayout,
               required: float, provided: tuple[float, float]) -> list[str]:
-    if np.any(need.short):
+    if need.short.any():
         k = int(np.argmax(np.where(need.short, need.demand, -np.inf)))
         return [f"the demand at {format_ft_in(float(need.x[k]))} exceeds the strength with full composite action: "
                 "the shape is too light for any stud count"]
-    if not np.any(slots.cap > 0):
+    if not (slots.cap > 0).any():
         return ["no slot can take a stud: the flute or flange is too narrow for the stud (AISC 360-22 I3.2c.3, "
                 "I8.2d) or the keep-out zones cover every rib"]
     problems: list[str] = []
@@ -144,7 +148,7 @@ def _meets_all(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, requ
 def closing_options(beam: BeamInput, need: Need, slots: Slots, layout: StudLayout, required: float) -> list[str]:
     """Changes that would meet the requirement, each tried by placing the studs again."""
     options: list[str] = []
-    if np.any(need.short):
+    if need.short.any():
         return ["a heavier shape (no stud count reaches phi Mn >= Mu)"]
     total = beam.studs.count
     if total is not None:

@@ -47,25 +47,14 @@ def finished_loads(beam: BeamInput) -> FinishedLoads:
     return FinishedLoads(_nonzero(pre), _nonzero(post), _nonzero(live))
 
 
-def scaled(loads: tuple[Load, ...], factor: float) -> tuple[Load, ...]:
-    """The same loads times a load factor."""
-    out: list[Load] = []
-    for load in loads:
-        if isinstance(load, UniformLoad):
-            out.append(UniformLoad(load.w * factor, load.start, load.end))
-        else:
-            out.append(PointLoad(load.p * factor, load.x))
-    return tuple(out)
-
-
 def combinations(method: str) -> tuple[tuple[float, float], ...]:
     """(dead, live) factor pairs for the design method."""
     return LRFD_COMBINATIONS if method == "LRFD" else ASD_COMBINATIONS
 
 
-def factored(dead: tuple[Load, ...], live: tuple[Load, ...], fd: float, fl: float) -> tuple[Load, ...]:
-    """fd x dead + fl x live as one load list."""
-    return scaled(dead, fd) + scaled(live, fl)
+def load_factors(loads: FinishedLoads, pairs: tuple[tuple[float, float], ...]) -> list[list[float]]:
+    """For each (dead, live) factor pair, the factor of every load of `loads.dead + loads.live`."""
+    return [[fd] * len(loads.dead) + [fl] * len(loads.live) for fd, fl in pairs]
 
 
 def _nonzero(loads: list[Load]) -> tuple[Load, ...]:

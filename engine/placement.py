@@ -17,15 +17,16 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from functools import lru_cache
 
 import numpy as np
 
+from engine.aisc360.composite import plastic_moment
 from engine.detailing import spacing_limits
 from engine.evaluate import (
-    MIN_COMPOSITE, Demand, available_strength, composite_strength, moment_envelope, slab_limits,
+    MIN_COMPOSITE, available_strength, composite_strength, finished_basis, method_strength, moment_envelope,
 )
 from engine.model import BeamInput
-from engine.statics import stations
 
 _TOL = 1e-9
 _C_GRID = 257  # slab forces tabulated between 0 and the topping limit to invert phi Mn(C)
@@ -44,38 +45,50 @@ class Need:
     x_max: float
 
 
-def slab_force_needed(beam: BeamInput, demand: Demand | None = None) -> Need:
+def slab_force_needed(beam: BeamInput) -> Need:
     """The least slab force C(x) with available strength >= demand at every station.
 
     AISC 360-22 I3.2a (phi Mn of the plastic distribution for C), I3.2d.1; Mn grows with C, so
     C is found by inverting a table of phi Mn(C) (linear inverse; then raised where short).
-    `demand`: the beam's `moment_demand` at its stations, when already computed. The stations
+    The demand is the beam's `moment_demand` at its stations (`finished_basis`); the stations
     of the point loads are added, so the force each needs is taken at the load itself (I8.2c).
     """
-    x = stations(beam.span, beam.n_stations)
-    mu, ma = moment_envelope(beam, x) if demand is None else (demand.mu, demand.ma)
+    basis = finished_basis(beam)
+    x, mu, ma = basis.x, basis.demand.mu, basis.demand.ma
     demand = mu if beam.method == "LRFD" else ma
     top = float(demand.max())  # the maximum on the evaluation grid (evaluate_beam's critical station)
     if beam.point_loads:
         px = np.array([p.x for p in beam.point_loads])
-        mu, ma = moment_envelope(beam, px)
+        mu, ma = moment_envelope(beam, px, basis.loads)
         x = np.concatenate((x, px))
         demand = np.concatenate((demand, mu if beam.method == "LRFD" else ma))
         order = np.argsort(x, kind="stable")
         x, demand = x[order], demand[order]
-    lim = slab_limits(beam)
-    grid = np.linspace(0.0, lim.c_block, _C_GRID)
-    cap = available_strength(beam, composite_strength(beam, lim, grid).mn)
-    cap = np.maximum.accumulate(cap)
+    lim = basis.limits
+    grid, cap = _capacity_table(beam.shape, beam.fy, beam.slab.fc_ksi, lim.b_eff, beam.slab.total_thickness,
+                                lim.c_block, beam.method)
     c_req = np.interp(demand, cap, grid)
     low = available_strength(beam, composite_strength(beam, lim, c_req).mn) < demand * (1.0 - _TOL)
-    if np.any(low):  # where the chord undershoots, take the next tabulated force up
+    if low.any():  # where the chord undershoots, take the next tabulated force up
         c_req[low] = grid[np.minimum(np.searchsorted(cap, demand[low], side="left"), grid.size - 1)]
     short = demand > cap[-1] * (1.0 + _TOL)
     peak = np.flatnonzero(demand >= top * (1.0 - _TOL)) if top > 0.0 else np.array([x.size // 2])
     x_max = 0.5 * float(x[peak[0]] + x[peak[-1]])
     c_req[peak] = np.maximum(c_req[peak], MIN_COMPOSITE * lim.cf)
     return Need(x, demand, c_req, short, x_max)
+
+
+@lru_cache(maxsize=256)
+def _capacity_table(shape, fy: float, fc: float, b_eff: float, y_con: float, c_block: float,
+                    method: str) -> tuple[np.ndarray, np.ndarray]:
+    """Slab forces 0..c_block and the available strength with each (made non-decreasing), once per
+    section and method (read-only). AISC 360-22 I3.2a, via `engine.evaluate.composite_strength`."""
+    grid = np.linspace(0.0, c_block, _C_GRID)
+    mn = plastic_moment(np.minimum(grid, c_block), shape, fy, fc, b_eff, y_con).mn
+    cap = np.maximum.accumulate(method_strength(method, mn))
+    for values in (grid, cap):
+        values.flags.writeable = False
+    return grid, cap
 
 
 def half_needs(p: np.ndarray, xs: np.ndarray, c_req: np.ndarray) -> tuple[np.ndarray, float]:
@@ -89,12 +102,12 @@ def half_needs(p: np.ndarray, xs: np.ndarray, c_req: np.ndarray) -> tuple[np.nda
     need = np.zeros(p.size)
     after = j >= 0
     np.maximum.at(need, j[after], c_req[after])
-    before = float(c_req[~after].max()) if np.any(~after) else 0.0
+    before = float(c_req[~after].max()) if (~after).any() else 0.0
     return need, before
 
 
 def _meets(strength: np.ndarray, need: np.ndarray) -> bool:
-    return bool(np.all(np.cumsum(strength) >= need - _TOL * np.maximum(need, 1.0)))
+    return bool((np.cumsum(strength) >= need - _TOL * np.maximum(need, 1.0)).all())
 
 
 def level_arrangement(cap: np.ndarray, per_slot: np.ndarray, need: np.ndarray) -> np.ndarray | None:

@@ -11,10 +11,11 @@ by engine.statics.ponded_deflection, not with a fixed percentage.
 from __future__ import annotations
 
 from collections.abc import Sequence
+from functools import lru_cache
 
 import numpy as np
 
-from engine.statics import Load, UniformLoad, deflection_from_curvature, ponded_deflection
+from engine.statics import Load, deflection_rows, ponded_rows, shear_moment
 
 PIECES = 8  # uniform pieces that carry a known station load into ponded_deflection (1e-4 relative)
 
@@ -31,35 +32,45 @@ def line_load_effects(x: np.ndarray, q: np.ndarray) -> tuple[np.ndarray, np.ndar
     Statics: R_left = (1/L) int_0^L int_0^s q, V = R_left - int q, M = R_left x - int int q.
 
     q (kip/in, downward +) is given at the stations and taken linear between them; the integrals
-    are exact for that.
+    are exact for that. q may hold several loads as rows (..., x.size).
     """
-    h = np.diff(x)
-    q0, q1 = q[:-1], q[1:]
-    load = np.concatenate(([0.0], np.cumsum(0.5 * h * (q0 + q1))))
-    second = np.concatenate(([0.0], np.cumsum(h * load[:-1] + h * h * (q0 / 3.0 + q1 / 6.0))))
+    h = x[1:] - x[:-1]
+    q0, q1 = q[..., :-1], q[..., 1:]
+    load = np.zeros(q.shape)
+    np.cumsum(0.5 * h * (q0 + q1), axis=-1, out=load[..., 1:])
+    second = np.zeros(q.shape)
+    np.cumsum(h * load[..., :-1] + h * h * (q0 / 3.0 + q1 / 6.0), axis=-1, out=second[..., 1:])
     xs = x - x[0]
-    r_left = second[-1] / xs[-1]
+    r_left = second[..., -1:] / xs[-1]
     return r_left - load, r_left * xs - second
 
 
 def _pieces(x: np.ndarray, q: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
     """Uniform pieces with the same resultant as q over each of PIECES runs of stations."""
     nonzero = np.flatnonzero(q)
-    lo, hi = max(nonzero[0] - 1, 0), min(nonzero[-1] + 1, x.size - 1)
-    cuts = np.unique(np.round(np.linspace(lo, hi, PIECES + 1)).astype(int))
-    h = np.diff(x)
-    load = np.concatenate(([0.0], np.cumsum(0.5 * h * (q[:-1] + q[1:]))))
+    cuts = _cuts(max(int(nonzero[0]) - 1, 0), min(int(nonzero[-1]) + 1, x.size - 1))
+    h = x[1:] - x[:-1]
+    load = np.zeros(x.size)
+    np.cumsum(0.5 * h * (q[:-1] + q[1:]), out=load[1:])
     start, end = x[cuts[:-1]], x[cuts[1:]]
     return start, end, (load[cuts[1:]] - load[cuts[:-1]]) / (end - start)
 
 
-def _pieces_moment(x: np.ndarray, span: float, start: np.ndarray, end: np.ndarray, w: np.ndarray) -> np.ndarray:
-    """Moment (kip-in) of uniform loads w on [start, end] (AISC Manual Table 3-23 case 3, summed)."""
+@lru_cache(maxsize=256)
+def _cuts(lo: int, hi: int) -> np.ndarray:
+    """Station indices splitting lo..hi into PIECES runs (read-only)."""
+    cuts = np.unique(np.round(np.linspace(lo, hi, PIECES + 1)).astype(int))
+    cuts.flags.writeable = False
+    return cuts
+
+
+def _piece_moments(x: np.ndarray, span: float, start: np.ndarray, end: np.ndarray, w: np.ndarray) -> np.ndarray:
+    """Moment (kip-in) of each uniform load w on [start, end], one row per piece (AISC Manual
+    Table 3-23 case 3)."""
     length = end - start
     r_left = w * length * (span - 0.5 * (start + end)) / span
     loaded = np.clip(x[None, :] - start[:, None], 0.0, length[:, None])
-    moment = r_left[:, None] * x[None, :] - w[:, None] * loaded * (x[None, :] - start[:, None] - 0.5 * loaded)
-    return moment.sum(axis=0)
+    return r_left[:, None] * x[None, :] - w[:, None] * loaded * (x[None, :] - start[:, None] - 0.5 * loaded)
 
 
 def level_deflection(
@@ -73,13 +84,33 @@ def level_deflection(
     remainder (known less pieces) is added through its own deflection without ponding
     amplification: about 1e-4 of the deflection with 8 pieces (tests/test_construction_ponding.py).
     """
-    if not np.any(known):
-        return ponded_deflection(x, span, loads, ei, k)
-    start, end, w = _pieces(x, known)
-    pieces = [UniformLoad(float(wi), float(a), float(b)) for wi, a, b in zip(w, start, end) if wi != 0.0]
-    y = ponded_deflection(x, span, list(loads) + pieces, ei, k)
-    remainder = line_load_effects(x, known)[1] - _pieces_moment(x, span, start, end, w)
-    return y + deflection_from_curvature(x, remainder / ei)
+    return level_deflections(x, span, loads, np.asarray(known, dtype=float)[None, :], k, ei)[0]
+
+
+def level_deflections(
+    x: np.ndarray, span: float, loads: Sequence[Load], known: np.ndarray, k: np.ndarray, ei: np.ndarray,
+    moment: np.ndarray | None = None,
+) -> np.ndarray:
+    """`level_deflection` for several rows of known station load (rows, x.size) on the same
+    beam, loads and ponding stiffness: one solve of the ponding operator for every row.
+    `moment`: the moment of `loads` at x when the caller has it.
+    REFERENCE.md section 2; linear ponding equilibrium solved by engine.statics.ponded_rows."""
+    ei = np.broadcast_to(np.asarray(ei, dtype=float), x.shape)
+    moment = shear_moment(x, span, loads)[1] if moment is None else moment
+    rows = np.repeat(moment[None, :], len(known), axis=0)
+    active = [i for i, row in enumerate(known) if row.any()]
+    if active:
+        remainder = line_load_effects(x, known[active])[1]
+        for j, i in enumerate(active):
+            start, end, w = _pieces(x, known[i])
+            each = _piece_moments(x, span, start, end, w)
+            for piece in each[w != 0.0]:  # the pieces as uniform loads after the step's own, in order
+                rows[i] += piece
+            remainder[j] -= each.sum(axis=0)
+    y = ponded_rows(x, span, rows, 1.0 / ei, np.broadcast_to(np.asarray(k, dtype=float), x.shape))
+    if active:
+        y[active] += deflection_rows(x, remainder / ei)
+    return y
 
 
 def first_mode_ratio(k_max: float, span: float, ei_min: float) -> float:

@@ -49,10 +49,7 @@ class Step:
     live: tuple[Load, ...]
     placed: np.ndarray
     k: np.ndarray
-
-    @property
-    def level(self) -> bool:
-        return bool(np.any(self.k > 0.0))
+    level: bool  # concrete ponds into the sag here: k > 0 somewhere
 
 
 @dataclass(frozen=True, slots=True)
@@ -82,6 +79,12 @@ class Sections:
 
     ei: np.ndarray
     stress_per_moment: np.ndarray
+
+
+def first_difference(a: Sections, b: Sections) -> int:
+    """First step whose section differs between `a` and `b` (the step count if none does)."""
+    same = np.all(a.ei == b.ei, axis=1) & np.all(a.stress_per_moment == b.stress_per_moment, axis=1)
+    return int(np.argmin(same)) if not same.all() else same.size
 
 
 def side_widths(beam: BeamInput) -> tuple[float, float]:
@@ -155,7 +158,7 @@ def pour_plan(beam: BeamInput) -> PourPlan:
     erection_w = plf_to_kip_per_in(beam.shape.weight_plf) + psf_to_kip_per_in(deck_psf, left + right)
     zeros = np.zeros_like(x)
     steps = [Step("steel and deck", "erection", 0.0, span, "both", stages[order[0]].day, "constant-thickness",
-                  (UniformLoad(erection_w),), (), np.zeros((2, x.size)), zeros)]
+                  (UniformLoad(erection_w),), (), np.zeros((2, x.size)), zeros, False)]
     unit_weight = beam.slab.concrete_pcf * KIP_PER_IN3_PER_PCF
     wet_psf = beam.slab.wet_weight_psf()
     taken: set[int] = set()
@@ -181,7 +184,7 @@ def pour_plan(beam: BeamInput) -> PourPlan:
         screed = st.screed or con.screed
         k = unit_weight * (wl + wr) * share if screed == "level" else zeros
         steps.append(Step(st.name, "pour", st.start, end, st.side, st.day, screed, tuple(dead), tuple(live),
-                          placed, k))
+                          placed, k, bool((k > 0.0).any())))
     return PourPlan(x, span, tuple(steps))
 
 

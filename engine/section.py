@@ -8,12 +8,14 @@ the point considered and each point of zero moment; I8.2c for concentrated loads
 from __future__ import annotations
 
 from dataclasses import dataclass
+from functools import lru_cache
 
 import numpy as np
 
 from engine.aisc360.anchors import qn_stud, rg_rp, stud_area, emid_ht
 from engine.aisc360.concrete import ec
-from engine.model import BeamInput
+from engine.deck import Slab
+from engine.model import BeamInput, StudSpec
 
 
 @dataclass(frozen=True, slots=True)
@@ -37,25 +39,46 @@ class StudGroups:
 def stud_qn(beam: BeamInput, studs_in_rib: np.ndarray, position: np.ndarray | str | None = None) -> np.ndarray:
     """Strength of one stud in a rib holding `studs_in_rib` studs, for this beam's deck.
 
-    AISC 360-22 Eq. I8-1 with Rg, Rp per I8.2a; e_mid-ht from the rib geometry.
+    AISC 360-22 Eq. I8-1 with Rg, Rp per I8.2a; e_mid-ht from the rib geometry. Q_n depends only
+    on the count (R_g stops changing at 3) and the position, so it is looked up per beam.
     """
-    slab = beam.slab
+    n = np.asarray(studs_in_rib)
+    if (n < 0).any():
+        raise ValueError(f"studs in a rib {studs_in_rib} must be >= 0")
+    words = np.asarray(beam.studs.position if position is None else position)
+    if beam.slab.deck is None or beam.orientation == "parallel":
+        words = np.asarray("center")  # R_p does not depend on the position there
+    index = np.minimum(n, 3).astype(int)
+    if words.ndim == 0:
+        return _qn_by_count(beam.slab, beam.orientation, beam.studs, str(words))[index]
+    out = np.empty(np.broadcast_shapes(index.shape, words.shape))
+    index, words = np.broadcast_arrays(index, words)
+    for word in np.unique(words).tolist():
+        here = words == word
+        out[here] = _qn_by_count(beam.slab, beam.orientation, beam.studs, word)[index[here]]
+    return out
+
+
+@lru_cache(maxsize=256)
+def _qn_by_count(slab: Slab, orientation: str, spec: StudSpec, position: str) -> np.ndarray:
+    """Q_n of one stud in a rib holding 0, 1, 2, 3 (or more) studs at `position` (kip).
+    AISC 360-22 Eq. I8-1 with Rg, Rp per I8.2a; e_mid-ht from the rib geometry."""
     deck = slab.deck
-    spec = beam.studs
     asa = stud_area(spec.diameter)
     e_c = ec(slab.concrete_pcf, slab.fc_ksi)
-    position = spec.position if position is None else position
-    n = np.asarray(studs_in_rib)
+    n = np.arange(4)
     if deck is None:
         rg, rp = rg_rp("none", n)
-    elif beam.orientation == "parallel":
+    elif orientation == "parallel":
         rg, rp = rg_rp("parallel", n, wr_over_hr=deck.rib_average_width / deck.rib_height)
     else:
         # a stud cannot stand further off the rib centreline than the rib bottom allows
         offset = min(deck.stud_offset, max(0.0, 0.5 * (deck.rib_bottom_width - spec.diameter)))
         e = emid_ht(deck.rib_mid_height_width, offset, spec.diameter, position)
         rg, rp = rg_rp("perpendicular", n, emid_ht=e)
-    return qn_stud(asa, slab.fc_ksi, e_c, spec.fu, rg, rp)
+    qn = qn_stud(asa, slab.fc_ksi, e_c, spec.fu, rg, rp)
+    qn.flags.writeable = False
+    return qn
 
 
 def slab_force(x: np.ndarray, groups: StudGroups, cap: float) -> tuple[np.ndarray, np.ndarray, np.ndarray]:

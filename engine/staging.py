@@ -12,8 +12,8 @@ from dataclasses import dataclass, fields
 import numpy as np
 
 from engine.pours import PourPlan, Sections
-from engine.ponding import camber_shape, level_deflection, line_load_effects
-from engine.statics import deflection_from_curvature, shear_moment
+from engine.ponding import camber_shape, level_deflections, line_load_effects
+from engine.statics import deflection_rows, grouped_shear_moment
 
 
 @dataclass(frozen=True, slots=True)
@@ -62,34 +62,90 @@ def run_stages(plan: PourPlan, sections: Sections, camber: float = 0.0, ponding:
 
     Deflection by double integration of M/EI(x) (engine.statics); statics of a simple span.
     """
+    return run_stages_at(plan, sections, (camber,), ponding)[0]
+
+
+@dataclass(frozen=True, slots=True)
+class StepEffects:
+    """V and M (kip, kip-in; one row per step, one column per station) of each step's lasting
+    loads (`dead_*`) and construction live load (`live_*`), without ponding."""
+
+    dead_shear: np.ndarray
+    dead_moment: np.ndarray
+    live_shear: np.ndarray
+    live_moment: np.ndarray
+
+
+def step_effects(plan: PourPlan) -> StepEffects:
+    """Shear and moment of every step's loads, at the plan's stations. Statics of a simple span."""
+    count = len(plan.steps)
+    shear, moment = grouped_shear_moment(plan.x, plan.span, [step.dead for step in plan.steps]
+                                         + [step.live for step in plan.steps])
+    return StepEffects(shear[:count], moment[:count], shear[count:], moment[count:])
+
+
+def run_stages_at(plan: PourPlan, sections: Sections, cambers: tuple[float, ...], ponding: bool = True,
+                  earlier: StagedRun | None = None, start: int = 0,
+                  effects: StepEffects | None = None) -> tuple[StagedRun, ...]:
+    """`run_stages` at each of `cambers` in one pass: each level-screeded step solves its ponding
+    operator once for every camber. Steps before `start` are taken from `earlier`, a run of the
+    same plan at the same (single) camber whose sections agree with `sections` up to there.
+    `effects`: the plan's `step_effects`, when the caller has them.
+
+    Deflection by double integration of M/EI(x) (engine.statics); statics of a simple span.
+    """
     x, span = plan.x, plan.span
-    count, n = len(plan.steps), x.size
-    rows = {name: np.zeros((count, n)) for name in ("dead", "live", "dead_moment", "live_moment", "stress")}
-    ends = {name: np.zeros((count, 2)) for name in ("dead_shear", "live_shear")}
-    ponded = np.zeros(count)
+    effects = step_effects(plan) if effects is None else effects
+    count, n, runs = len(plan.steps), x.size, len(cambers)
+    dead, dead_moment, stress = np.zeros((runs, count, n)), np.zeros((runs, count, n)), np.zeros((runs, count, n))
+    dead_shear, ponded = np.zeros((runs, count, 2)), np.zeros((runs, count))
+    live, live_moment, live_shear = np.zeros((count, n)), np.zeros((count, n)), np.zeros((count, 2))
     shape = camber_shape(x, span)
-    so_far = np.zeros(n)
-    for s, step in enumerate(plan.steps):
-        ei = sections.ei[s]
-        shear, moment = shear_moment(x, span, step.dead) if step.dead else (np.zeros(n), np.zeros(n))
+    lift = np.asarray(cambers, dtype=float)[:, None] * shape
+    so_far = np.zeros((runs, n))
+    if earlier is not None and start > 0:
+        for mine, theirs in ((dead, earlier.dead), (dead_moment, earlier.dead_moment), (stress, earlier.stress),
+                             (dead_shear, earlier.dead_shear), (ponded, earlier.ponded)):
+            mine[:, :start] = theirs[:start]
+        for mine, theirs in ((live, earlier.live), (live_moment, earlier.live_moment),
+                             (live_shear, earlier.live_shear)):
+            mine[:start] = theirs[:start]
+        for s in range(start):
+            so_far = so_far + earlier.dead[s]
+    first = start if earlier is not None else 0
+    ei = sections.ei[first:]
+    plain = deflection_rows(x, effects.dead_moment[first:] / ei)  # every step at constant thickness
+    dead_moment[:, first:] = effects.dead_moment[first:]
+    dead_shear[:, first:, 0], dead_shear[:, first:, 1] = effects.dead_shear[first:, 0], effects.dead_shear[first:, -1]
+    with_live = [s for s in range(first, count) if plan.steps[s].live]
+    if with_live:
+        live[with_live] = deflection_rows(x, effects.live_moment[with_live] / sections.ei[with_live])
+        live_moment[with_live] = effects.live_moment[with_live]
+        live_shear[with_live, 0], live_shear[with_live, 1] = (effects.live_shear[with_live, 0],
+                                                              effects.live_shear[with_live, -1])
+    for s in range(first, count):
+        step = plan.steps[s]
         if ponding and step.level:
-            known = step.k * (so_far - camber * shape)
-            y = level_deflection(x, span, step.dead, known, step.k, ei)
+            known = step.k * (so_far - lift)
+            y = level_deflections(x, span, step.dead, known, step.k, sections.ei[s], effects.dead_moment[s])
             extra = known + step.k * y
             extra_shear, extra_moment = line_load_effects(x, extra)
-            shear, moment = shear + extra_shear, moment + extra_moment
-            ponded[s] = float(np.sum(0.5 * np.diff(x) * (extra[:-1] + extra[1:])))
+            shear, moment = effects.dead_shear[s] + extra_shear, effects.dead_moment[s] + extra_moment
+            ponded[:, s] = np.sum(0.5 * np.diff(x) * (extra[:, :-1] + extra[:, 1:]), axis=1)
+            dead_moment[:, s] = moment
+            dead_shear[:, s, 0], dead_shear[:, s, 1] = shear[:, 0], shear[:, -1]
         else:
-            y = deflection_from_curvature(x, moment / ei)
-        rows["dead"][s], rows["dead_moment"][s] = y, moment
-        rows["stress"][s] = moment * sections.stress_per_moment[s]
-        ends["dead_shear"][s] = shear[0], shear[-1]
-        if step.live:
-            live_shear, live_moment = shear_moment(x, span, step.live)
-            rows["live"][s] = deflection_from_curvature(x, live_moment / ei)
-            rows["live_moment"][s] = live_moment
-            ends["live_shear"][s] = live_shear[0], live_shear[-1]
+            y = plain[s - first]
+        dead[:, s] = y
         so_far = so_far + y
-    return StagedRun(dead=rows["dead"], live=rows["live"], dead_moment=rows["dead_moment"],
-                     live_moment=rows["live_moment"], dead_shear=ends["dead_shear"],
-                     live_shear=ends["live_shear"], stress=rows["stress"], ponded=ponded)
+    stress[:, first:] = dead_moment[:, first:] * sections.stress_per_moment[first:]
+    return tuple(StagedRun(dead=dead[i], live=live, dead_moment=dead_moment[i], live_moment=live_moment,
+                           dead_shear=dead_shear[i], live_shear=live_shear, stress=stress[i], ponded=ponded[i])
+                 for i in range(runs))
+
+
+def constant_thickness_total(plan: PourPlan, sections: Sections, effects: StepEffects | None = None) -> np.ndarray:
+    """`run_stages(plan, sections, ponding=False).total`: every step at constant thickness.
+    Deflection by double integration of M/EI(x) (engine.statics); statics of a simple span."""
+    effects = step_effects(plan) if effects is None else effects
+    return deflection_rows(plan.x, effects.dead_moment / sections.ei).sum(axis=0)

@@ -104,25 +104,47 @@ def reactions(span: float, loads: Iterable[Load]) -> tuple[float, float]:
     return left, right
 
 
-def _shear_moment(
-    x: np.ndarray, span: float, loads: tuple[Load, ...], right_side: bool
-) -> tuple[np.ndarray, np.ndarray]:
-    shear = np.zeros_like(x)
-    moment = np.zeros_like(x)
-    for load in loads:
-        if isinstance(load, UniformLoad):
-            a, b = _span_of(load, span)
-            total = load.w * (b - a)
-            r_left = total * (span - 0.5 * (a + b)) / span
-            loaded = np.clip(x - a, 0.0, b - a)  # loaded length left of x
-            shear += r_left - load.w * loaded
-            moment += r_left * x - load.w * loaded * (x - a - 0.5 * loaded)
-        else:
-            c = min(load.x, span)
-            r_left = load.p * (span - c) / span
-            past = x >= c if right_side else x > c
-            shear += r_left - load.p * past
-            moment += r_left * x - load.p * np.maximum(x - c, 0.0)
+def _effects(
+    x: np.ndarray, span: float, loads: tuple[Load, ...], right_side: bool | np.ndarray,
+    factors: np.ndarray | None = None, with_shear: bool = True,
+) -> tuple[np.ndarray | None, np.ndarray]:
+    """V and M (rows, x.size) of checked loads; row r scales load j by factors[r, j] (one row of
+    the loads as given when factors is None; V None unless `with_shear`). V is taken just right
+    of a point load where `right_side` (True, False or per station), else just left of it. The
+    loads are evaluated together and summed in their order, so a row equals the loop over the
+    loads it replaces."""
+    rows = 1 if factors is None else len(factors)
+    shear = np.zeros((rows, x.size)) if with_shear else None
+    moment = np.zeros((rows, x.size))
+    uniform = [j for j, load in enumerate(loads) if isinstance(load, UniformLoad)]
+    point = [j for j, load in enumerate(loads) if not isinstance(load, UniformLoad)]
+    parts: dict[int, tuple[np.ndarray | None, np.ndarray]] = {}
+    if uniform:
+        ab = np.array([_span_of(loads[j], span) for j in uniform])
+        a, b = ab[:, :1], ab[:, 1:]
+        w = np.array([loads[j].w for j in uniform])
+        w = (w[None, :] if factors is None else w * factors[:, uniform])[:, :, None]
+        r_left = w * (b - a) * (span - 0.5 * (a + b)) / span
+        loaded = np.minimum(np.maximum(x - a, 0.0), b - a)  # loaded length left of x
+        wl = w * loaded
+        v = r_left - wl if with_shear else None
+        m = r_left * x - wl * (x - a - 0.5 * loaded)
+        parts.update((j, (None if v is None else v[:, i], m[:, i])) for i, j in enumerate(uniform))
+    if point:
+        c = np.array([min(loads[j].x, span) for j in point])[:, None]
+        p = np.array([loads[j].p for j in point])
+        p = (p[None, :] if factors is None else p * factors[:, point])[:, :, None]
+        r_left = p * (span - c) / span
+        past = np.where(right_side, x >= c, x > c) if isinstance(right_side, np.ndarray) else (
+            x >= c if right_side else x > c)
+        v = r_left - p * past if with_shear else None
+        m = r_left * x - p * np.maximum(x - c, 0.0)
+        parts.update((j, (None if v is None else v[:, i], m[:, i])) for i, j in enumerate(point))
+    for j in range(len(loads)):
+        v, m = parts[j]
+        if shear is not None:
+            shear += v
+        moment += m
     return shear, moment
 
 
@@ -132,7 +154,31 @@ def shear_moment(x: np.ndarray, span: float, loads: Iterable[Load]) -> tuple[np.
     Statics of a simple beam, closed forms of AISC Manual Table 3-23 (simple beam diagrams).
     """
     x = np.asarray(x, dtype=float)
-    return _shear_moment(x, span, _check_loads(span, loads), right_side=True)
+    shear, moment = _effects(x, span, _check_loads(span, loads), right_side=True)
+    return shear[0], moment[0]
+
+
+def grouped_shear_moment(x: np.ndarray, span: float, groups) -> tuple[np.ndarray, np.ndarray]:
+    """V and M (kip, kip-in; one row per group of loads) at x, each row as `shear_moment` of that
+    group alone. Statics of a simple beam (AISC Manual Table 3-23), superposed load by load."""
+    loads = _check_loads(span, [load for group in groups for load in group])
+    factors = np.zeros((len(groups), len(loads)))
+    first = 0
+    for row, group in enumerate(groups):
+        factors[row, first:first + len(group)] = 1.0
+        first += len(group)
+    shear, moment = _effects(np.asarray(x, dtype=float), span, loads, True, factors)
+    return shear, moment
+
+
+def factored_moment(x: np.ndarray, span: float, loads: Iterable[Load], factors) -> np.ndarray:
+    """M (kip-in, rows x stations) of load combinations: row r scales load j by factors[r][j].
+
+    Statics of a simple beam (AISC Manual Table 3-23), superposed load by load.
+    """
+    loads = _check_loads(span, loads)
+    factors = np.atleast_2d(np.asarray(factors, dtype=float))
+    return _effects(np.asarray(x, dtype=float), span, loads, True, factors, with_shear=False)[1]
 
 
 def max_abs_shear(span: float, loads: Iterable[Load]) -> float:
@@ -140,14 +186,24 @@ def max_abs_shear(span: float, loads: Iterable[Load]) -> float:
 
     V is piecewise linear, so its extremes sit at supports and load limits (statics).
     """
+    return float(factored_max_abs_shear(span, loads, None)[0])
+
+
+def factored_max_abs_shear(span: float, loads: Iterable[Load], factors) -> np.ndarray:
+    """Largest |V| (kip) of each load combination (row r scales load j by factors[r][j];
+    None: the loads as given), both sides of every point load included.
+
+    V is piecewise linear, so its extremes sit at supports and load limits (statics).
+    """
     loads = _check_loads(span, loads)
+    if factors is not None:
+        factors = np.atleast_2d(np.asarray(factors, dtype=float))
     points = [0.0, span]
     for load in loads:
         points.extend(_span_of(load, span) if isinstance(load, UniformLoad) else (min(load.x, span),))
-    xs = np.asarray(points)
-    left, _ = _shear_moment(xs, span, loads, right_side=False)
-    right, _ = _shear_moment(xs, span, loads, right_side=True)
-    return float(max(np.abs(left).max(), np.abs(right).max()))
+    xs = np.asarray(points + points)
+    both, _ = _effects(xs, span, loads, np.arange(xs.size) >= len(points), factors)  # left, then right
+    return np.abs(both).max(axis=1)
 
 
 def _check_grid(x: np.ndarray, span: float | None = None) -> np.ndarray:
@@ -182,17 +238,27 @@ def deflection_from_curvature(x: np.ndarray, curvature: np.ndarray) -> np.ndarra
     kappa = np.asarray(curvature, dtype=float)
     if kappa.shape != x.shape:
         raise ValueError(f"curvature shape {kappa.shape} differs from stations {x.shape}")
-    h = np.diff(x)
+    return deflection_rows(x, kappa)
+
+
+def deflection_rows(x: np.ndarray, curvature: np.ndarray) -> np.ndarray:
+    """`deflection_from_curvature` for curvature of shape (..., x.size), without input checks
+    (for stations from `stations`). Each row is integrated exactly as that function does.
+
+    Euler-Bernoulli y'' = -M/EI integrated exactly for curvature linear between stations.
+    """
+    h = x[1:] - x[:-1]
+    k0, k1 = curvature[..., :-1], curvature[..., 1:]
     # slope with zero start slope: trapezoid of linear curvature
-    slope = np.empty_like(x)
-    slope[0] = 0.0
-    np.cumsum(-0.5 * h * (kappa[:-1] + kappa[1:]), out=slope[1:])
+    slope = np.empty(curvature.shape)
+    slope[..., 0] = 0.0
+    np.cumsum(-0.5 * h * (k0 + k1), axis=-1, out=slope[..., 1:])
     # deflection: exact double integral of a linear curvature over each interval
-    steps = h * slope[:-1] - h * h * (kappa[:-1] / 3.0 + kappa[1:] / 6.0)
-    y = np.empty_like(x)
-    y[0] = 0.0
-    np.cumsum(steps, out=y[1:])
-    return y - y[-1] * (x - x[0]) / (x[-1] - x[0])
+    steps = h * slope[..., :-1] - h * h * (k0 / 3.0 + k1 / 6.0)
+    y = np.empty(curvature.shape)
+    y[..., 0] = 0.0
+    np.cumsum(steps, axis=-1, out=y[..., 1:])
+    return y - y[..., -1:] * (x - x[0]) / (x[-1] - x[0])
 
 
 def deflection(
@@ -204,14 +270,15 @@ def deflection(
     """
     x = _check_grid(x, span)
     ei = _per_station(ei, x, "EI", positive=True)
-    _, moment = _shear_moment(x, span, _check_loads(span, loads), right_side=True)
-    return deflection_from_curvature(x, moment / ei)
+    _, moment = _effects(x, span, _check_loads(span, loads), True, with_shear=False)
+    return deflection_rows(x, moment[0] / ei)
 
 
-def _transfer_matrices(
-    x: np.ndarray, flex: np.ndarray, k: np.ndarray, kappa: np.ndarray, kappa_probe: np.ndarray
-) -> np.ndarray:
-    """Station-to-station maps of (m, v, y, slope, 1, 1) for load k*y, linear between stations.
+def _transfer_matrices(x: np.ndarray, flex: np.ndarray, k: np.ndarray, kappa: np.ndarray,
+                       block: int) -> np.ndarray:
+    """Station-to-station maps of (m, v, y, slope, 1, ...) for load k*y, linear between stations,
+    with one constant state per row of load curvature `kappa` (rows, x.size); identity maps pad
+    them to a whole number of blocks of `block` steps.
 
     The same exact-for-linear integration as deflection_from_curvature, applied twice.
     """
@@ -220,16 +287,18 @@ def _transfer_matrices(
     f0, f1, k0, k1 = flex[:-1], flex[1:], k[:-1], k[1:]
     alpha, gamma = h2 * k1 / 6.0, h2 * f1 / 6.0
     det = 1.0 - alpha * gamma
-    if np.any(det <= 0.0):
+    if (det <= 0.0).any():
         raise PondingInstability("deflection-dependent load is too stiff for the station spacing")
+    dim = 4 + kappa.shape[0]
     # rows before coupling: m_next + alpha*y_next = row_m . z,  y_next + gamma*m_next = row_y . z
-    row_m = np.zeros((h.size, 6))
+    row_m = np.zeros((h.size, dim))
     row_m[:, 0], row_m[:, 1], row_m[:, 2] = 1.0, h, -h2 * k0 / 3.0
-    row_y = np.zeros((h.size, 6))
+    row_y = np.zeros((h.size, dim))
     row_y[:, 0], row_y[:, 2], row_y[:, 3] = -h2 * f0 / 3.0, 1.0, h
-    row_y[:, 4] = -h2 * (kappa[:-1] / 3.0 + kappa[1:] / 6.0)
-    row_y[:, 5] = -h2 * (kappa_probe[:-1] / 3.0 + kappa_probe[1:] / 6.0)
-    maps = np.zeros((h.size, 6, 6))
+    row_y[:, 4:] = (-h2 * (kappa[:, :-1] / 3.0 + kappa[:, 1:] / 6.0)).T
+    padded = np.zeros((-(-h.size // block) * block, dim, dim))
+    padded[h.size:] = np.eye(dim)
+    maps = padded[:h.size]
     maps[:, 0] = (row_m - alpha[:, None] * row_y) / det[:, None]
     maps[:, 2] = (row_y - gamma[:, None] * row_m) / det[:, None]
     maps[:, 1] = -0.5 * (h * k1)[:, None] * maps[:, 2]
@@ -238,27 +307,27 @@ def _transfer_matrices(
     maps[:, 3] = -0.5 * (h * f1)[:, None] * maps[:, 0]
     maps[:, 3, 0] -= 0.5 * h * f0
     maps[:, 3, 3] += 1.0
-    maps[:, 3, 4] -= 0.5 * h * (kappa[:-1] + kappa[1:])
-    maps[:, 3, 5] -= 0.5 * h * (kappa_probe[:-1] + kappa_probe[1:])
-    maps[:, 4, 4] = maps[:, 5, 5] = 1.0
-    return maps
+    maps[:, 3, 4:] -= (0.5 * h * (kappa[:, :-1] + kappa[:, 1:])).T
+    const = np.arange(4, dim)
+    maps[:, const, const] = 1.0
+    return padded
 
 
-def _prefix_states(steps: np.ndarray, columns: list[int], block: int) -> tuple[np.ndarray, np.ndarray]:
-    """Deflection row at every station and the full far-end state, for unit starts in `columns`.
+def _prefix_states(padded: np.ndarray, count: int, columns: list[int],
+                   block: int) -> tuple[np.ndarray, np.ndarray]:
+    """Deflection row at every station and the full far-end state, for unit starts in `columns`,
+    of the first `count` maps of `padded` (whole blocks of `block` maps).
 
     Blocked prefix product of the maps: sequential inside blocks (vectorised over blocks),
     then a doubling scan over the block totals.
     """
-    count, dim = steps.shape[0], steps.shape[1]
-    blocks = -(-count // block)
-    padded = np.broadcast_to(np.eye(dim), (blocks * block, dim, dim)).copy()
-    padded[:count] = steps
-    padded = padded.reshape(blocks, block, dim, dim).transpose(1, 0, 2, 3).copy()
-    inner = np.empty_like(padded)
-    inner[0] = padded[0]
+    dim = padded.shape[1]
+    blocks = padded.shape[0] // block
+    by_block = padded.reshape(blocks, block, dim, dim)
+    inner = np.empty((block, blocks, dim, dim))
+    inner[0] = by_block[:, 0]
     for j in range(1, block):
-        np.matmul(padded[j], inner[j - 1], out=inner[j])
+        np.matmul(by_block[:, j], inner[j - 1], out=inner[j])
     totals = inner[-1].copy()
     shift = 1
     while shift < blocks:
@@ -290,26 +359,37 @@ def ponded_deflection(
     x = _check_grid(x, span)
     flex = 1.0 / _per_station(ei, x, "EI", positive=True)
     k = _per_station(k, x, "ponding stiffness k", positive=False)
-    _, moment = _shear_moment(x, span, _check_loads(span, loads), right_side=True)
+    _, moment = _effects(x, span, _check_loads(span, loads), True, with_shear=False)
+    return ponded_rows(x, span, moment, flex, k)[0]
+
+
+def ponded_rows(x: np.ndarray, span: float, moments: np.ndarray, flex: np.ndarray, k: np.ndarray) -> np.ndarray:
+    """`ponded_deflection` for several load cases on one operator, without input checks: rows of
+    moments M_0 (kip-in at stations `x` from `stations`), flex = 1/EI and k per station.
+
+    Linear ponding equilibrium (REFERENCE.md §2, Closed form, D): one transfer-matrix sweep carries
+    every load case and the stability probe (see `ponded_deflection`).
+    """
     probe_moment = 0.5 * x * (span - x)  # unit uniform load, kip-in per kip/in
-    steps = _transfer_matrices(x, flex, k, moment * flex, probe_moment * flex)
-    # unknown start values: shear and slope; unit columns: base load and probe load
-    deflections, end = _prefix_states(steps, [1, 3, 4, 5], _BLOCK)
+    kappa = np.concatenate((moments * flex, (probe_moment * flex)[None, :]))
+    steps = _transfer_matrices(x, flex, k, kappa, _BLOCK)
+    # unknown start values: shear and slope; unit columns: each load case, then the probe
+    deflections, end = _prefix_states(steps, x.size - 1, [1, 3, *range(4, 4 + kappa.shape[0])], _BLOCK)
     ends = end[[0, 2]]  # moment and deflection at the far support must vanish
-    if not np.all(np.isfinite(deflections)) or not np.all(np.isfinite(ends)):
+    if not np.isfinite(deflections).all() or not np.isfinite(ends).all():
         raise PondingInstability("ponding load makes the beam singular (critical stiffness)")
     try:
         starts = np.linalg.solve(ends[:, :2], -ends[:, 2:])
     except np.linalg.LinAlgError as exc:
         raise PondingInstability("ponding load makes the beam singular (critical stiffness)") from exc
-    y_base, y_probe = (deflections[:, :2] @ starts + deflections[:, 2:]).T
+    solved = np.ascontiguousarray((deflections[:, :2] @ starts + deflections[:, 2:]).T)
+    y, y_probe = solved[:-1], solved[-1]
     inside = (x > x[0]) & (x < x[-1])
-    if not (np.all(np.isfinite(y_base)) and np.all(y_probe[inside] > 0.0)):
+    if not (np.isfinite(y).all() and (y_probe[inside] > 0.0).all()):
         crit = float(np.max(k) * span**4 * np.max(flex) / math.pi**4)
         raise PondingInstability(
             "ponding is unstable: the deflection-dependent load exceeds the beam's stiffness "
             f"(first-mode ratio k L^4/(pi^4 EI) with the largest k and least EI = {crit:.3g})"
         )
-    y_base = y_base.copy()
-    y_base[0] = y_base[-1] = 0.0
-    return y_base
+    y[:, 0] = y[:, -1] = 0.0
+    return y

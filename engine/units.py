@@ -7,6 +7,7 @@ from __future__ import annotations
 
 import math
 import re
+from functools import lru_cache
 
 __all__ = ["UnitError", "parse_length", "format_ft_in", "format_inches", "round_to_sixteenth"]
 
@@ -68,6 +69,12 @@ def parse_length(text: str) -> float:
     """
     if not isinstance(text, str):
         raise _fail(text, f"expected text, got {type(text).__name__}; {_NEEDS_UNIT}")
+    return _parse_text(text)
+
+
+@lru_cache(maxsize=1024)
+def _parse_text(text: str) -> float:
+    """`parse_length` of a string (a job repeats the same few lengths many times)."""
     cleaned = text.translate(_QUOTES).strip()
     if not cleaned:
         raise _fail(text, f"it is empty; {_NEEDS_UNIT}")

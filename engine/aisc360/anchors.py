@@ -25,7 +25,7 @@ def stud_area(d):
     AISC 360-22 I8.2a (A_sa in Eq. I8-1).
     """
     d = np.asarray(d, dtype=float)
-    if np.any(d <= 0.0):
+    if (d <= 0.0).any():
         raise ValueError(f"stud diameter {d} in must be > 0")
     return np.pi * d**2 / 4.0
 
@@ -39,12 +39,15 @@ def emid_ht(w_mid, offset, d, position):
     stud axis from the rib centreline.
     """
     words = np.asarray(position)
-    unknown = set(np.unique(words).tolist()) - set(POSITION_SIGN)
+    unknown = ({words.item()} if words.ndim == 0 else set(np.unique(words).tolist())) - set(POSITION_SIGN)
     if unknown:
         raise ValueError(f"stud position {sorted(unknown)} must be one of {sorted(POSITION_SIGN)}")
-    sign = np.vectorize(POSITION_SIGN.__getitem__, otypes=[float])(words)
+    if words.ndim == 0:
+        sign = POSITION_SIGN[words.item()]
+    else:
+        sign = np.vectorize(POSITION_SIGN.__getitem__, otypes=[float])(words)
     e = np.asarray(w_mid, dtype=float) / 2.0 + sign * np.asarray(offset, dtype=float) - np.asarray(d, dtype=float) / 2.0
-    if np.any(e < 0.0):
+    if (e < 0.0).any():
         raise ValueError(
             f"stud at offset {offset} in does not fit a rib {w_mid} in wide at mid-height (e_mid-ht < 0)"
         )
@@ -65,7 +68,7 @@ def rg_rp(deck, studs_in_rib, *, emid_ht=None, wr_over_hr=None):
     if deck not in DECK_KINDS:
         raise ValueError(f"deck {deck!r} must be one of {DECK_KINDS}")
     n = np.asarray(studs_in_rib)
-    if np.any(n < 0):
+    if (n < 0).any():
         raise ValueError(f"studs in a rib {studs_in_rib} must be >= 0")
     if deck == "none":
         return np.ones(n.shape), np.full(n.shape, _RP_WELDED_OR_PARALLEL)

@@ -22,7 +22,7 @@ def effective_width(span, left, right):
     passes for each side half the distance to the adjacent beam or the distance to the slab edge.
     """
     span, left, right = (np.asarray(v, dtype=float) for v in (span, left, right))
-    if np.any(span <= 0.0) or np.any(left < 0.0) or np.any(right < 0.0):
+    if (span <= 0.0).any() or (left < 0.0).any() or (right < 0.0).any():
         raise ValueError(f"span {span} in must be > 0 and side distances {left}, {right} in >= 0")
     return np.minimum(span / 8.0, left), np.minimum(span / 8.0, right)
 
@@ -83,7 +83,7 @@ def plastic_moment(c, shape, fy, fc, b_eff, y_con) -> PlasticMoment:
     A_s F_y. C = 0 gives the plastic moment of the bare steel.
     """
     c = np.asarray(c, dtype=float)
-    if np.any(c < 0.0):
+    if (c < 0.0).any():
         raise ValueError(f"slab force {c[c < 0.0]} kip must be >= 0")
     if fy <= 0.0 or fc <= 0.0 or b_eff <= 0.0 or y_con <= 0.0:
         raise ValueError(f"Fy {fy}, f'c {fc}, b_eff {b_eff}, y_con {y_con} must all be > 0")
@@ -122,7 +122,7 @@ def transformed_inertia(shape, b_eff, n, t_c, y_con):
     ignored (cracked) and the compression depth x solves (b/n) x^2/2 = A_s (H - d/2).
     """
     b_eff, n, t_c, y_con = (np.asarray(v, dtype=float) for v in (b_eff, n, t_c, y_con))
-    if np.any(b_eff <= 0.0) or np.any(n <= 0.0) or np.any(t_c <= 0.0) or np.any(t_c > y_con):
+    if (b_eff <= 0.0).any() or (n <= 0.0).any() or (t_c <= 0.0).any() or (t_c > y_con).any():
         raise ValueError(f"need b_eff {b_eff} > 0, n {n} > 0 and 0 < t_c {t_c} <= y_con {y_con} in")
     area, d = shape.area, shape.d
     w = b_eff / n
@@ -143,7 +143,7 @@ def lower_bound_ena(shape, sum_qn, fy, y_con, a):
     [A_s d3 + (sum Q_n/F_y)(2 d3 + d1)] / (A_s + sum Q_n/F_y), d1 = y_con - a/2, d3 = d/2.
     """
     q = np.asarray(sum_qn, dtype=float) / fy
-    if np.any(q < 0.0):
+    if (q < 0.0).any():
         raise ValueError(f"sum Qn {sum_qn} kip must be >= 0")
     d1 = y_con - np.asarray(a, dtype=float) / 2.0
     d3 = shape.d / 2.0
@@ -170,6 +170,6 @@ def equivalent_inertia(i_s, i_tr, sum_qn, cf):
     sum Q_n / C_f < 0.25: the value is still returned, and the caller flags that range.
     """
     ratio = np.asarray(sum_qn, dtype=float) / np.asarray(cf, dtype=float)
-    if np.any(ratio < 0.0):
+    if (ratio < 0.0).any():
         raise ValueError(f"sum Qn {sum_qn} kip must be >= 0 and C_f {cf} kip > 0")
     return i_s + np.sqrt(np.minimum(ratio, 1.0)) * (np.asarray(i_tr, dtype=float) - i_s)

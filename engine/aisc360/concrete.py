@@ -26,7 +26,7 @@ def ec(wc_pcf, fc_ksi):
     """
     wc = np.asarray(wc_pcf, dtype=float)
     fc = np.asarray(fc_ksi, dtype=float)
-    if np.any(wc <= 0.0) or np.any(fc <= 0.0):
+    if (wc <= 0.0).any() or (fc <= 0.0).any():
         raise ValueError(f"unit weight {wc_pcf} pcf and f'c {fc_ksi} ksi must be > 0")
     return wc**1.5 * np.sqrt(fc)
 
@@ -37,7 +37,7 @@ def modular_ratio(ec, es=E_STEEL):
     AISC 360-22 Commentary I3.2 (transformed section).
     """
     e_c = np.asarray(ec, dtype=float)
-    if np.any(e_c <= 0.0):
+    if (e_c <= 0.0).any():
         raise ValueError(f"E_c {ec} ksi must be > 0")
     return es / e_c
 
@@ -48,7 +48,7 @@ def fc_at_age(fc28, days):
     ACI 209R-92 Eq. 2-1 (moist-cured, Type I cement: a = 4.0 days, beta = 0.85).
     """
     t = np.asarray(days, dtype=float)
-    if np.any(t < 0.0):
+    if (t < 0.0).any():
         raise ValueError(f"age {days} days must be >= 0")
     return np.asarray(fc28, dtype=float) * t / (_ACI209_A_DAYS + _ACI209_BETA * t)
 

@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from functools import lru_cache
 
 import numpy as np
 
@@ -92,7 +93,7 @@ def fcr_ltb(shape, lb, cb: float = 1.0):
     """Elastic lateral-torsional buckling stress, ksi (lb > 0; scalar or array).
     AISC 360-22 Eq. F2-4 with c = 1 (Eq. F2-8a)."""
     lb_arr = np.asarray(lb, dtype=float)
-    if np.any(~np.isfinite(lb_arr)) or np.any(lb_arr <= 0.0):
+    if (~np.isfinite(lb_arr)).any() or (lb_arr <= 0.0).any():
         raise ValueError(f"lb = {lb!r}: must be finite and > 0 for Eq. F2-4")
     slenderness_sq = (lb_arr / shape.rts) ** 2
     fcr = cb * math.pi**2 * E_STEEL / slenderness_sq * np.sqrt(1.0 + 0.078 * _jc_sxho(shape) * slenderness_sq)
@@ -134,6 +135,16 @@ def _mn_flb(shape, fy: float, mp: float) -> tuple[float, str]:
     return 0.9 * E_STEEL * kc * shape.sx / lam**2, "Eq. F3-2"
 
 
+@lru_cache(maxsize=256)
+def _shape_terms(shape, fy: float) -> tuple[float, float, float, float, str]:
+    """Mp, Lp, Lr and the flange local buckling Mn with its equation, once per shape and Fy.
+    AISC 360-22 Eqs. F2-1, F2-5, F2-6, F3-1, F3-2; compact webs only (Table B4.1b case 15)."""
+    _check_web_compact(shape, fy)
+    mp = fy * shape.zx  # AISC 360-22 Eq. F2-1
+    mn_flb, eq_flb = _mn_flb(shape, fy, mp)
+    return mp, lp(shape, fy), lr(shape, fy), mn_flb, eq_flb
+
+
 def flexure_strength(shape, fy: float, lb: float, cb: float = 1.0) -> FlexureStrength:
     """Nominal flexural strength for unbraced length lb (in) and Cb; the least limit state governs.
     AISC 360-22 F2 (compact flanges) or F3 (noncompact/slender flanges), compact webs only."""
@@ -144,12 +155,8 @@ def flexure_strength(shape, fy: float, lb: float, cb: float = 1.0) -> FlexureStr
     cb = float(cb)
     if not (math.isfinite(cb) and cb >= 1.0 - 1e-9):
         raise ValueError(f"cb = {cb!r}: must be >= 1.0 (AISC 360-22 Eq. F1-1)")
-    _check_web_compact(shape, fy)
-
-    mp = fy * shape.zx  # AISC 360-22 Eq. F2-1
-    lp_, lr_ = lp(shape, fy), lr(shape, fy)
+    mp, lp_, lr_, mn_flb, eq_flb = _shape_terms(shape, fy)
     mn_ltb, eq_ltb = _mn_ltb(shape, fy, lb, cb, mp, lp_, lr_)
-    mn_flb, eq_flb = _mn_flb(shape, fy, mp)
 
     if not eq_flb:  # compact flange: F2
         if eq_ltb:

@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 import argparse
-import json
+from functools import partial
 
 from fieldcomp import CAUTION, __version__
 from fieldcomp.commands.common import EXIT_FAIL, EXIT_PASS, fail_input, load_inputs
@@ -16,33 +16,52 @@ def register(sub) -> None:
     c.add_argument("--json", action="store_true", help="print one JSON object")
 
 
-def run(args: argparse.Namespace) -> int:
+def check_beam(beam, as_json: bool) -> tuple[str | None, bool, str]:
+    """(input error or None, whether the beam fails, its report: a JSON list item or text) for
+    one beam; run in worker processes for large jobs."""
     from engine.construction import evaluate_construction
     from engine.evaluate import evaluate_beam
+    from fieldcomp.commands.parallel import json_item
     from fieldcomp.jobfile import JobFileError
-    from fieldcomp.report import beam_json, beam_text, caution_block, not_checked_json, scope_block
+    from fieldcomp.report import beam_json, beam_text
     from fieldcomp.report_construction import construction_text, merge_into_check
 
     try:
+        c = evaluate_construction(beam)
+    except (JobFileError, ValueError) as exc:
+        return str(exc), False, ""
+    r = evaluate_beam(beam)
+    failed = "fail" in (r.verdict, c.verdict)
+    if as_json:
+        return None, failed, json_item(merge_into_check(beam_json(r), c, r.checks))
+    return None, failed, beam_text(r) + "\n" + construction_text(c)
+
+
+def run(args: argparse.Namespace) -> int:
+    from fieldcomp.commands.parallel import json_with_list, map_beams
+    from fieldcomp.jobfile import JobFileError
+    from fieldcomp.report import caution_block, not_checked_json, scope_block
+
+    try:
         job, beams = load_inputs(args.job, args.beam)
-        constructions = [evaluate_construction(b) for b in beams]
     except (JobFileError, ValueError) as exc:
         return fail_input(exc)
-    results = [evaluate_beam(b) for b in beams]
-    failed = [r.beam.mark for r, c in zip(results, constructions) if "fail" in (r.verdict, c.verdict)]
+    done = map_beams(partial(check_beam, as_json=args.json), beams)
+    error = next((e for e, _, _ in done if e is not None), None)
+    if error is not None:
+        return fail_input(ValueError(error))
+    failed = [b.mark for b, (_, fails, _) in zip(beams, done) if fails]
     if args.json:
-        records = [merge_into_check(beam_json(r), c, r.checks) for r, c in zip(results, constructions)]
-        out = {"job": job.project.name, "caution": CAUTION, "not_checked": not_checked_json(), "beams": records}
-        print(json.dumps(out, indent=2))
+        head = {"job": job.project.name, "caution": CAUTION, "not_checked": not_checked_json()}
+        print(json_with_list(head, "beams", [report for _, _, report in done]))
     else:
         print(f"fieldcomp {__version__} - job '{job.project.name}' ({args.job})")
         print(caution_block())
-        for r, c in zip(results, constructions):
+        for _, _, report in done:
             print()
-            print(beam_text(r))
-            print(construction_text(c))
+            print(report)
         print()
-        print(f"{len(results)} beam(s): {len(results) - len(failed)} pass, {len(failed)} fail"
+        print(f"{len(done)} beam(s): {len(done) - len(failed)} pass, {len(failed)} fail"
               + (f" ({', '.join(failed)})" if failed else ""))
         print(scope_block())
         print(caution_block())

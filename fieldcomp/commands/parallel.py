@@ -1,0 +1,52 @@
+"""Per-beam work of the batch verbs (`check`, `camber`) over many beams: in this process for small
+jobs, in a pool of worker processes for large ones. Results come back in input order, so the
+output is the same whichever way it ran."""
+
+from __future__ import annotations
+
+import json
+import multiprocessing
+import os
+from collections.abc import Callable, Sequence
+from concurrent.futures import ProcessPoolExecutor
+from typing import Any, TypeVar
+
+T = TypeVar("T")
+R = TypeVar("R")
+
+POOL_MIN_BEAMS = 200  # below this, starting workers costs more than it saves
+POOL_WORKERS = 2
+
+
+def map_beams(fn: Callable[[T], R], items: Sequence[T]) -> list[R]:
+    """[fn(item) for item in items], on POOL_WORKERS processes when there are POOL_MIN_BEAMS items
+    or more and the machine has the cores. `fn` must be a module-level function (or a partial
+    of one) and its results picklable."""
+    workers = min(POOL_WORKERS, _cores())
+    if len(items) < POOL_MIN_BEAMS or workers < 2:
+        return [fn(item) for item in items]
+    # fork starts workers with the engine already imported; elsewhere the platform default
+    context = multiprocessing.get_context("fork") if "fork" in multiprocessing.get_all_start_methods() else None
+    with ProcessPoolExecutor(max_workers=workers, mp_context=context) as pool:
+        return list(pool.map(fn, items, chunksize=max(1, len(items) // (32 * workers))))
+
+
+def _cores() -> int:
+    try:
+        return len(os.sched_getaffinity(0))
+    except AttributeError:  # not on every platform
+        return os.cpu_count() or 1
+
+
+def json_item(item: Any) -> str:
+    """One item of a JSON list as `json.dumps(..., indent=2)` writes it two levels deep."""
+    return "    " + json.dumps(item, indent=2).replace("\n", "\n    ")
+
+
+def json_with_list(head: dict[str, Any], key: str, items: list[str]) -> str:
+    """`json.dumps({**head, key: [...]}, indent=2)` with the list given as `json_item` texts (so
+    the items can be encoded where they were computed); `key` comes last."""
+    text = json.dumps({**head, key: []}, indent=2)
+    if not items:
+        return text
+    return text[: -len("[]\n}")] + "[\n" + ",\n".join(items) + "\n  ]\n}"

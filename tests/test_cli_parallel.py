@@ -1,0 +1,74 @@
+"""Batch verbs on many beams: the worker pool gives byte for byte the output of the serial run,
+and the JSON assembled from per-beam pieces equals json.dumps of the whole (no engineering values
+here: both sides of every comparison come from the same engine)."""
+
+from __future__ import annotations
+
+import json
+from pathlib import Path
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from fieldcomp.cli import main
+from fieldcomp.commands import parallel
+
+DEMO = Path(__file__).resolve().parents[1] / "jobs" / "harbor_row_level3.toml"
+
+
+def many_beams(count: int) -> str:
+    """The demo job with its beams repeated under new marks until there are `count` of them."""
+    head, _, rest = DEMO.read_text().partition("[[beam]]")
+    blocks = ["[[beam]]" + b for b in rest.split("[[beam]]")]
+    out = [head]
+    for i in range(count):
+        block = blocks[i % len(blocks)]
+        mark = block.split('mark = "', 1)[1].split('"', 1)[0]
+        out.append(block.replace(f'mark = "{mark}"', f'mark = "{mark}-{i:03d}"', 1))
+    return "".join(out)
+
+
+def run(args: list[str], capsys) -> tuple[int, str]:
+    code = main(args)
+    return code, capsys.readouterr().out
+
+
+@pytest.mark.parametrize("verb", ["check", "camber"])
+def test_pool_output_equals_serial_output(tmp_path, capsys, monkeypatch, verb):
+    count = parallel.POOL_MIN_BEAMS + 10
+    job = tmp_path / "floor.toml"
+    job.write_text(many_beams(count))
+    pooled_csv, serial_csv = tmp_path / "pooled.csv", tmp_path / "serial.csv"
+    extra = ["--csv", str(pooled_csv)] if verb == "camber" else []
+    pooled = [run([verb, str(job), "--json"], capsys), run([verb, str(job), *extra], capsys)]
+    monkeypatch.setattr(parallel, "POOL_MIN_BEAMS", 10**9)  # the same verbs, in this process only
+    extra = ["--csv", str(serial_csv)] if verb == "camber" else []
+    serial = [run([verb, str(job), "--json"], capsys), run([verb, str(job), *extra], capsys)]
+    assert pooled[0] == serial[0]
+    code, text = pooled[1]
+    assert code == serial[1][0]
+    assert text.replace(str(pooled_csv), "CSV") == serial[1][1].replace(str(serial_csv), "CSV")
+    if verb == "camber":
+        assert pooled_csv.read_bytes() == serial_csv.read_bytes()
+    assert len(json.loads(pooled[0][1])["beams"]) == count
+
+
+def test_map_beams_keeps_input_order():
+    items = list(range(parallel.POOL_MIN_BEAMS + 5))
+    assert parallel.map_beams(abs, [-i for i in items]) == items
+
+
+json_values = st.recursive(
+    st.none() | st.booleans() | st.integers() | st.floats(allow_nan=True) | st.text(max_size=8),
+    lambda inner: st.lists(inner, max_size=4) | st.dictionaries(st.text(max_size=5), inner, max_size=4),
+    max_leaves=20,
+)
+
+
+@settings(max_examples=100, deadline=None)
+@given(head=st.dictionaries(st.text(max_size=5).filter(lambda k: k != "beams"), json_values, min_size=1, max_size=3),
+       items=st.lists(json_values, max_size=4))
+def test_json_from_pieces_equals_json_dumps(head, items):
+    pieces = [parallel.json_item(item) for item in items]
+    assert parallel.json_with_list(head, "beams", pieces) == json.dumps({**head, "beams": items}, indent=2)
