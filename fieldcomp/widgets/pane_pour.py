@@ -54,10 +54,11 @@ class PourPane(Pane):
         yield Static("", classes="pane--head", id="pour-head")
         yield RowEditor("pour", "stage", STAGE_FIELDS, with_new_stage, id="pour-stages",
                         empty="No stages: the whole slab is placed at once (one stage). Add a stage to plan the pour.")
-        yield Static("Steps in time order (bare steel; 'cured': earlier concrete acting at its age)",
+        yield Static("Steps in time order (bare steel; 'cured': earlier concrete acting at its age; "
+                     "vs nominal: concrete beyond the nominal slab, negative where camber leaves it thinner)",
                      classes="pane--section")
         yield Table("step", "day", "placed", "screed", "adds", "total", "total cured", "constr. live", "flexure ratio",
-                    "stress ksi", "ponded ft3", id="pour-steps")
+                    "stress ksi", "vs nominal ft3", id="pour-steps")
         yield TerminalPlot("Deflection added by each step (down)", id="pour-step-plot")
         yield TerminalPlot("Cumulative deflection after each step (down)", id="pour-total-plot")
         yield Static("", id="pour-notes", classes="pane--note")
