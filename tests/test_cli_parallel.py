@@ -5,6 +5,7 @@ here: both sides of every comparison come from the same engine)."""
 from __future__ import annotations
 
 import json
+import sys
 from pathlib import Path
 
 import pytest
@@ -14,19 +15,9 @@ from hypothesis import strategies as st
 from fieldcomp.cli import main
 from fieldcomp.commands import parallel
 
-DEMO = Path(__file__).resolve().parents[1] / "jobs" / "harbor_row_level3.toml"
+sys.path.insert(0, str(Path(__file__).resolve().parents[1] / "tools"))
 
-
-def many_beams(count: int) -> str:
-    """The demo job with its beams repeated under new marks until there are `count` of them."""
-    head, _, rest = DEMO.read_text().partition("[[beam]]")
-    blocks = ["[[beam]]" + b for b in rest.split("[[beam]]")]
-    out = [head]
-    for i in range(count):
-        block = blocks[i % len(blocks)]
-        mark = block.split('mark = "', 1)[1].split('"', 1)[0]
-        out.append(block.replace(f'mark = "{mark}"', f'mark = "{mark}-{i:03d}"', 1))
-    return "".join(out)
+from bench import generated_job as many_beams  # noqa: E402  (the benchmark's generated floor)
 
 
 def run(args: list[str], capsys) -> tuple[int, str]:
