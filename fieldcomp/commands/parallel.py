@@ -39,13 +39,14 @@ def _cores() -> int:
 
 
 def json_item(item: Any) -> str:
-    """One item of a JSON list as `json.dumps(..., indent=2)` writes it two levels deep."""
-    return "    " + json.dumps(item, indent=2).replace("\n", "\n    ")
+    """One item of a JSON list on one line (one beam per line: easy to grep and diff, and the
+    C encoder is several times faster than the indenting one)."""
+    return "    " + json.dumps(item, separators=(", ", ": "))
 
 
 def json_with_list(head: dict[str, Any], key: str, items: list[str]) -> str:
-    """`json.dumps({**head, key: [...]}, indent=2)` with the list given as `json_item` texts (so
-    the items can be encoded where they were computed); `key` comes last."""
+    """`{**head, key: [...]}` as JSON: the head indented, the list given as `json_item` texts (so
+    the items can be encoded where they were computed, one per line); `key` comes last."""
     text = json.dumps({**head, key: []}, indent=2)
     if not items:
         return text
