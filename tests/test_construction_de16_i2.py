@@ -11,22 +11,8 @@ specified 3/4 in. Tolerance 1% unless noted.
 import pytest
 
 from engine.construction import evaluate_construction
-from engine.deck import DeckProfile, Slab
-from engine.model import BeamInput, PointLoad, StudSpec
-from engine.shapes import get_shape
 
-FT = 12.0
-
-
-def girder() -> BeamInput:
-    deck = DeckProfile("3in", 3.0, 7.25, 4.75, 12.0, 0.0)
-    slab = Slab("I.2", deck, 4.5, 145.0, 4.0, lightweight=False)
-    loads = (PointLoad(10 * FT, 40.5, 45.0, 36.0, 11.3), PointLoad(20 * FT, 40.5, 45.0, 36.0, 11.3))
-    return BeamInput(
-        mark="I.2", shape=get_shape("W24X76"), span=30 * FT, fy=50.0, slab=slab, orientation="parallel",
-        slab_left=22.5 * FT, slab_right=22.5 * FT, superimposed_dead_psf=0.0, live_psf=0.0,
-        studs=StudSpec(0.75, 65.0, 5.25, "center", 55), point_loads=loads, load_width=0.0,
-    )
+from de16_i2 import FT, girder  # shared input of the example (tests/de16_i2.py)
 
 
 def test_precomposite_deflection_and_camber():

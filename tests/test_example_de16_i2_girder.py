@@ -12,24 +12,11 @@ Units: kip, in. Tolerance 1% unless noted.
 import numpy as np
 import pytest
 
-from engine.deck import DeckProfile, Slab
 from engine.evaluate import evaluate_beam
-from engine.model import BeamInput, PointLoad, StudSpec
+from engine.model import BeamInput
 from engine.section import StudGroups, stud_qn
-from engine.shapes import get_shape
 
-FT = 12.0
-
-
-def girder() -> BeamInput:
-    deck = DeckProfile("3in", 3.0, 7.25, 4.75, 12.0, 0.0)  # 6 in average rib, 12 in pitch (50% void, as DE16)
-    slab = Slab("I.2", deck, 4.5, 145.0, 4.0, lightweight=False)
-    loads = (PointLoad(10 * FT, 40.5, 45.0, 36.0, 11.3), PointLoad(20 * FT, 40.5, 45.0, 36.0, 11.3))
-    return BeamInput(
-        mark="I.2", shape=get_shape("W24X76"), span=30 * FT, fy=50.0, slab=slab, orientation="parallel",
-        slab_left=22.5 * FT, slab_right=22.5 * FT, superimposed_dead_psf=0.0, live_psf=0.0,
-        studs=StudSpec(0.75, 65.0, 5.25, "center", 55), point_loads=loads, load_width=0.0,
-    )
+from de16_i2 import FT, girder  # shared input of the example (tests/de16_i2.py)
 
 
 def example_studs(beam: BeamInput) -> StudGroups:
