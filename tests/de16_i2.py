@@ -7,9 +7,9 @@ concrete, 145 pcf, f'c 4 ksi, b = 7.50 ft. Per point: PD = 40.5 kips of which 36
 PL = 45.0 kips, construction live 11.3 kips; 55 studs 3/4 in.
 """
 
-from engine.deck import DeckProfile, Slab
-from engine.model import BeamInput, PointLoad, StudSpec
-from engine.shapes import get_shape
+from engine.model.deck import DeckProfile, Slab
+from engine.model.inputs import BeamInput, PointLoad, StudSpec
+from engine.model.shapes import get_shape
 
 FT = 12.0
 

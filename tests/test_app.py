@@ -13,13 +13,13 @@ from pathlib import Path
 
 from textual.widgets import Input, Static
 
-from engine.construction import evaluate_construction
-from fieldcomp.app import FieldcompApp
-from fieldcomp.jobfile import load_job, parse_job
-from fieldcomp.screens.dialogs import Choice
-from fieldcomp.screens.help import HelpScreen
-from fieldcomp.session import JobSession, read_recovery, recovery_path
-from fieldcomp.to_engine import to_engine
+from engine.construction.evaluate import evaluate_construction
+from fieldcomp.tui.app import FieldcompApp
+from fieldcomp.jobs.jobfile import load_job, parse_job
+from fieldcomp.tui.screens.dialogs import Choice
+from fieldcomp.tui.screens.help import HelpScreen
+from fieldcomp.tui.session import JobSession, read_recovery, recovery_path
+from fieldcomp.jobs.to_engine import to_engine
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
@@ -58,8 +58,8 @@ async def type_into(pilot, app: FieldcompApp, selector: str, text: str) -> Input
 
 def rib_that_fails(outcome) -> int:
     """A rib where one more missing stud makes the beam fail as built (found with the engine)."""
-    from engine.findings import evaluate_as_built
-    from engine.model import Finding
+    from engine.field.as_built import evaluate_as_built
+    from engine.model.inputs import Finding
 
     beam, designed = outcome.beam, outcome.layout.value.layout
     for rib in designed.number[designed.count > 0]:
@@ -296,8 +296,8 @@ def test_new_untitled_job_from_the_starter(tmp_path):
 
 def test_write_the_marks_sheet_and_import_an_inspection_log(tmp_path):
     async def flow():
-        from engine.sheet import marks_csv, marks_svg
-        from fieldcomp.commands.marks import sheet_for
+        from engine.studs.sheet_data import marks_csv, marks_svg
+        from fieldcomp.cli.marks import sheet_for
 
         app = make_app(demo_copy(tmp_path), tmp_path)
         async with app.run_test(size=SIZE) as pilot:
@@ -329,7 +329,7 @@ def test_write_the_marks_sheet_and_import_an_inspection_log(tmp_path):
 
 
 def test_open_verb_refuses_a_bad_job_before_starting_the_app(tmp_path, capsys):
-    from fieldcomp.cli import main
+    from fieldcomp.cli.main import main
 
     bad = tmp_path / "bad.toml"
     bad.write_text(DEMO.read_text().replace("span = \"30'-0\\\"\"", "span = \"30\"", 1))

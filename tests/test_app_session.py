@@ -10,8 +10,8 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from fieldcomp.jobfile import ChangedOnDisk, JobFileError, load_job, parse_job
-from fieldcomp.session import EditRejected, JobSession, read_recovery, recovery_path, write_recovery
+from fieldcomp.jobs.jobfile import ChangedOnDisk, JobFileError, load_job, parse_job
+from fieldcomp.tui.session import EditRejected, JobSession, read_recovery, recovery_path, write_recovery
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"

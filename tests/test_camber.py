@@ -16,11 +16,11 @@ import pytest
 from hypothesis import assume, given, settings
 from hypothesis import strategies as st
 
-from engine.camber import camber_tolerance, decide_camber, round_down
-from engine.construction import evaluate_construction
-from engine.deck import DeckProfile, Slab
-from engine.model import BeamInput, CamberRules, ConstructionSpec, PourStage, StudSpec
-from engine.shapes import get_shape
+from engine.construction.camber import camber_tolerance, decide_camber, round_down
+from engine.construction.evaluate import evaluate_construction
+from engine.model.deck import DeckProfile, Slab
+from engine.model.inputs import BeamInput, CamberRules, ConstructionSpec, PourStage, StudSpec
+from engine.model.shapes import get_shape
 
 FT = 12.0
 SLAB = Slab("NW", DeckProfile("3in", 3.0, 7.0, 5.0, 12.0, 2.0), 3.25, 145.0, 4.0, lightweight=False)

@@ -7,7 +7,7 @@ from pathlib import Path
 
 import pytest
 
-from fieldcomp.cli import main
+from fieldcomp.cli.main import main
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = str(ROOT / "jobs" / "harbor_row_level3.toml")
@@ -75,7 +75,7 @@ def test_shapes_and_new(tmp_path, capsys):
 
 
 def test_help_does_not_import_numpy_pydantic_or_textual():
-    code = ("import sys\nfrom fieldcomp.cli import main\ntry:\n    main(['--help'])\nexcept SystemExit:\n    pass\n"
+    code = ("import sys\nfrom fieldcomp.cli.main import main\ntry:\n    main(['--help'])\nexcept SystemExit:\n    pass\n"
             "bad = [m for m in ('numpy', 'pydantic', 'textual', 'engine') if m in sys.modules]\n"
             "print('LOADED=' + ','.join(bad))")
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True).stdout
@@ -83,7 +83,7 @@ def test_help_does_not_import_numpy_pydantic_or_textual():
 
 
 def test_engine_imports_no_edge_packages():
-    code = ("import sys, engine.evaluate, engine.shapes, engine.units\n"
+    code = ("import sys, engine.finished.evaluate, engine.model.shapes, engine.model.units\n"
             "print(','.join(m for m in ('textual', 'rich', 'pydantic', 'tomllib', 'tomli_w') if m in sys.modules))")
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True).stdout
     assert out.strip() == ""

@@ -7,9 +7,9 @@ from pathlib import Path
 
 import pytest
 
-from fieldcomp.cli import main
-from fieldcomp.jobfile import JobFileError, parse_job
-from fieldcomp.to_engine import to_engine
+from fieldcomp.cli.main import main
+from fieldcomp.jobs.jobfile import JobFileError, parse_job
+from fieldcomp.jobs.to_engine import to_engine
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
@@ -96,7 +96,7 @@ def test_csv_escapes_user_text_and_keeps_numbers(tmp_path, capsys):
 
 
 def test_csv_reason_starting_with_a_formula_character_is_escaped(tmp_path):
-    from fieldcomp.report_construction import csv_text
+    from fieldcomp.views.construction_report import csv_text
 
     assert csv_text("-2 in") == "'-2 in" and csv_text("@x") == "'@x" and csv_text("ok") == "ok"
 

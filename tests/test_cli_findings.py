@@ -12,7 +12,7 @@ from pathlib import Path
 
 import pytest
 
-from fieldcomp.cli import main
+from fieldcomp.cli.main import main
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = str(ROOT / "jobs" / "harbor_row_level3.toml")

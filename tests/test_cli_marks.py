@@ -9,8 +9,8 @@ from pathlib import Path
 
 import pytest
 
-from fieldcomp.cli import main
-from fieldcomp.commands.marks import inside, safe_name, unique_names
+from fieldcomp.cli.main import main
+from fieldcomp.cli.marks import inside, safe_name, unique_names
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"

@@ -12,8 +12,8 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from fieldcomp.cli import main
-from fieldcomp.commands import parallel
+from fieldcomp.cli.main import main
+from fieldcomp.cli import parallel
 
 sys.path.insert(0, str(Path(__file__).resolve().parents[1] / "tools"))
 

@@ -17,7 +17,7 @@ from efficalc.sections import ALL_AISC_WIDE_FLANGE_NAMES, get_aisc_wide_flange
 from hypothesis import given
 from hypothesis import strategies as st
 
-from engine.aisc360.composite import (
+from engine.codes.aisc360_22.i3_composite import (
     b_eff,
     cf_force,
     effective_width,

@@ -4,7 +4,7 @@ strength with the stated bracing, load combinations.
 Check values are hand recomputations written out below: AISC Manual Table 3-23 case 1
 (5wL^4/384EI, M = wL^2/8), AISC 360-22 Eq. F1-1 (Cb), ACI 209R-92 Eq. 2-1 (strength with age),
 AISC 360-22 I2.1b (E_c), the transformed section by the parallel-axis theorem.
-Units: kip, in, ksi. W21X50 from the AISC Shapes Database v16.0 (via engine.shapes):
+Units: kip, in, ksi. W21X50 from the AISC Shapes Database v16.0 (via engine.model.shapes):
 Ix = 984 in^4, Zx = 110 in^3, Sx = 94.5 in^3, d = 20.8 in, weight 50 plf.
 """
 
@@ -16,13 +16,13 @@ from dataclasses import replace
 import numpy as np
 import pytest
 
-from engine.aisc360.flexure import flexure_strength
-from engine.bare_steel import bracing
-from engine.construction import evaluate_construction
-from engine.deck import DeckProfile, Slab
-from engine.model import BeamInput, CamberRules, ConstructionSpec, PointLoad, PourStage, StudSpec
-from engine.pours import check_stages, pour_plan
-from engine.shapes import get_shape
+from engine.codes.aisc360_22.f_flexure import flexure_strength
+from engine.construction.bare_steel import bracing
+from engine.construction.evaluate import evaluate_construction
+from engine.model.deck import DeckProfile, Slab
+from engine.model.inputs import BeamInput, CamberRules, ConstructionSpec, PointLoad, PourStage, StudSpec
+from engine.construction.pours import check_stages, pour_plan
+from engine.model.shapes import get_shape
 
 E = 29_000.0
 FT = 12.0

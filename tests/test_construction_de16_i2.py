@@ -10,7 +10,7 @@ specified 3/4 in. Tolerance 1% unless noted.
 
 import pytest
 
-from engine.construction import evaluate_construction
+from engine.construction.evaluate import evaluate_construction
 
 from de16_i2 import FT, girder  # shared input of the example (tests/de16_i2.py)
 

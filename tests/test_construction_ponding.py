@@ -15,14 +15,14 @@ from dataclasses import replace
 import numpy as np
 import pytest
 
-from engine.construction import evaluate_construction
-from engine.deck import DeckProfile, Slab
-from engine.model import BeamInput, CamberRules, ConstructionSpec, PourStage, StudSpec
-from engine.ponding import level_deflection, line_load_effects
-from engine.pours import bare_sections, pour_plan
-from engine.shapes import get_shape
-from engine.staging import blend, run_stages
-from engine.statics import UniformLoad, deflection_from_curvature, stations
+from engine.construction.evaluate import evaluate_construction
+from engine.model.deck import DeckProfile, Slab
+from engine.model.inputs import BeamInput, CamberRules, ConstructionSpec, PourStage, StudSpec
+from engine.mechanics.ponding import level_deflection, line_load_effects
+from engine.construction.pours import bare_sections, pour_plan
+from engine.model.shapes import get_shape
+from engine.construction.staging import blend, run_stages
+from engine.mechanics.statics import UniformLoad, deflection_from_curvature, stations
 
 E = 29_000.0
 L = 480.0
@@ -89,7 +89,7 @@ def test_known_load_pieces_agree_with_a_dense_solve():
     a = dense_operator(x, ei)
     ponding = np.eye(x.size) - a @ np.diag(k)
     q = np.full_like(x, 0.05)
-    # no known load: the same operator as engine.statics.ponded_deflection (round-off only)
+    # no known load: the same operator as engine.mechanics.statics.ponded_deflection (round-off only)
     y = level_deflection(x, L, [UniformLoad(0.05)], np.zeros_like(x), k, ei)
     assert np.allclose(y, np.linalg.solve(ponding, a @ q), rtol=1e-9, atol=1e-12)
     # a known station load enters as 8 pieces plus an unamplified remainder: 1e-4 of the deflection

@@ -27,8 +27,8 @@ from dataclasses import dataclass
 import numpy as np
 import pytest
 
-from engine.aisc360.anchors import qn_concrete_limit, qn_stud, rg_rp, stud_area
-from engine.aisc360.composite import (
+from engine.codes.aisc360_22.i8_anchors import qn_concrete_limit, qn_stud, rg_rp, stud_area
+from engine.codes.aisc360_22.i3_composite import (
     b_eff,
     cf_force,
     equivalent_inertia,
@@ -38,7 +38,7 @@ from engine.aisc360.composite import (
     pna_label,
     transformed_inertia,
 )
-from engine.aisc360.concrete import ec, modular_ratio
+from engine.codes.aisc360_22.i1_materials import ec, modular_ratio
 
 REL = 0.01
 

@@ -12,9 +12,9 @@ Units: kip, in. Tolerance 1% unless noted.
 import numpy as np
 import pytest
 
-from engine.evaluate import evaluate_beam
-from engine.model import BeamInput
-from engine.section import StudGroups, stud_qn
+from engine.finished.evaluate import evaluate_beam
+from engine.model.inputs import BeamInput
+from engine.finished.slab_force import StudGroups, stud_qn
 
 from de16_i2 import FT, girder  # shared input of the example (tests/de16_i2.py)
 

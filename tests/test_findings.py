@@ -18,12 +18,12 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from engine.deck import DeckProfile, Slab
-from engine.findings import FindingError, apply_findings, evaluate_as_built
-from engine.layout import StudLayout
-from engine.model import BeamInput, Finding, StudSpec
-from engine.section import stud_qn
-from engine.shapes import get_shape
+from engine.model.deck import DeckProfile, Slab
+from engine.field.as_built import FindingError, apply_findings, evaluate_as_built
+from engine.studs.layout import StudLayout
+from engine.model.inputs import BeamInput, Finding, StudSpec
+from engine.finished.slab_force import stud_qn
+from engine.model.shapes import get_shape
 
 SPAN = 384.0
 RIBS = 6.0 + 12.0 * np.arange(32)

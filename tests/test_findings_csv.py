@@ -8,8 +8,8 @@ from pathlib import Path
 
 import pytest
 
-from fieldcomp.cli import main
-from fieldcomp.findings_csv import CsvImportError, parse_findings_csv
+from fieldcomp.cli.main import main
+from fieldcomp.jobs.inspection_log import CsvImportError, parse_findings_csv
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
@@ -30,7 +30,7 @@ def test_good_log_reads_every_row_with_its_row_number():
 
 
 def test_byte_order_mark_from_spreadsheets_is_accepted(tmp_path):
-    from fieldcomp.findings_csv import read_findings_csv
+    from fieldcomp.jobs.inspection_log import read_findings_csv
 
     log = tmp_path / "log.csv"
     log.write_bytes("kind,rib\nmissing,3\n".encode("utf-8-sig"))
@@ -74,10 +74,10 @@ def test_empty_log_is_refused():
 
 
 def _occupied_ribs(mark: str) -> list[int]:
-    """Rib numbers holding exactly one stud in the demo beam's layout (engine.layout.design_layout)."""
-    from engine.layout import design_layout
-    from fieldcomp.jobfile import load_job
-    from fieldcomp.to_engine import to_engine
+    """Rib numbers holding exactly one stud in the demo beam's layout (engine.studs.layout.design_layout)."""
+    from engine.studs.layout import design_layout
+    from fieldcomp.jobs.jobfile import load_job
+    from fieldcomp.jobs.to_engine import to_engine
 
     beam = next(b for b in to_engine(load_job(DEMO).job) if b.mark == mark)
     layout = design_layout(beam).layout

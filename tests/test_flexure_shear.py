@@ -2,7 +2,7 @@
 
 Check values: hand recomputations of the Specification's equations written out below and
 AISC Design Examples v16.0 Ex. I.2 (REFERENCE.md sections 4 and 7, tag V). Shapes from
-engine.shapes (AISC Shapes Database v16.0).
+engine.model.shapes (AISC Shapes Database v16.0).
 Units: kip, inch, ksi, kip-in; E = 29,000 ksi.
 """
 
@@ -16,7 +16,7 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from engine.aisc360.flexure import (
+from engine.codes.aisc360_22.f_flexure import (
     FLB,
     LTB,
     YIELDING,
@@ -28,12 +28,12 @@ from engine.aisc360.flexure import (
     lr,
     unbraced_segments,
 )
-from engine.aisc360.shear import web_shear_strength
-from engine.shapes import find_shapes, get_shape
+from engine.codes.aisc360_22.g_shear import web_shear_strength
+from engine.model.shapes import find_shapes, get_shape
 
 E = 29_000.0
 
-# AISC Shapes Database v16.0 via engine.shapes. Values used in the hand recomputations below
+# AISC Shapes Database v16.0 via engine.model.shapes. Values used in the hand recomputations below
 # (as published): W24X76 d 23.9, tw 0.440, k_des 1.18, Zx 200, Sx 176, ry 1.92, J 2.68, rts 2.33, ho 23.2;
 # W21X50 d 20.8, bf 6.53, tf 0.535, tw 0.380, k_des 1.04, Zx 110, Sx 94.5, ry 1.30, J 1.14, rts 1.64, ho 20.3;
 # W21X48 bf 8.14, tf 0.430, Zx 107, Sx 93.0, J 0.803, rts 2.05, ho 20.2; W30X90 d 29.5, tw 0.470, k_des 1.26.

@@ -13,12 +13,12 @@ import tomli_w
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from engine.construction import evaluate_construction
-from engine.evaluate import OutOfScope, check_scope, evaluate_beam
-from engine.findings import FindingError, evaluate_as_built
-from engine.layout import design_layout
-from fieldcomp.jobfile import JobFileError, parse_job
-from fieldcomp.to_engine import to_engine
+from engine.construction.evaluate import evaluate_construction
+from engine.finished.evaluate import OutOfScope, check_scope, evaluate_beam
+from engine.field.as_built import FindingError, evaluate_as_built
+from engine.studs.layout import design_layout
+from fieldcomp.jobs.jobfile import JobFileError, parse_job
+from fieldcomp.jobs.to_engine import to_engine
 
 DEMO = Path(__file__).resolve().parents[1] / "jobs" / "harbor_row_level3.toml"
 BASE = tomllib.loads(DEMO.read_text())

@@ -5,9 +5,9 @@ from pathlib import Path
 
 import pytest
 
-from fieldcomp.jobfile import ChangedOnDisk, JobFileError, dump_job, load_job, parse_job, save_job
-from fieldcomp.schema import job_schema
-from fieldcomp.to_engine import to_engine
+from fieldcomp.jobs.jobfile import ChangedOnDisk, JobFileError, dump_job, load_job, parse_job, save_job
+from fieldcomp.jobs.schema import job_schema
+from fieldcomp.jobs.to_engine import to_engine
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
@@ -140,8 +140,8 @@ def test_dump_round_trips_demo():
 
 def test_committed_schema_matches_models():
     """The JSON Schema shipped for editors must not drift from the models (regenerate with
-    `fieldcomp schema > fieldcomp/schema/job.schema.json`)."""
-    committed = json.loads((ROOT / "fieldcomp" / "schema" / "job.schema.json").read_text())
+    `fieldcomp schema > fieldcomp/jobs/job.schema.json`)."""
+    committed = json.loads((ROOT / "fieldcomp" / "jobs" / "job.schema.json").read_text())
     assert committed == job_schema()
 
 
@@ -165,7 +165,7 @@ def test_save_removes_a_deleted_beam_and_adds_a_finding(tmp_path):
     path = tmp_path / "demo.toml"
     path.write_text(DEMO.read_text())
     job = load_job(path).job
-    from fieldcomp.jobmodel import FindingIn
+    from fieldcomp.jobs.model import FindingIn
 
     last = job.beam[-1]
     beams = list(job.beam[:-1])

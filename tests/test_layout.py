@@ -15,13 +15,13 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from engine.aisc360.composite import plastic_moment
-from engine.deck import DeckProfile, Slab
-from engine.evaluate import evaluate_beam, moment_demand, slab_limits
-from engine.layout import deck_anchor_slots, design_layout, flute_pitch, layout_qn, slots_for
-from engine.model import BeamInput, PointLoad, RibSettings, StudSpec
-from engine.shapes import get_shape
-from engine.units import format_ft_in
+from engine.codes.aisc360_22.i3_composite import plastic_moment
+from engine.model.deck import DeckProfile, Slab
+from engine.finished.evaluate import evaluate_beam, moment_demand, slab_limits
+from engine.studs.layout import deck_anchor_slots, design_layout, flute_pitch, layout_qn, slots_for
+from engine.model.inputs import BeamInput, PointLoad, RibSettings, StudSpec
+from engine.model.shapes import get_shape
+from engine.model.units import format_ft_in
 
 ASA_FU = math.pi * 0.75**2 / 4.0 * 65.0  # 28.72 kip: A_sa F_u of a 3/4 in stud (AISC 360-22 Eq. I8-1)
 D3 = DeckProfile("D3", 3.0, 7.0, 5.0, 12.0, 2.4, 1.25)  # 3 in deck, 12 in pitch, w_mid 6 in

@@ -14,14 +14,14 @@ import numpy as np
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from engine.deck import DeckProfile, Slab
-from engine.detailing import off_web_allowed, spacing_limits, studs_per_slot
-from engine.evaluate import evaluate_beam
-from engine.layout import design_layout, layout_qn
-from engine.model import BeamInput, PointLoad, RibSettings, StudSpec
-from engine.ribs import in_keep_out
-from engine.section import slab_force
-from engine.shapes import get_shape
+from engine.model.deck import DeckProfile, Slab
+from engine.studs.detailing import off_web_allowed, spacing_limits, studs_per_slot
+from engine.finished.evaluate import evaluate_beam
+from engine.studs.layout import design_layout, layout_qn
+from engine.model.inputs import BeamInput, PointLoad, RibSettings, StudSpec
+from engine.studs.ribs import in_keep_out
+from engine.finished.slab_force import slab_force
+from engine.model.shapes import get_shape
 
 SHAPES = ("W12X14", "W14X22", "W16X26", "W18X35", "W21X44", "W24X55", "W27X84", "W10X12")
 

@@ -14,9 +14,9 @@ from pathlib import Path
 import numpy as np
 import pytest
 
-from engine.findings import evaluate_as_built
-from engine.model import Finding
-from engine.repair import find_repair
+from engine.field.as_built import evaluate_as_built
+from engine.model.inputs import Finding
+from engine.field.repair import find_repair
 from test_findings import CAP, Q_WEAK_1, RIBS, make_beam, make_layout
 
 # 24 studs: one in every rib except ribs 3, 7, 11, ... 31 (24 in gaps, so the deck is anchored by
@@ -105,9 +105,9 @@ def test_no_room_gives_alternatives_not_a_repair():
 
 
 def test_demo_beam_repair_restores_and_every_stud_is_needed():
-    from engine.layout import design_layout
-    from fieldcomp.jobfile import load_job
-    from fieldcomp.to_engine import to_engine
+    from engine.studs.layout import design_layout
+    from fieldcomp.jobs.jobfile import load_job
+    from fieldcomp.jobs.to_engine import to_engine
 
     demo = Path(__file__).resolve().parents[1] / "jobs" / "harbor_row_level3.toml"
     beam = next(b for b in to_engine(load_job(demo).job) if b.mark == "3B-103")

@@ -8,7 +8,7 @@ from pathlib import Path
 
 import pytest
 
-from fieldcomp.jobfile import load_job
+from fieldcomp.jobs.jobfile import load_job
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
@@ -16,7 +16,7 @@ DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
 CHILD = r"""
 import os, sys
 sys.path.insert(0, {root!r})
-from fieldcomp.jobfile import load_job, save_job
+from fieldcomp.jobs.jobfile import load_job, save_job
 
 path, kill_at = sys.argv[1], int(sys.argv[2])
 loaded = load_job(path)
@@ -78,8 +78,8 @@ def test_kill_at_every_line_of_a_save_leaves_old_or_new(tmp_path):
 def test_injected_os_failures_keep_the_old_file(tmp_path, monkeypatch, fail):
     import os
 
-    import fieldcomp.atomic as at
-    import fieldcomp.jobfile as jf
+    import fieldcomp.jobs.atomic as at
+    import fieldcomp.jobs.jobfile as jf
 
     path = tmp_path / "job.toml"
     original = DEMO.read_text()

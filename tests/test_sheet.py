@@ -12,12 +12,12 @@ from dataclasses import replace
 import numpy as np
 import pytest
 
-from engine.evaluate import evaluate_beam
-from engine.layout import design_layout
-from engine.model import RibSettings
-from engine.sheet import CSV_COLUMNS, Envelope, SheetData, mark_rows, marks_csv, marks_svg, marks_text, totals
-from engine.sheet_svg import X0, X1
-from engine.units import format_ft_in
+from engine.finished.evaluate import evaluate_beam
+from engine.studs.layout import design_layout
+from engine.model.inputs import RibSettings
+from engine.studs.sheet_data import CSV_COLUMNS, Envelope, SheetData, mark_rows, marks_csv, marks_svg, marks_text, totals
+from fieldcomp.views.marks_svg import X0, X1
+from engine.model.units import format_ft_in
 from test_layout import beam
 
 NS = {"s": "http://www.w3.org/2000/svg"}

@@ -10,8 +10,8 @@ from pathlib import Path
 
 import pytest
 
-from fieldcomp.app import FieldcompApp
-from fieldcomp.session import JobSession
+from fieldcomp.tui.app import FieldcompApp
+from fieldcomp.tui.session import JobSession
 
 ROOT = Path(__file__).resolve().parents[1]
 SIZE = (170, 48)  # wide enough for the caution line in full

@@ -10,7 +10,7 @@ import pytest
 from hypothesis import assume, given, settings
 from hypothesis import strategies as st
 
-from engine.statics import (
+from engine.mechanics.statics import (
     PointLoad,
     PondingInstability,
     UniformLoad,

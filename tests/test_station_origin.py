@@ -5,11 +5,11 @@ from pathlib import Path
 
 import pytest
 
-from engine.layout import design_layout
-from engine.sheet import SheetData, mark_rows
-from engine.units import parse_length
-from fieldcomp.jobfile import parse_job
-from fieldcomp.to_engine import to_engine
+from engine.studs.layout import design_layout
+from engine.studs.sheet_data import SheetData, mark_rows
+from engine.model.units import parse_length
+from fieldcomp.jobs.jobfile import parse_job
+from fieldcomp.jobs.to_engine import to_engine
 
 DEMO = (Path(__file__).resolve().parents[1] / "jobs" / "harbor_row_level3.toml").read_text()
 

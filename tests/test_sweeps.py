@@ -9,14 +9,14 @@ and in slab thickness; deflection increasing with span; out-of-scope inputs refu
 import numpy as np
 import pytest
 
-from engine.aisc360.anchors import qn_stud, rg_rp, stud_area
-from engine.aisc360.composite import effective_width, plastic_moment
-from engine.aisc360.concrete import ec
-from engine.deck import DeckProfile, Slab
-from engine.evaluate import OutOfScope, check_scope, evaluate_beam
-from engine.model import BeamInput, StudSpec
-from engine.shapes import find_shapes
-from engine.statics import UniformLoad, deflection, stations
+from engine.codes.aisc360_22.i8_anchors import qn_stud, rg_rp, stud_area
+from engine.codes.aisc360_22.i3_composite import effective_width, plastic_moment
+from engine.codes.aisc360_22.i1_materials import ec
+from engine.model.deck import DeckProfile, Slab
+from engine.finished.evaluate import OutOfScope, check_scope, evaluate_beam
+from engine.model.inputs import BeamInput, StudSpec
+from engine.model.shapes import find_shapes
+from engine.mechanics.statics import UniformLoad, deflection, stations
 
 SHAPES = find_shapes("*")
 DECKS = {  # rib height, top, bottom, pitch (common profiles; geometry from memory, REFERENCE.md section 6)

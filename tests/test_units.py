@@ -1,4 +1,4 @@
-"""engine.units: length strings in, ft-in-fraction out.
+"""engine.model.units: length strings in, ft-in-fraction out.
 
 Check values are hand arithmetic: 1 ft = 12 in; 1 in = 25.4 mm exactly (international inch, 1959).
 """
@@ -12,7 +12,7 @@ import pytest
 from hypothesis import given
 from hypothesis import strategies as st
 
-from engine.units import UnitError, format_ft_in, format_inches, parse_length, round_to_sixteenth
+from engine.model.units import UnitError, format_ft_in, format_inches, parse_length, round_to_sixteenth
 
 PARSE_CASES = [
     # (text, inches)  -- every value: feet x 12 + inches, by hand
@@ -162,7 +162,7 @@ def test_round_to_sixteenth_is_a_nearest_sixteenth(inches: float) -> None:
 def test_exact_ft_in_text_survives_parse_and_format(
     feet: int, inches: int, sixteenths: int
 ) -> None:
-    # Canonical text built with fractions.Fraction (reduced independently of engine.units).
+    # Canonical text built with fractions.Fraction (reduced independently of engine.model.units).
     part = Fraction(sixteenths, 16)
     fraction = f" {part.numerator}/{part.denominator}" if sixteenths else ""
     text = f"{feet}'-{inches}{fraction}\""

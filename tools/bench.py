@@ -4,7 +4,7 @@
     python tools/bench.py --quick    # fewer repetitions
     python tools/bench.py --profile  # also cProfile the single-beam path and the 2,000-beam check
 
-"Full evaluation" is what the workbench computes for one beam (fieldcomp.outcome.compute_outcome):
+"Full evaluation" is what the workbench computes for one beam (fieldcomp.tui.outcome.compute_outcome):
 the finished beam with its stud layout (`evaluate_beam`), the construction stage
 (`evaluate_construction`), the layout as its own result (`design_layout`) and, for a beam with
 findings, the as-built evaluation. The per-stage rows beneath it have no target of their own.
@@ -57,7 +57,7 @@ def cold_command(args: list[str], repeat: int) -> tuple[float, float]:
     for _ in range(repeat):
         before = resource.getrusage(resource.RUSAGE_CHILDREN)
         t0 = time.perf_counter()
-        subprocess.run([sys.executable, "-m", "fieldcomp.cli", *args], cwd=ROOT, stdout=subprocess.DEVNULL,
+        subprocess.run([sys.executable, "-m", "fieldcomp.cli.main", *args], cwd=ROOT, stdout=subprocess.DEVNULL,
                        stderr=subprocess.DEVNULL, check=False)
         times.append(time.perf_counter() - t0)
         after = resource.getrusage(resource.RUSAGE_CHILDREN)
@@ -82,10 +82,10 @@ def cold(fn, caches: list):
 
 def stages(beam):
     """The stages of a full evaluation of `beam`, as (name, callable)."""
-    from engine.construction import evaluate_construction
-    from engine.evaluate import evaluate_beam
-    from engine.findings import evaluate_as_built
-    from engine.layout import design_layout
+    from engine.construction.evaluate import evaluate_construction
+    from engine.finished.evaluate import evaluate_beam
+    from engine.field.as_built import evaluate_as_built
+    from engine.studs.layout import design_layout
 
     out = [("evaluate_beam", lambda: evaluate_beam(beam)),
            ("evaluate_construction", lambda: evaluate_construction(beam)),
@@ -98,10 +98,10 @@ def stages(beam):
 
 def full_evaluation(beam):
     """One call running every stage of `beam` as the workbench does (see the module docstring)."""
-    from engine.construction import evaluate_construction
-    from engine.evaluate import evaluate_beam
-    from engine.findings import evaluate_as_built
-    from engine.layout import design_layout
+    from engine.construction.evaluate import evaluate_construction
+    from engine.finished.evaluate import evaluate_beam
+    from engine.field.as_built import evaluate_as_built
+    from engine.studs.layout import design_layout
 
     def run():
         evaluate_beam(beam)
@@ -130,8 +130,8 @@ def single_beam_rows(beams, quick: bool) -> list[tuple[str, float, str, float | 
 
 
 def loading_row(path: Path, quick: bool) -> tuple[str, float, str, None]:
-    from fieldcomp.jobfile import load_job
-    from fieldcomp.to_engine import to_engine
+    from fieldcomp.jobs.jobfile import load_job
+    from fieldcomp.jobs.to_engine import to_engine
 
     t = median_seconds(lambda: to_engine(load_job(path).job, path), repeat=3 if quick else 5)
     return ("  load_job + to_engine, 2,000 beams (in process)", t, "s", None)
@@ -154,8 +154,8 @@ def profile_single(beams) -> None:
 
 def profile_cli(path: Path, verb: str) -> None:
     """cProfile of the verb run in this process with the worker pool off, so the per-beam work shows."""
-    from fieldcomp.cli import main
-    from fieldcomp.commands import parallel
+    from fieldcomp.cli.main import main
+    from fieldcomp.cli import parallel
 
     prof = cProfile.Profile()
     pool_min, parallel.POOL_MIN_BEAMS = parallel.POOL_MIN_BEAMS, 10**9
@@ -176,8 +176,8 @@ def main() -> None:
     ap.add_argument("--profile", action="store_true")
     opts = ap.parse_args()
     quick = opts.quick
-    from fieldcomp.jobfile import load_job
-    from fieldcomp.to_engine import to_engine
+    from fieldcomp.jobs.jobfile import load_job
+    from fieldcomp.jobs.to_engine import to_engine
 
     beams = to_engine(load_job(DEMO).job)
     rows = single_beam_rows(beams, quick)

@@ -29,7 +29,7 @@ TARGET_MS = 100.0
 async def _edits(app, beam: int, field: str, values: list[str], log: list[float], pane: str) -> list[float]:
     """Show `pane` for beam `beam`, then edit `field` once per value, as the Beam pane's form does
     after its inline check (an `EditRequested` to the app); returns the logged times."""
-    from fieldcomp.messages import EditRequested
+    from fieldcomp.tui.messages import EditRequested
 
     app.select_beam(beam)
     app.workbench.action_pane(pane)
@@ -55,8 +55,8 @@ async def _settle(app) -> None:
 
 
 async def _run(edits: int) -> dict[str, list[float]]:
-    from fieldcomp.app import FieldcompApp
-    from fieldcomp.session import JobSession
+    from fieldcomp.tui.app import FieldcompApp
+    from fieldcomp.tui.session import JobSession
 
     results: dict[str, list[float]] = {}
     with tempfile.TemporaryDirectory() as state:

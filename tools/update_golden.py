@@ -21,7 +21,7 @@ def reports(job: Path) -> dict[str, str]:
     """The text reports of `check`, `camber` and `marks --all` for one job, run from the repo root."""
     import os
 
-    from fieldcomp.cli import main
+    from fieldcomp.cli.main import main
 
     rel = job.relative_to(ROOT).as_posix()
     out = {}

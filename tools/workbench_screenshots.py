@@ -32,8 +32,8 @@ async def _settle(app, pilot) -> None:
 
 
 async def _shoot(out: Path) -> None:
-    from fieldcomp.app import FieldcompApp
-    from fieldcomp.session import JobSession
+    from fieldcomp.tui.app import FieldcompApp
+    from fieldcomp.tui.session import JobSession
 
     with tempfile.TemporaryDirectory() as state:
         app = FieldcompApp(JobSession.open(Path("jobs") / "harbor_row_level3.toml"), state_dir=Path(state),

@@ -1,5 +1,0 @@
-"""Clause layer: small pure functions named after the symbols of ANSI/AISC 360-22.
-
-Each function's docstring names its clause on the second line. Domain modules
-(`engine.section`, `engine.construction`, `engine.layout`, ...) compose them.
-"""

@@ -1,0 +1,177 @@
+"""The camber decision and what the floor looks like if the shop delivers it at either end of
+its tolerance.
+
+Camber is ordered as a share of the predicted pre-composite dead-load deflection, rounded down
+(common practice; AISC Design Examples v16.0 Chapter I orders 80%, rounded down to 1/4 in),
+within the job's thresholds. The shop may deliver up to the AISC 303 tolerance more (never less).
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+import numpy as np
+
+from engine.model.inputs import BeamInput, CamberRules
+from engine.construction.pours import KIP_PER_IN3_PER_PCF, PourPlan
+from engine.construction.staging import StagedRun
+from engine.model.units import format_ft_in, format_inches
+
+COSP_BASE_TOLERANCE = 0.5  # in, members up to 50 ft (AISC 303 Section 6.4.4(a))
+COSP_BASE_LENGTH = 600.0  # in, 50 ft
+COSP_STEP_LENGTH = 120.0  # in, each 10 ft or fraction beyond 50 ft ...
+COSP_STEP_TOLERANCE = 0.125  # ... adds 1/8 in (AISC 303 Section 6.4.4(b))
+MIN_STUD_COVER = 0.5  # in, AISC 360-22 I3.2c.1(c)
+
+
+def camber_tolerance(length: float) -> float:
+    """Over-camber tolerance (in) for a member of `length` (in); under-camber tolerance is zero.
+    AISC 303 Code of Standard Practice Section 6.4.4 (as quoted in AISC Engineering FAQ 3.2.2):
+    -0/+1/2 in up to 50 ft, plus 1/8 in for each 10 ft or fraction thereof beyond 50 ft."""
+    if not (math.isfinite(length) and length > 0.0):
+        raise ValueError(f"member length {length} in must be > 0")
+    excess = length - COSP_BASE_LENGTH
+    steps = math.ceil(excess / COSP_STEP_LENGTH - 1e-9) if excess > 1e-9 else 0
+    return COSP_BASE_TOLERANCE + COSP_STEP_TOLERANCE * steps
+
+
+def round_down(value: float, increment: float) -> float:
+    """Largest multiple of `increment` not above `value` (common practice: camber is rounded down)."""
+    if not increment > 0.0:
+        raise ValueError(f"camber increment {increment} in must be > 0")
+    return math.floor(value / increment + 1e-9) * increment
+
+
+def nominal_depth(beam: BeamInput) -> float:
+    """Nominal depth of the W shape (in), from its designation: W14X22 -> 14."""
+    return float(beam.shape.name[1:].upper().split("X")[0])
+
+
+@dataclass(frozen=True, slots=True)
+class CamberDecision:
+    """Camber to order (in, 0 for none) and why; `target` is the unrounded share of the predicted
+    deflection; `predicted` the pre-composite dead-load deflection at midspan with this camber;
+    `tolerance` the shop's over-camber allowance (0 when none is ordered)."""
+
+    camber: float
+    reason: str
+    target: float
+    predicted: float
+    tolerance: float
+
+
+def _ruled_out(beam: BeamInput) -> str | None:
+    """Why the job's rules forbid camber on this beam, or None (common practice, DESIGN.md "Camber")."""
+    rules = beam.construction.camber
+    if rules.do_not_camber:
+        return rules.do_not_camber
+    if beam.span < rules.min_length - 1e-9:
+        return f"span {format_ft_in(beam.span)} under {format_ft_in(rules.min_length)}"
+    if nominal_depth(beam) < rules.min_depth - 1e-9:
+        return f"{nominal_depth(beam):g} in nominal depth under {format_inches(rules.min_depth)}"
+    return None
+
+
+def may_camber(beam: BeamInput, at_zero: float) -> bool:
+    """Whether any camber can be ordered for a predicted deflection `at_zero` (in) at no camber
+    (the deflection only falls as camber is added)."""
+    rules = beam.construction.camber
+    return _ruled_out(beam) is None and rules.fraction * at_zero >= rules.minimum - 1e-9
+
+
+def decide_camber(beam: BeamInput, at_zero: float, drop: float) -> CamberDecision:
+    """Camber for a predicted midspan deflection `at_zero - drop * c` at camber c (in).
+    Common practice (DESIGN.md "Camber"; "Specifying Camber", Modern Steel Construction, July 2006).
+
+    Level screeding ponds less concrete on a cambered beam, so the deflection falls with the
+    camber (`drop` >= 0; 0 for constant thickness). The order solves c = f (at_zero - drop c),
+    rounded down to the increment, so camber <= f x the deflection it will meet.
+    """
+    rules: CamberRules = beam.construction.camber
+    target = rules.fraction * at_zero / (1.0 + rules.fraction * drop) if at_zero > 0.0 else 0.0
+
+    def none(reason: str) -> CamberDecision:
+        return CamberDecision(0.0, f"not cambered: {reason}", target, at_zero, 0.0)
+
+    refused = _ruled_out(beam)
+    if refused:
+        return none(refused)
+    camber = round_down(target, rules.increment)
+    share = f"{rules.fraction:.2f} x {at_zero - drop * target:.2f} in" + (
+        " (deflection at that camber, level screed)" if drop > 0.0 else "")
+    if camber < rules.minimum - 1e-9:
+        return none(f"{share} = {target:.2f} in rounds down under the {format_inches(rules.minimum)} minimum")
+    return CamberDecision(camber, f"{share} = {target:.2f} in, rounded down to {format_inches(rules.increment)}",
+                          target, at_zero - drop * camber, camber_tolerance(beam.span))
+
+
+@dataclass(frozen=True, slots=True)
+class CamberOutcome:
+    """The floor at midspan once the slab is placed, for one delivered camber (in).
+
+    deflection: pre-composite dead-load deflection at midspan (in);
+    top_of_slab: top of slab above (+) or below (-) the level line set at the supports;
+    thickness: slab thickness over the beam (top of steel to top of slab);
+    stud_cover: concrete above the stud heads (thickness less installed stud length);
+    extra_concrete: concrete beyond the nominal thickness on the beam's tributary area (in^3).
+    """
+
+    case: str
+    camber: float
+    deflection: float
+    top_of_slab: float
+    thickness: float
+    stud_cover: float
+    extra_concrete: float
+    warnings: tuple[str, ...]
+
+
+def camber_outcome(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: StagedRun,
+                   camber: float, case: str) -> CamberOutcome:
+    """Outcome at midspan for a delivered camber.
+    Definitions of this tool (DESIGN.md "Camber"); stud cover minimum AISC 360-22 I3.2c.1(c).
+
+    Constant thickness: the slab keeps its nominal thickness and its top follows the steel, so
+    top = camber - deflection at midspan. Level: the concrete is struck off level with the
+    supports, so its top is level when placed and thickness = nominal + deflection at placement
+    - camber; steps placed later sag it by their own deflection. The stage that first placed
+    concrete at midspan decides which applies. Stud cover = thickness - stud length (1/2 in
+    minimum). Extra concrete: the ponded weight over the concrete unit weight.
+    """
+    mid = plan.midspan
+    dead, ponded = at_zero.dead[:, mid], at_zero.ponded
+    if at_one is not at_zero:  # as `blend`, for the two fields needed
+        dead = dead + camber * (at_one.dead[:, mid] - dead)
+        ponded = ponded + camber * (at_one.ponded - ponded)
+    after = np.cumsum(dead)
+    final = float(after[-1])
+    first = plan.first_placed(mid)
+    nominal = beam.slab.total_thickness
+    if plan.steps[first].level:
+        thickness = nominal + float(after[first]) - camber
+        top = -(final - float(after[first]))
+    else:
+        thickness, top = nominal, camber - final
+    cover = thickness - beam.studs.length
+    unit_weight = beam.slab.concrete_pcf * KIP_PER_IN3_PER_PCF
+    extra = float(ponded.sum()) / unit_weight
+    warnings = []
+    if cover < 0.0:
+        warnings.append(f"stud heads stand {format_inches(-cover)} proud of the slab at midspan")
+    elif cover < MIN_STUD_COVER - 1e-9:
+        warnings.append(f"stud cover {format_inches(cover)} at midspan is under the 1/2\" minimum "
+                        "(AISC 360-22 I3.2c.1(c))")
+    return CamberOutcome(case, camber, final, top, thickness, cover, extra, tuple(warnings))
+
+
+def outcome_envelope(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: StagedRun,
+                     decision: CamberDecision) -> tuple[CamberOutcome, ...]:
+    """Outcomes at the camber as ordered (the -0 end of the tolerance) and at the + end;
+    a single outcome when no camber is ordered. AISC 303 Section 6.4.4."""
+    if decision.camber <= 0.0:
+        return (camber_outcome(beam, plan, at_zero, at_one, 0.0, "not cambered"),)
+    high = decision.camber + decision.tolerance
+    return (camber_outcome(beam, plan, at_zero, at_one, decision.camber, "as ordered (-0)"),
+            camber_outcome(beam, plan, at_zero, at_one, high, f"at +{format_inches(decision.tolerance)} tolerance"))
+

@@ -1,0 +1,61 @@
+"""Finished-stage loads on a simply supported beam and their combinations.
+
+Combinations per ASCE/SEI 7-22 Section 2.3.1 (LRFD: 1.4D; 1.2D + 1.6L) and 2.4.1 (ASD: D + L),
+as used with AISC 360-22 B3.1 / B3.2.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from engine.model.deck import plf_to_kip_per_in, psf_to_kip_per_in
+from engine.model.inputs import BeamInput
+from engine.mechanics.statics import Load, PointLoad, UniformLoad
+
+LRFD_COMBINATIONS = ((1.4, 0.0), (1.2, 1.6))  # (dead, live) factors, ASCE/SEI 7-22 2.3.1 combos 1-2
+ASD_COMBINATIONS = ((1.0, 1.0),)  # ASCE/SEI 7-22 2.4.1 combo 2
+
+
+@dataclass(frozen=True, slots=True)
+class FinishedLoads:
+    """Load sets on the finished beam: `precomposite_dead` acts on the bare steel (self-weight,
+    deck, wet concrete, point-load parts placed before the slab cures); `postcomposite_dead`
+    (superimposed dead) and `live` act on the composite section."""
+
+    precomposite_dead: tuple[Load, ...]
+    postcomposite_dead: tuple[Load, ...]
+    live: tuple[Load, ...]
+
+    @property
+    def dead(self) -> tuple[Load, ...]:
+        return self.precomposite_dead + self.postcomposite_dead
+
+
+def finished_loads(beam: BeamInput) -> FinishedLoads:
+    """Line and point loads from the beam's area loads, self-weight and point loads."""
+    width = beam.tributary_width
+    pre = [
+        UniformLoad(plf_to_kip_per_in(beam.shape.weight_plf)),
+        UniformLoad(psf_to_kip_per_in(beam.slab.dead_weight_psf(), width)),
+    ]
+    post: list[Load] = [UniformLoad(psf_to_kip_per_in(beam.superimposed_dead_psf, width))]
+    live: list[Load] = [UniformLoad(psf_to_kip_per_in(beam.live_psf, width))]
+    for p in beam.point_loads:
+        pre.append(PointLoad(p.precomposite_dead, p.x))
+        post.append(PointLoad(p.dead - p.precomposite_dead, p.x))
+        live.append(PointLoad(p.live, p.x))
+    return FinishedLoads(_nonzero(pre), _nonzero(post), _nonzero(live))
+
+
+def combinations(method: str) -> tuple[tuple[float, float], ...]:
+    """(dead, live) factor pairs for the design method."""
+    return LRFD_COMBINATIONS if method == "LRFD" else ASD_COMBINATIONS
+
+
+def load_factors(loads: FinishedLoads, pairs: tuple[tuple[float, float], ...]) -> list[list[float]]:
+    """For each (dead, live) factor pair, the factor of every load of `loads.dead + loads.live`."""
+    return [[fd] * len(loads.dead) + [fl] * len(loads.live) for fd, fl in pairs]
+
+
+def _nonzero(loads: list[Load]) -> tuple[Load, ...]:
+    return tuple(ld for ld in loads if (ld.w if isinstance(ld, UniformLoad) else ld.p) != 0.0)

@@ -1,0 +1,160 @@
+"""Engine inputs: plain frozen dataclasses built by the job-file edge (`fieldcomp.jobs.jobfile`).
+
+Lengths in inches, forces in kips, stresses in ksi, area loads in psf (converted where used).
+Stations run from the beam's reference end (x = 0) to the far end (x = span).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+from engine.model.deck import Slab
+from engine.model.shapes import WShape
+
+ORIENTATIONS = ("perpendicular", "parallel")
+STUD_POSITIONS = ("strong", "weak", "center")
+SCREED_MODES = ("constant-thickness", "level")
+POUR_SIDES = ("both", "left", "right")
+FINDING_KINDS = ("missing", "failed-test", "weak-side", "off-rib", "short", "added")
+
+
+@dataclass(frozen=True, slots=True)
+class StudSpec:
+    """Headed stud anchors as specified: `count` on the whole beam, None when the layout
+    is to find the count the design needs."""
+
+    diameter: float
+    fu: float
+    length: float
+    position: str
+    count: int | None
+    max_per_rib: int = 3
+
+
+@dataclass(frozen=True, slots=True)
+class PointLoad:
+    """Concentrated load at station `x` (kips): `dead` is all dead load, of which
+    `precomposite_dead` is applied to the bare steel; `construction_live` acts during placement."""
+
+    x: float
+    dead: float
+    live: float
+    precomposite_dead: float
+    construction_live: float = 0.0
+
+
+@dataclass(frozen=True, slots=True)
+class PourStage:
+    """One placement: concrete from `start` to `end` (stations, in) on `side` of the beam at
+    `day` (days after the first placement); `screed` overrides the beam's screeding mode."""
+
+    name: str
+    start: float
+    end: float
+    side: str = "both"
+    day: float = 0.0
+    screed: str | None = None
+
+
+@dataclass(frozen=True, slots=True)
+class CamberRules:
+    """Camber decision settings (common practice defaults, see DESIGN.md "Camber")."""
+
+    fraction: float = 0.80
+    increment: float = 0.25
+    minimum: float = 0.75
+    min_length: float = 24.0 * 12.0
+    min_depth: float = 14.0
+    do_not_camber: str | None = None  # reason, e.g. "moment-connected", "spandrel", "cantilevered"
+
+
+@dataclass(frozen=True, slots=True)
+class ConstructionSpec:
+    """How the slab is placed on this beam and how the bare steel is braced meanwhile."""
+
+    live_psf: float = 25.0
+    screed: str = "constant-thickness"
+    unbraced_length: float | None = None  # None: braced by fastened perpendicular deck, else at point loads
+    pours: tuple[PourStage, ...] = ()
+    camber: CamberRules = field(default_factory=CamberRules)
+    combinations: tuple[tuple[float, float], ...] = ()  # (dead, live) factors; () = defaults of the method
+    dead_limit_ratio: float = 360.0  # span / ratio ...
+    dead_limit_max: float | None = 1.0  # ... and not over 1 in (AISC Design Guide 3, via DE16 I.1)
+    live_limit_ratio: float | None = None  # construction live-load deflection limit; None: not checked
+
+
+@dataclass(frozen=True, slots=True)
+class RibSettings:
+    """Where the ribs are along the beam and what the stations are measured from."""
+
+    reference_end: str = "left end"
+    far_end: str = "far end"
+    first_rib: float | None = None  # station of the first rib centreline; None: half a pitch
+    keep_out_start: float = 0.0  # no studs closer than this to the reference end
+    keep_out_end: float = 0.0  # ... and to the far end
+    station_origin: str = "beam-end"  # or "support" (work point)
+    end_setback: float = 0.0  # support centreline (work point) to the end of the steel, each end
+
+
+@dataclass(frozen=True, slots=True)
+class Finding:
+    """One item of a stud inspection report, located by `rib` (1-based) or `station`."""
+
+    kind: str
+    rib: int | None = None
+    station: float | None = None
+    count: int = 1
+    note: str = ""
+
+
+@dataclass(frozen=True, slots=True)
+class Limits:
+    """Serviceability limits as span / ratio (common practice defaults)."""
+
+    live_ratio: float = 360.0
+    total_ratio: float = 240.0
+
+
+@dataclass(frozen=True, slots=True)
+class BeamInput:
+    """Everything the engine needs to evaluate one simply supported composite beam.
+
+    `slab_left` / `slab_right`: slab available on each side of the beam centreline for the
+    effective width and the tributary load: half the distance to the adjacent beam, or the
+    distance to the slab edge. `load_width` overrides the tributary width for area loads
+    (e.g. 0 for a girder whose slab load arrives as beam reactions).
+    """
+
+    mark: str
+    shape: WShape
+    span: float
+    fy: float
+    slab: Slab
+    orientation: str
+    slab_left: float
+    slab_right: float
+    superimposed_dead_psf: float
+    live_psf: float
+    studs: StudSpec
+    method: str = "LRFD"
+    point_loads: tuple[PointLoad, ...] = ()
+    load_width: float | None = None
+    construction: ConstructionSpec = field(default_factory=ConstructionSpec)
+    ribs: RibSettings = field(default_factory=RibSettings)
+    findings: tuple[Finding, ...] = ()
+    limits: Limits = field(default_factory=Limits)
+    n_stations: int = 401
+    support: str = "simple"  # engine.model.scope.SUPPORTS; only "simple" is computed
+    web_openings: bool = False
+
+    @property
+    def tributary_width(self) -> float:
+        """Width of floor whose area loads the beam carries (in)."""
+        if self.load_width is not None:
+            return self.load_width
+        return self.slab_left + self.slab_right
+
+    @property
+    def deck_case(self) -> str:
+        """'none' (solid slab), 'parallel' or 'perpendicular' for AISC 360-22 I8.2a."""
+        return "none" if self.slab.deck is None else self.orientation

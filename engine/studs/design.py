@@ -1,0 +1,183 @@
+"""The work of `engine.studs.layout.design_layout`: studs placed on one beam (engine.studs.placement), their
+checks, and, when the requirement cannot be met, the shortfall and what would close it."""
+
+from __future__ import annotations
+
+import math
+from dataclasses import replace
+from functools import lru_cache
+
+import numpy as np
+
+from engine.model.results import Check, Flag
+from engine.studs.detailing import spacing_checks, spacing_limits, studs_across
+from engine.studs.layout import LayoutResult, StudLayout, layout_qn, slots_for
+from engine.model.inputs import BeamInput
+from engine.studs.placement import Arrangement, Need, Slots, arrange, slab_force_needed
+from engine.finished.slab_force import slab_force
+from engine.model.units import format_ft_in, format_inches
+
+_TOL = 1e-6
+SHORTFALL_CLAUSE = "AISC 360-22 I3.2d.1, I8.2a, I8.2c, I8.2d"
+
+
+def beam_slots(beam: BeamInput) -> Slots:
+    """The beam's slots with the strength of a slot holding 0..3 studs in the job's position
+    (perpendicular deck) or centred (parallel flute, solid slab). AISC 360-22 I8.2a."""
+    x, cap = slots_for(beam)
+    word = beam.studs.position if beam.deck_case == "perpendicular" else "center"
+    per_slot = np.concatenate(([0.0], np.arange(1, 4) * layout_qn(beam, np.arange(1, 4), word)))
+    return Slots(x, cap, np.full(x.size, word), per_slot)
+
+
+def stud_layout(slots: Slots, counts: np.ndarray, x_max: float) -> StudLayout:
+    """The layout of `counts` studs per slot; Q_n per stud from the slots' table (the same
+    values `layout_qn` gives, every slot of a design sharing one position word)."""
+    qn = slots.per_slot[counts] / np.maximum(counts, 1)
+    return StudLayout(slots.x, counts, slots.words, qn, slots.cap, x_max)
+
+
+@lru_cache(maxsize=64)
+def design(beam: BeamInput, suggest: bool = True) -> LayoutResult:
+    """Place the studs of one beam and check them (see `engine.studs.layout.design_layout`); computed
+    once per beam input, its arrays read-only."""
+    need = slab_force_needed(beam)
+    slots = beam_slots(beam)
+    total = beam.studs.count
+    arr = arrange(beam, need, slots, total)
+    layout = stud_layout(slots, arr.counts, need.x_max)
+    groups = layout.groups()
+    _, left, right = slab_force(np.array([need.x_max]), groups, math.inf)
+    provided = (float(left[0]), float(right[0]))
+    checks, flags = spacing_checks(beam, groups)
+    if total is None:
+        required = float(need.c_req.max())
+        checks.append(Check("studs develop the slab force phi Mn >= Mu needs, each side", "AISC 360-22 I3.2d.1, I8.2c",
+                            required, min(provided), "kip", station=need.x_max, kind="detailing"))
+    else:
+        required = 0.5 * total * float(slots.per_slot[1])
+        checks.append(Check("studs placed vs count on the drawings", "AISC 360-22 I8.2c, I8.2d",
+                            float(total), float(layout.total), "studs", kind="detailing"))
+        checks.append(Check("sum Qn each side vs the drawings' count at one stud per rib",
+                            "AISC 360-22 I8.2a, I8.2c", required, min(provided), "kip", station=need.x_max,
+                            kind="detailing"))
+    text = shortfall(beam, need, slots, arr, layout, required, provided, suggest)
+    if text is not None:
+        flags.append(Flag(SHORTFALL_CLAUSE, f"stud layout short: {text}"))
+    for values in (layout.x, layout.count, layout.position, layout.qn, layout.max_count):
+        values.flags.writeable = False
+    return LayoutResult(layout, required, provided[0], provided[1], text, tuple(checks), tuple(flags),
+                        "design" if total is None else "drawings")
+
+
+def envelope_misses(need: Need, layout: StudLayout) -> np.ndarray:
+    """Stations where the placed studs develop less slab force than phi Mn >= Mu needs (stations
+    where even full composite action falls short are left to that message)."""
+    _, left, right = slab_force(need.x, layout.groups(), math.inf)
+    low = need.c_req - _TOL * np.maximum(need.c_req, 1.0)
+    return np.flatnonzero(~need.short & ((left < low) | (right < low)))
+
+
+def shortfall(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, layout: StudLayout,
+              required: float, provided: tuple[float, float], suggest: bool) -> str | None:
+    """What the placed studs fail to meet, and what would close it; None when all is met."""
+    problems = _problems(beam, need, slots, arr, layout, required, provided)
+    if not problems:
+        return None
+    options = closing_options(beam, need, slots, layout, required) if suggest else []
+    return "; ".join(problems) + (". Would close it: " + "; ".join(options) if options else "")
+
+
+def _problems(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, layout: StudLayout,
+              required: float, provided: tuple[float, float]) -> list[str]:
+    if need.short.any():
+        k = int(np.argmax(np.where(need.short, need.demand, -np.inf)))
+        return [f"the demand at {format_ft_in(float(need.x[k]))} exceeds the strength with full composite action: "
+                "the shape is too light for any stud count"]
+    if not (slots.cap > 0).any():
+        return ["no slot can take a stud: the flute or flange is too narrow for the stud (AISC 360-22 I3.2c.3, "
+                "I8.2d) or the keep-out zones cover every rib"]
+    problems: list[str] = []
+    ends = (beam.ribs.reference_end, beam.ribs.far_end)
+    for h in range(2):
+        if arr.before[h] > 0.0:
+            problems.append(f"composite action ({arr.before[h]:.0f} kips) is needed nearer the {ends[h]} end than "
+                            "the first usable slot: keep-out zone or first rib too far out")
+        elif arr.full[h]:
+            problems.append(f"every usable slot on the {ends[h]} half is full and still short")
+    for start, gap in arr.gaps:
+        problems.append(f"a {format_inches(gap)} spacing from {format_ft_in(start)} has no usable slot to split it "
+                        f"(max {format_inches(spacing_limits(beam)[1])}, AISC 360-22 I8.2d)")
+    if beam.studs.count is not None:
+        problems += _drawing_problems(beam, layout, beam.studs.count, required, provided)
+    misses = envelope_misses(need, layout)
+    if misses.size and (beam.studs.count is not None or not problems):
+        problems.append(f"the studs develop less slab force than phi Mn >= Mu needs (at least 25 % of C_f at the "
+                        f"maximum moment) at {misses.size} of {need.x.size} stations, from "
+                        f"{format_ft_in(float(need.x[misses[0]]))} to {format_ft_in(float(need.x[misses[-1]]))}")
+    return problems
+
+
+def _drawing_problems(beam: BeamInput, layout: StudLayout, total: int, required: float,
+                      provided: tuple[float, float]) -> list[str]:
+    out: list[str] = []
+    if layout.total < total:
+        out.append(f"only {layout.total} of the {total} studs on the drawings fit the usable slots")
+    if min(provided) < required * (1.0 - _TOL):
+        out.append(f"the studs develop {provided[0]:.0f} / {provided[1]:.0f} kips ({beam.ribs.reference_end} / "
+                   f"{beam.ribs.far_end} side), below the {required:.0f} kips the drawings' count gives at one stud "
+                   "per rib (R_g falls in ribs with more studs, AISC 360-22 I8.2a)")
+    occupied = layout.x[layout.count > 0]
+    smax = spacing_limits(beam)[1]
+    if occupied.size > 1 and float(np.diff(occupied).max()) > smax + 1e-9:
+        gap = float(np.diff(occupied).max())
+        out.append(f"{total} studs leave a {format_inches(gap)} spacing (max {format_inches(smax)}, AISC 360-22 I8.2d)")
+    return out
+
+
+def _meets_all(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, required: float | None) -> bool:
+    layout = stud_layout(slots, arr.counts, need.x_max)
+    if any(b > 0.0 for b in arr.before) or any(arr.full) or arr.gaps or envelope_misses(need, layout).size:
+        return False
+    if required is None:
+        return True
+    _, left, right = slab_force(np.array([need.x_max]), layout.groups(), math.inf)
+    return min(float(left[0]), float(right[0])) >= required * (1.0 - _TOL)
+
+
+def closing_options(beam: BeamInput, need: Need, slots: Slots, layout: StudLayout, required: float) -> list[str]:
+    """Changes that would meet the requirement, each tried by placing the studs again."""
+    options: list[str] = []
+    if need.short.any():
+        return ["a heavier shape (no stud count reaches phi Mn >= Mu)"]
+    total = beam.studs.count
+    if total is not None:
+        for more in range(total + 1, int(slots.cap.sum()) + 1):
+            if _meets_all(beam, need, slots, arrange(beam, need, slots, more), required):
+                options.append(f"{more} studs instead of {total} (EOR to revise the count)")
+                break
+        fewest = arrange(beam, need, slots, None)
+        if _meets_all(beam, need, slots, fewest, None) and int(fewest.counts.sum()) <= layout.total:
+            options.append(f"the EOR accepting the lower degree of composite these studs give: phi Mn >= Mu holds "
+                           f"at every station with {int(fewest.counts.sum())} studs on this deck")
+    if beam.deck_case == "perpendicular" and beam.slab.deck is not None:
+        pitch = beam.slab.deck.pitch
+        now = beam.ribs.first_rib if beam.ribs.first_rib is not None else 0.5 * pitch
+        for k in range(1, 16):
+            first = round(now + k * pitch / 16.0, 4) % pitch or pitch
+            trial = replace(beam, ribs=replace(beam.ribs, first_rib=first))
+            if design(trial, suggest=False).shortfall is None:
+                options.append(f"first rib at {format_inches(first)} from the {beam.ribs.reference_end} end instead "
+                               f"of {format_inches(now)} (if the deck layout allows)")
+                break
+        if beam.studs.position == "weak":
+            trial = replace(beam, studs=replace(beam.studs, position="strong"))
+            if design(trial, suggest=False).shortfall is None:
+                options.append("studs on the strong side of each rib (R_p 0.75, AISC 360-22 I8.2a), if the "
+                               "deck's stiffener allows and the installer is told which side")
+    if beam.studs.max_per_rib < studs_across(replace(beam, studs=replace(beam.studs, max_per_rib=3))):
+        trial = replace(beam, studs=replace(beam.studs, max_per_rib=beam.studs.max_per_rib + 1))
+        if design(trial, suggest=False).shortfall is None:
+            options.append(f"allowing {beam.studs.max_per_rib + 1} studs per rib (job limit)")
+    options.append("a heavier shape (less slab force needed)")
+    return options

@@ -1,0 +1,130 @@
+"""`fieldcomp marks JOB (--beam MARK | --all) [--svg PATH] [--csv PATH] [--date TEXT]`: the studs
+of each beam rib by rib, printed as text and written as a printable SVG sheet and CSV.
+
+With --all, --svg and --csv name folders: one file per beam, named from its mark (sanitised; files
+never land outside the folder). Files are written atomically (temporary file, then replace).
+Exit codes: 0 every layout meets its requirement and the beam's flexure check, 1 some do not,
+2 bad input.
+"""
+
+from __future__ import annotations
+
+import argparse
+import re
+import sys
+from pathlib import Path
+
+from fieldcomp import CAUTION, __version__
+from fieldcomp.jobs.atomic import write_text_atomic as write_atomic
+from fieldcomp.cli.common import EXIT_FAIL, EXIT_INPUT, EXIT_PASS, fail_input
+
+_RESERVED = {"CON", "PRN", "AUX", "NUL", *(f"COM{i}" for i in range(1, 10)), *(f"LPT{i}" for i in range(1, 10))}
+
+
+def register(sub) -> None:
+    m = sub.add_parser("marks", help="stud marks rib by rib: text, printable SVG sheet, CSV")
+    m.add_argument("job", help="job file (.toml)")
+    which = m.add_mutually_exclusive_group()
+    which.add_argument("--beam", metavar="MARK", help="the beam to lay out")
+    which.add_argument("--all", action="store_true", help="every beam (then --svg / --csv name folders)")
+    m.add_argument("--svg", metavar="PATH", help="write the sheet (SVG) here (a folder with --all)")
+    m.add_argument("--csv", metavar="PATH", help="write the marks (CSV) here (a folder with --all)")
+    m.add_argument("--date", metavar="TEXT", help="date printed on the sheet (default: today, YYYY-MM-DD)")
+
+
+def safe_name(mark: str) -> str:
+    """A file name from a beam mark: letters, digits, '.', '_', '-' only (no path separators, no
+    '..', no control characters), not hidden, not a reserved device name, at most 80 characters."""
+    name = re.sub(r"[^A-Za-z0-9._-]+", "_", mark)
+    name = re.sub(r"\.{2,}", ".", name).strip("._-")[:80] or "beam"
+    return f"beam_{name}" if name.split(".")[0].upper() in _RESERVED else name
+
+
+def unique_names(marks: list[str]) -> list[str]:
+    """`safe_name` of each mark, with -2, -3 ... added where two marks give the same name."""
+    seen: dict[str, int] = {}
+    out = []
+    for mark in marks:
+        base = safe_name(mark)
+        key = base.lower()
+        seen[key] = seen.get(key, 0) + 1
+        out.append(base if seen[key] == 1 else f"{base}-{seen[key]}")
+    return out
+
+
+def inside(folder: Path, name: str) -> Path:
+    """`folder / name`, refused unless it resolves to a file directly inside `folder`."""
+    target = (folder / name).resolve()
+    if target.parent != folder.resolve():
+        raise OSError(f"{name!r} would land outside {folder}")
+    return target
+
+
+def sheet_for(job_name: str, beam, date: str):
+    """(SheetData, LayoutResult, flexure Check) of one beam. The sheet lists deck anchors and the
+    shortfall itself, so those flags are not repeated in its notes."""
+    from engine.finished.evaluate import evaluate_beam
+    from engine.studs.layout import design_layout
+    from engine.studs.design import SHORTFALL_CLAUSE
+    from engine.studs.detailing import DECK_ANCHOR_CLAUSE
+    from engine.studs.sheet_data import Envelope, SheetData
+
+    placed = design_layout(beam)
+    result = evaluate_beam(beam, placed.layout.groups())
+    flexure = next(c for c in result.checks if c.name.startswith("flexure"))
+    composite = next(c for c in result.checks if c.name.startswith("degree of composite"))
+    notes = tuple(f.message for f in placed.flags if f.clause not in (SHORTFALL_CLAUSE, DECK_ANCHOR_CLAUSE))
+    if placed.shortfall:
+        notes = (f"SHORTFALL: {placed.shortfall}",) + notes
+    sheet = SheetData(job=job_name, beam=beam, date=date, layout=placed.layout, caution=CAUTION,
+                      required_sum_qn=placed.required_sum_qn, checks=(flexure, composite) + placed.checks,
+                      notes=notes, envelope=Envelope(result.x, result.demand, result.capacity))
+    return sheet, placed, flexure
+
+
+def run(args: argparse.Namespace) -> int:
+    import datetime
+
+    from engine.studs.sheet_data import marks_text
+    from fieldcomp.cli.common import load_inputs
+    from fieldcomp.jobs.jobfile import JobFileError
+
+    if not args.all and args.beam is None:
+        print("error: give --beam MARK or --all", file=sys.stderr)
+        return EXIT_INPUT
+    try:
+        job, beams = load_inputs(args.job, None if args.all else args.beam)
+    except JobFileError as exc:
+        return fail_input(exc)
+    date = args.date if args.date is not None else datetime.date.today().isoformat()
+    sheets = [sheet_for(job.project.name, b, date) for b in beams]
+    try:
+        _write(args, [s for s, _, _ in sheets])
+    except OSError as exc:
+        return fail_input(f"cannot write: {exc.strerror or exc}")
+    print(f"fieldcomp {__version__} - stud marks, job '{job.project.name}' ({args.job})")
+    for sheet, _, _ in sheets:
+        print()
+        print(marks_text(sheet))
+    short = [s.beam.mark for s, p, f in sheets if p.shortfall is not None or not f.passed]
+    print()
+    print(f"{len(sheets)} beam(s): {len(sheets) - len(short)} laid out in full"
+          + (f", {len(short)} short ({', '.join(short)})" if short else ""))
+    return EXIT_FAIL if short else EXIT_PASS
+
+
+def _write(args: argparse.Namespace, sheets: list) -> None:
+    from engine.studs.sheet_data import marks_csv, marks_svg
+
+    for option, render, ext in ((args.svg, marks_svg, ".svg"), (args.csv, marks_csv, ".csv")):
+        if option is None:
+            continue
+        if not args.all:
+            write_atomic(Path(option), render(sheets[0]))
+            continue
+        folder = Path(option)
+        if folder.exists() and not folder.is_dir():
+            raise OSError(f"{folder} is not a folder (with --all, --svg and --csv name folders)")
+        folder.mkdir(parents=True, exist_ok=True)
+        for sheet, name in zip(sheets, unique_names([s.beam.mark for s in sheets])):
+            write_atomic(inside(folder, name + ext), render(sheet))

@@ -1,0 +1,257 @@
+"""Job files: load (TOML, validated), save (atomic, previous version kept as .bak), errors that
+name the file, the beam and the field."""
+
+from __future__ import annotations
+
+import difflib
+import hashlib
+import os
+import tomllib
+from dataclasses import dataclass
+from pathlib import Path
+from typing import Any
+
+import tomli_w
+from pydantic import BaseModel, ValidationError
+
+from fieldcomp.jobs.atomic import write_bytes_atomic
+from fieldcomp.jobs.model import Job
+
+MAX_BYTES = 20 * 1024 * 1024
+
+
+class JobFileError(ValueError):
+    """Bad job file. `problems` lists (where, message); `where` names table, beam mark and field."""
+
+    def __init__(self, path: str | os.PathLike[str], problems: list[tuple[str, str]]):
+        self.path = str(path)
+        self.problems = problems
+        lines = [f"{self.path}: {where}: {msg}" if where else f"{self.path}: {msg}" for where, msg in problems]
+        super().__init__("\n".join(lines))
+
+
+class ChangedOnDisk(RuntimeError):
+    """The file on disk changed since it was loaded; saving would overwrite someone's edit."""
+
+
+@dataclass(frozen=True, slots=True)
+class LoadedJob:
+    path: Path
+    job: Job
+    digest: str  # sha256 of the bytes loaded, to detect edits by others before saving
+
+
+def parse_job(text: str, path: str | os.PathLike[str] = "<job>") -> Job:
+    """Validate TOML text as a job; raises JobFileError naming file, beam and field."""
+    try:
+        raw = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        raise JobFileError(path, [("", f"not valid TOML: {exc}")]) from None
+    try:
+        job = Job.model_validate(raw)
+    except ValidationError as exc:
+        raise JobFileError(path, _merge([_describe(err, raw) for err in exc.errors()])) from None
+    _check_references(job, path)
+    return job
+
+
+def load_job(path: str | os.PathLike[str]) -> LoadedJob:
+    """Read and validate a job file (TOML only, never executed; refused over 20 MB)."""
+    p = Path(path)
+    try:
+        size = p.stat().st_size
+        if size > MAX_BYTES:
+            raise JobFileError(p, [("", f"file is {size / 1e6:.1f} MB; job files over 20 MB are refused")])
+        data = p.read_bytes()
+    except OSError as exc:
+        raise JobFileError(p, [("", f"cannot read: {exc.strerror or exc}")]) from None
+    try:
+        text = data.decode("utf-8")
+    except UnicodeDecodeError as exc:
+        raise JobFileError(p, [("", f"not UTF-8 text (byte {exc.start})")]) from None
+    return LoadedJob(p, parse_job(text, p), hashlib.sha256(data).hexdigest())
+
+
+def _plain(job: Job) -> dict[str, Any]:
+    """The job as plain data: keys the file gave or an edit set, no None values."""
+    return job.model_dump(mode="json", exclude_unset=True, exclude_none=True)
+
+
+def dump_job(job: Job, previous: str | None = None) -> str:
+    """The job as TOML text. Given the file's previous text, edits are merged into it so the
+    engineer's comments and layout survive (tomlkit); the merge is kept only if it reads back as
+    the same job, otherwise a plain rendering is written."""
+    plain = tomli_w.dumps(_plain(job))
+    if previous is None:
+        return plain
+    try:
+        import tomlkit
+
+        doc = tomlkit.parse(previous)
+        _merge_into(doc, _plain(job))
+        merged = tomlkit.dumps(doc)
+        if parse_job(merged) == job:
+            return merged
+    except Exception:  # noqa: BLE001 - any failure of the comment-keeping path falls back to plain TOML
+        pass
+    return plain
+
+
+def _merge_into(node: Any, new: dict[str, Any]) -> None:
+    """Make tomlkit container `node` hold `new`, touching only what differs."""
+    for key in [k for k in node if k not in new]:
+        del node[key]
+    for key, value in new.items():
+        old = node.get(key)
+        if isinstance(value, dict) and hasattr(old, "items"):
+            _merge_into(old, value)
+        elif (isinstance(value, list) and isinstance(old, list) and value and old
+              and all(isinstance(v, dict) for v in value) and all(hasattr(o, "items") for o in old)):
+            for item_old, item_new in zip(old, value):
+                _merge_into(item_old, item_new)
+            while len(old) > len(value):
+                old.pop()
+            for item_new in value[len(old):]:
+                old.append(item_new)
+        elif _unwrap(old) != value:
+            node[key] = value
+
+
+def _unwrap(value: Any) -> Any:
+    return value.unwrap() if hasattr(value, "unwrap") else value
+
+
+def save_job(job: Job, path: str | os.PathLike[str], expected_digest: str | None = None) -> str:
+    """Write the job atomically: temp file in the same folder, flush + fsync, previous version
+    kept as `<name>.bak`, then atomic replace. Returns the new digest. Raises ChangedOnDisk if
+    `expected_digest` is given and the file on disk no longer has it."""
+    p = Path(path)
+    previous = None
+    if p.exists():
+        try:
+            previous = p.read_text(encoding="utf-8")
+        except (OSError, UnicodeDecodeError):
+            previous = None
+    data = dump_job(job, previous).encode("utf-8")
+    if expected_digest is not None and p.exists():
+        if hashlib.sha256(p.read_bytes()).hexdigest() != expected_digest:
+            raise ChangedOnDisk(f"{p} changed on disk since it was opened; not overwritten")
+    if p.exists():
+        _keep_backup(p)
+    write_bytes_atomic(p, data)
+    return hashlib.sha256(data).hexdigest()
+
+
+def _keep_backup(p: Path) -> None:
+    """Copy the current file to .bak atomically (the original stays in place until replaced)."""
+    write_bytes_atomic(p.with_name(p.name + ".bak"), p.read_bytes())
+
+
+def where(table: str, index: int | None, raw_item: Any, field: str) -> str:
+    """'beam 'B-3' (#4), field 'studs.count'' style location text."""
+    name = ""
+    if isinstance(raw_item, dict):
+        key = "mark" if table == "beam" else "id"
+        if isinstance(raw_item.get(key), str):
+            name = f" '{raw_item[key]}'"
+    num = f" #{index + 1}" if index is not None else ""
+    return f"{table}{name}{num}" + (f", field '{field}'" if field else "")
+
+
+def _merge(problems: list[tuple[str, str]]) -> list[tuple[str, str]]:
+    """One line per place: the alternatives of a union ('an integer' or '"design"') joined."""
+    merged: dict[str, list[str]] = {}
+    loose: list[tuple[str, str]] = []
+    for place, msg in problems:
+        if place:
+            merged.setdefault(place, []).append(msg)
+        else:
+            loose.append((place, msg))
+    return loose + [(place, "; or ".join(msgs)) for place, msgs in merged.items()]
+
+
+def _is_union_tag(part: Any) -> bool:
+    """pydantic names union branches in error locations ('int', "literal['design']"); not fields."""
+    return isinstance(part, str) and (part in ("int", "str", "float", "bool", "none") or "[" in part)
+
+
+def _describe(err: dict[str, Any], raw: dict[str, Any]) -> tuple[str, str]:
+    full = [part for part in err["loc"] if not _is_union_tag(part)]
+    loc = list(full)
+    table = str(loc.pop(0)) if loc else ""
+    index = loc.pop(0) if loc and isinstance(loc[0], int) and table in ("beam", "deck", "slab") else None
+    item = raw.get(table) if table in raw else None
+    if index is not None and isinstance(item, list) and index < len(item):
+        item = item[index]
+    field = ".".join(str(part) for part in loc)
+    msg = str(err.get("msg", "invalid value")).removeprefix("Value error, ")
+    if err.get("type") == "extra_forbidden" and full:
+        unknown = str(full[-1])
+        parents = [p for p in full[:-1] if not isinstance(p, int)]
+        if not loc:  # an unknown top-level table
+            return "", f"unknown table {unknown!r}" + _hint(unknown, list(Job.model_fields))
+        msg = f"unknown key {unknown!r}" + _hint(unknown, _known_keys(parents))
+    elif err.get("type") == "missing":
+        if not loc and index is None:
+            return "", f"required table {table!r} is missing"
+        msg = "required key is missing"
+    elif err.get("type") in ("model_type", "dict_type"):
+        msg = f"must be a table, got {_short(err.get('input'))}"
+    elif err.get("type") == "list_type":
+        msg = f"must be a list (e.g. [[{table}]] tables), got {_short(err.get('input'))}"
+    elif "input" in err:
+        msg = f"{msg} (got {_short(err['input'])})"
+    if not loc and index is None:
+        return f"table '{table}'", msg
+    return where(table, index, item, field), msg
+
+
+def _short(value: Any) -> str:
+    text = repr(value)
+    return text if len(text) <= 60 else text[:57] + "..."
+
+
+def _known_keys(path: list[Any]) -> list[str]:
+    """Field names of the model at `path` (table and nested keys), for "did you mean" hints."""
+    model: type[BaseModel] | None = Job
+    for part in path:
+        if model is None or part not in model.model_fields:
+            return []
+        ann = model.model_fields[part].annotation
+        model = next((a for a in _flatten(ann) if isinstance(a, type) and issubclass(a, BaseModel)), None)
+    return list(model.model_fields) if model is not None else []
+
+
+def _flatten(ann: Any) -> list[Any]:
+    args = getattr(ann, "__args__", None)
+    if not args:
+        return [ann]
+    return [x for a in args for x in _flatten(a)]
+
+
+def _hint(word: str, choices: list[str]) -> str:
+    close = difflib.get_close_matches(word, choices, n=1)
+    return f"; did you mean {close[0]!r}?" if close else ""
+
+
+def _check_references(job: Job, path: str | os.PathLike[str]) -> None:
+    problems: list[tuple[str, str]] = []
+    decks = [d.id for d in job.deck]
+    slabs = [s.id for s in job.slab]
+    for table, ids in (("deck", decks), ("slab", slabs)):
+        for i, name in enumerate(ids):
+            if name in ids[:i]:
+                problems.append((f"{table} '{name}' #{i + 1}, field 'id'", "duplicate id"))
+    for i, s in enumerate(job.slab):
+        if s.deck is not None and s.deck not in decks:
+            problems.append((f"slab '{s.id}' #{i + 1}, field 'deck'",
+                             f"no deck with id {s.deck!r}" + _hint(s.deck, decks)))
+    marks: list[str] = []
+    for i, b in enumerate(job.beam):
+        if b.mark in marks:
+            problems.append((f"beam '{b.mark}' #{i + 1}, field 'mark'", "duplicate beam mark"))
+        marks.append(b.mark)
+        if b.slab not in slabs:
+            problems.append((f"beam '{b.mark}' #{i + 1}, field 'slab'", f"no slab with id {b.slab!r}" + _hint(b.slab, slabs)))
+    if problems:
+        raise JobFileError(path, problems)

@@ -1,0 +1,189 @@
+"""Pydantic models of the TOML job file. Lengths stay strings with units (as people write
+them) and are parsed by `engine.model.units.parse_length` when converted to engine inputs."""
+
+from __future__ import annotations
+
+from typing import Annotated, Literal
+
+from pydantic import AfterValidator, BaseModel, ConfigDict, Field, model_validator
+
+from engine.model.units import UnitError, parse_length
+
+
+def _length(text: str) -> str:
+    try:
+        parse_length(text)
+    except UnitError as exc:
+        raise ValueError(str(exc)) from None
+    return text
+
+
+Length = Annotated[
+    str,
+    AfterValidator(_length),
+    Field(description="A length with units: 32'-6 1/2\", 45 ft, 6.5 in, 3/4 in or 1650 mm. Bare numbers are refused.",
+          examples=["32'-6 1/2\"", "6.5 in"]),
+]
+
+
+class Strict(BaseModel):
+    model_config = ConfigDict(extra="forbid", frozen=True)
+
+
+class CamberSettings(Strict):
+    fraction: float = Field(0.80, gt=0.0, le=1.0, description="Share of the pre-composite dead-load deflection to camber out (common practice 0.80).")
+    increment: Length = Field("1/4 in", description="Camber is rounded down to this increment.")
+    minimum: Length = Field("3/4 in", description="No camber below this (common practice).")
+    min_length: Length = Field("24 ft", description="Beams shorter than this are not cambered.")
+    min_depth: Length = Field("14 in", description="Beams shallower than this are not cambered.")
+
+
+class Project(Strict):
+    name: str = Field(description="Job name printed on every report and sheet.", min_length=1, max_length=200)
+    method: Literal["LRFD", "ASD"] = Field("LRFD", description="Design method (AISC 360-22 B3.1 / B3.2).")
+    station_origin: Literal["beam-end", "support"] = Field(
+        "beam-end", description="Stations are measured from the end of the steel or from the support work point.")
+    camber: CamberSettings = Field(default_factory=CamberSettings, description="Camber decision settings.")
+
+
+class Deck(Strict):
+    id: str = Field(min_length=1, max_length=60, description="Deck name that slabs refer to.")
+    rib_height: Length = Field(description="h_r, height of the deck ribs.")
+    rib_top_width: Length = Field(description="Width of a concrete rib at the deck top.")
+    rib_bottom_width: Length = Field(description="Width of a concrete rib at the deck pan.")
+    pitch: Length = Field(description="Rib spacing, centre to centre.")
+    weight_psf: float = Field(ge=0.0, le=20.0, description="Deck weight, psf.")
+    stud_offset: Length = Field("1 1/4 in", description="Offset of an off-centre stud from the rib centreline (flute stiffener).")
+
+
+class Slab(Strict):
+    id: str = Field(min_length=1, max_length=60, description="Slab name that beams refer to.")
+    deck: str | None = Field(None, description="Deck id; leave out for a solid slab.")
+    topping: Length = Field(description="Concrete above the deck top (whole thickness of a solid slab).")
+    concrete_pcf: float = Field(ge=70.0, le=160.0, description="Concrete unit weight w_c, pcf.")
+    fc_ksi: float = Field(gt=0.0, le=20.0, description="Specified compressive strength f'c, ksi (AISC 360-22 I1.3 range is checked).")
+    lightweight: bool | None = Field(None, description="Lightweight concrete; default: w_c under 135 pcf (ACI 318-19 2.3).")
+
+
+class Studs(Strict):
+    diameter: Length = Field("3/4 in", description="Stud shank diameter d_sa.")
+    fu_ksi: float = Field(65.0, gt=0.0, le=100.0, description="Stud tensile strength F_u, ksi.")
+    length: Length = Field(description="Installed stud length (after welding).")
+    position: Literal["strong", "weak", "center"] = Field("weak", description="Stud position in the rib (AISC 360-22 I8.2a).")
+    count: int | Literal["design"] = Field(description="Studs on the whole beam as on the drawings, or \"design\" to find the count.")
+    max_per_rib: int = Field(3, ge=1, le=3, description="Most studs the job allows in one rib.")
+
+    @model_validator(mode="after")
+    def _count_range(self) -> "Studs":
+        if isinstance(self.count, int) and not 0 <= self.count <= 1000:
+            raise ValueError("count must be between 0 and 1000, or \"design\"")
+        return self
+
+
+class PointLoadIn(Strict):
+    at: Length = Field(description="Station of the load from the reference end.")
+    dead_kips: float = Field(0.0, ge=0.0, le=5000.0, description="All dead load, kips.")
+    precomposite_dead_kips: float | None = Field(None, ge=0.0, le=5000.0, description="Part of the dead load applied to the bare steel (default: all of it).")
+    live_kips: float = Field(0.0, ge=0.0, le=5000.0, description="Live load on the finished floor, kips.")
+    construction_live_kips: float = Field(0.0, ge=0.0, le=5000.0, description="Construction live load during placement, kips.")
+
+
+class Pour(Strict):
+    name: str = Field(min_length=1, max_length=60, description="Stage name.")
+    start: Length = Field("0 in", description="Station where this stage's concrete starts.")
+    end: Length | None = Field(None, description="Station where it ends (default: the far end).")
+    side: Literal["both", "left", "right"] = Field("both", description="Side of the beam the concrete is placed on.")
+    day: float = Field(0.0, ge=0.0, le=365.0, description="Days after the first placement.")
+    screed: Literal["constant-thickness", "level"] | None = Field(None, description="Overrides the beam's screeding mode.")
+
+
+ConstructionLoadClass = Literal["very-light", "light", "medium", "heavy"]
+
+
+class CombinationIn(Strict):
+    dead: float = Field(ge=0.0, le=3.0, description="Factor on the dead load (steel, deck, wet concrete).")
+    live: float = Field(ge=0.0, le=3.0, description="Factor on the construction live load.")
+
+
+class ConstructionLimitsIn(Strict):
+    dead_ratio: float = Field(360.0, ge=60.0, le=2000.0, description="Pre-composite dead-load deflection less camber: limit span / ratio (AISC Design Guide 3 via AISC Design Examples v16.0 Chapter I: 360).")
+    dead_max: Length | None = Field("1 in", description="... and not over this length (Design Guide 3: 1 in); leave out for no cap.")
+    live_ratio: float | None = Field(None, ge=60.0, le=2000.0, description="Construction live-load deflection limit, span / ratio; leave out: not checked.")
+
+
+FindingKind = Literal["missing", "failed-test", "weak-side", "off-rib", "short", "added"]
+
+
+class FindingIn(Strict):
+    kind: FindingKind = Field(description="What the inspector found.")
+    rib: int | None = Field(None, ge=1, le=10000, description="Rib number from the reference end, 1-based.")
+    station: Length | None = Field(None, description="Station from the reference end (instead of rib).")
+    count: int = Field(1, ge=1, le=3, description="Studs concerned.")
+    note: str = Field("", max_length=500, description="Inspector's note.")
+    date: str = Field("", max_length=40, description="Date of the report.")
+    reported_by: str = Field("", max_length=100, description="Who reported it.")
+
+    @model_validator(mode="after")
+    def _one_place(self) -> "FindingIn":
+        if (self.rib is None) == (self.station is None):
+            raise ValueError("give exactly one of rib or station")
+        return self
+
+
+class Beam(Strict):
+    mark: str = Field(min_length=1, max_length=40, description="Beam mark as on the framing plan.")
+    shape: str = Field(description="W shape, e.g. W21X50.", min_length=2, max_length=20)
+    span: Length = Field(description="Span between support centrelines.")
+    spacing_left: Length | None = Field(None, description="Distance to the adjacent beam on the left.")
+    spacing_right: Length | None = Field(None, description="Distance to the adjacent beam on the right.")
+    edge_left: Length | None = Field(None, description="Distance to the slab edge on the left (instead of spacing_left).")
+    edge_right: Length | None = Field(None, description="Distance to the slab edge on the right (instead of spacing_right).")
+    load_width: Length | None = Field(None, description="Tributary width for area loads (default from spacings; 0 in for a girder loaded by beams).")
+    slab: str = Field(description="Slab id.")
+    deck_orientation: Literal["perpendicular", "parallel"] = Field("perpendicular", description="Deck ribs relative to the beam.")
+    fy_ksi: float = Field(50.0, gt=0.0, le=100.0, description="Steel yield stress F_y, ksi.")
+    superimposed_dead_psf: float = Field(0.0, ge=0.0, le=1000.0, description="Dead load added after the slab cures, psf.")
+    live_psf: float = Field(0.0, ge=0.0, le=1000.0, description="Live load, psf.")
+    construction_live_psf: float = Field(25.0, ge=0.0, le=200.0, description="Construction live load during placement, psf.")
+    screed: Literal["constant-thickness", "level"] = Field("constant-thickness", description="How the slab is screeded.")
+    unbraced_length: Length | None = Field(None, description="Unbraced length of the top flange while wet (default: braced continuously by fastened perpendicular deck, otherwise at the point loads).")
+    construction_load: ConstructionLoadClass | None = Field(None, description="ASCE/SEI 37-14 Table 4-1 operational class; sets the construction live load (very-light 20, light 25, medium 50, heavy 75 psf). Give this or construction_live_psf, not both.")
+    construction_factors: list[CombinationIn] = Field(default_factory=list, description="Construction-stage load combinations for the job's method (default LRFD 1.4D and 1.2D + 1.6L, ASD D + L).")
+    construction_limits: ConstructionLimitsIn = Field(default_factory=ConstructionLimitsIn, description="Construction-stage deflection limits.")
+    camber: Literal["auto", "none"] = Field("auto", description="\"none\" for beams that must not be cambered.")
+    no_camber_reason: str | None = Field(None, max_length=80, description="Why not to camber (moment-connected, spandrel, cantilevered ...).")
+    support: Literal["simple", "continuous", "cantilever"] = Field("simple", description="Support condition; only simple spans are computed, the others are refused (AISC 360-22 I3.2b).")
+    web_openings: bool = Field(False, description="The beam has web openings (not checked: AISC Design Guide 2); reports flag it.")
+    reference_end: str = Field("left end", max_length=40, description="Name of the end stations are measured from (e.g. \"west\", \"grid 3\").")
+    far_end: str = Field("far end", max_length=40, description="Name of the other end (e.g. \"east\", \"grid 4\").")
+    end_setback: Length = Field("0 in", description="Support centreline (work point) to the end of the steel, at each end. Stations printed for the erector and finding stations are measured from the end of the steel when project.station_origin is \"beam-end\".")
+    first_rib: Length | None = Field(None, description="Station of the first rib centreline (default half a pitch).")
+    keep_out_start: Length = Field("0 in", description="No studs closer than this to the reference end.")
+    keep_out_end: Length = Field("0 in", description="No studs closer than this to the far end.")
+    live_limit_ratio: float = Field(360.0, ge=100.0, le=2000.0, description="Live-load deflection limit, span / ratio.")
+    total_limit_ratio: float = Field(240.0, ge=100.0, le=2000.0, description="Total deflection limit, span / ratio.")
+    point_loads: list[PointLoadIn] = Field(default_factory=list, description="Concentrated loads.")
+    studs: Studs = Field(description="Headed stud anchors.")
+    pour: list[Pour] = Field(default_factory=list, description="Pour stages (default: the whole slab at once).")
+    finding: list[FindingIn] = Field(default_factory=list, description="Stud inspection findings.")
+
+    @model_validator(mode="after")
+    def _sides(self) -> "Beam":
+        for side in ("left", "right"):
+            spacing, edge = getattr(self, f"spacing_{side}"), getattr(self, f"edge_{side}")
+            if (spacing is None) == (edge is None):
+                raise ValueError(f"give exactly one of spacing_{side} or edge_{side}")
+        return self
+
+    @model_validator(mode="after")
+    def _one_construction_load(self) -> "Beam":
+        if self.construction_load is not None and "construction_live_psf" in self.model_fields_set:
+            raise ValueError("give construction_load (a class) or construction_live_psf, not both")
+        return self
+
+
+class Job(Strict):
+    project: Project
+    deck: list[Deck] = Field(default_factory=list, description="Deck profiles.")
+    slab: list[Slab] = Field(description="Slabs.", min_length=1)
+    beam: list[Beam] = Field(description="Beams.", min_length=1)

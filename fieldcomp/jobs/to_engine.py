@@ -1,0 +1,150 @@
+"""Convert a validated job model into engine inputs, with errors naming file, beam and field."""
+
+from __future__ import annotations
+
+import os
+
+from engine.construction.evaluate import CONSTRUCTION_LOAD_PSF
+from engine.construction.pours import check_stages
+from engine.model.deck import DeckProfile, Slab
+from engine.model.inputs import (
+    BeamInput, CamberRules, ConstructionSpec, Finding, Limits, PointLoad, PourStage, RibSettings, StudSpec,
+)
+from engine.model.shapes import ShapeNotFound, get_shape
+from engine.model.units import parse_length
+from fieldcomp.jobs.jobfile import JobFileError
+from fieldcomp.jobs.model import Beam, Job
+
+LIGHTWEIGHT_BELOW_PCF = 135.0  # ACI 318-19 2.3: lightweight concrete 90-135 pcf equilibrium density
+
+
+def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInput]:
+    """Every beam of the job as a `BeamInput`. Raises JobFileError listing every problem."""
+    decks = {d.id: DeckProfile(d.id, parse_length(d.rib_height), parse_length(d.rib_top_width),
+                               parse_length(d.rib_bottom_width), parse_length(d.pitch), d.weight_psf,
+                               parse_length(d.stud_offset)) for d in job.deck}
+    problems: list[tuple[str, str]] = []
+    for i, d in enumerate(job.deck):
+        deck = decks[d.id]
+        for field, value in (("pitch", deck.pitch), ("rib_height", deck.rib_height),
+                             ("rib_top_width", deck.rib_top_width), ("rib_bottom_width", deck.rib_bottom_width)):
+            if value <= 0.0:
+                problems.append((f"deck '{d.id}' #{i + 1}, field '{field}'", "must be greater than zero"))
+        if deck.rib_top_width > deck.pitch:
+            problems.append((f"deck '{d.id}' #{i + 1}, field 'rib_top_width'", "wider than the pitch"))
+    slabs = {}
+    for i, s in enumerate(job.slab):
+        lightweight = s.lightweight if s.lightweight is not None else s.concrete_pcf < LIGHTWEIGHT_BELOW_PCF
+        slabs[s.id] = Slab(s.id, decks.get(s.deck) if s.deck else None, parse_length(s.topping),
+                           s.concrete_pcf, s.fc_ksi, lightweight)
+        if slabs[s.id].topping <= 0.0:
+            problems.append((f"slab '{s.id}' #{i + 1}, field 'topping'", "must be greater than zero"))
+    cam = job.project.camber
+    rules = CamberRules(cam.fraction, parse_length(cam.increment), parse_length(cam.minimum),
+                        parse_length(cam.min_length), parse_length(cam.min_depth))
+    beams: list[BeamInput] = []
+    for i, b in enumerate(job.beam):
+        here = f"beam '{b.mark}' #{i + 1}"
+        try:
+            beams.append(beam_input(job, b, slabs[b.slab], rules))
+        except _FieldProblem as exc:
+            problems.append((f"{here}, field '{exc.field}'", str(exc)))
+    if problems:
+        raise JobFileError(path, problems)
+    return beams
+
+
+class _FieldProblem(ValueError):
+    def __init__(self, field: str, message: str):
+        super().__init__(message)
+        self.field = field
+
+
+def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
+    """One beam of the job as engine input; raises _FieldProblem naming the field."""
+    try:
+        shape = get_shape(b.shape)
+    except ShapeNotFound as exc:
+        raise _FieldProblem("shape", str(exc)) from None
+    span = parse_length(b.span)
+    if not 12.0 <= span <= 1200.0:
+        raise _FieldProblem("span", f"{b.span} is outside 1 ft to 100 ft")
+    sides = []
+    for side in ("left", "right"):
+        spacing, edge = getattr(b, f"spacing_{side}"), getattr(b, f"edge_{side}")
+        value = parse_length(spacing) / 2.0 if spacing is not None else parse_length(edge)
+        if spacing is not None and value <= 0.0:
+            raise _FieldProblem(f"spacing_{side}", "must be greater than zero")
+        sides.append(value)
+    point_loads = []
+    for k, p in enumerate(b.point_loads):
+        x = parse_length(p.at)
+        if not 0.0 < x < span:
+            raise _FieldProblem(f"point_loads[{k}].at", f"{p.at} is not inside the span {b.span}")
+        pre = p.dead_kips if p.precomposite_dead_kips is None else p.precomposite_dead_kips
+        if pre > p.dead_kips:
+            raise _FieldProblem(f"point_loads[{k}].precomposite_dead_kips", "exceeds dead_kips")
+        point_loads.append(PointLoad(x, p.dead_kips, p.live_kips, pre, p.construction_live_kips))
+    pours = []
+    for k, stage in enumerate(b.pour):
+        start = parse_length(stage.start)
+        end = span if stage.end is None else parse_length(stage.end)
+        if not 0.0 <= start < end <= span + 1e-6:
+            raise _FieldProblem(f"pour[{k}]", f"stage '{stage.name}' must run from 0 to the span with start < end")
+        pours.append(PourStage(stage.name, start, min(end, span), stage.side, stage.day, stage.screed))
+    if pours:
+        try:
+            check_stages(tuple(pours), span)
+        except ValueError as exc:
+            raise _FieldProblem("pour", str(exc)) from None
+    camber = rules if b.camber == "auto" else CamberRules(
+        rules.fraction, rules.increment, rules.minimum, rules.min_length, rules.min_depth,
+        do_not_camber=b.no_camber_reason or "marked not to be cambered")
+    limits = b.construction_limits
+    construction = ConstructionSpec(
+        live_psf=b.construction_live_psf if b.construction_load is None else CONSTRUCTION_LOAD_PSF[b.construction_load],
+        screed=b.screed, unbraced_length=None if b.unbraced_length is None else parse_length(b.unbraced_length),
+        pours=tuple(pours), camber=camber, combinations=tuple((f.dead, f.live) for f in b.construction_factors),
+        dead_limit_ratio=limits.dead_ratio,
+        dead_limit_max=None if limits.dead_max is None else parse_length(limits.dead_max),
+        live_limit_ratio=limits.live_ratio)
+    keep_start, keep_end = parse_length(b.keep_out_start), parse_length(b.keep_out_end)
+    if keep_start + keep_end >= span:
+        raise _FieldProblem("keep_out_start", "keep-out zones cover the whole span")
+    setback = parse_length(b.end_setback)
+    if 2.0 * setback >= span:
+        raise _FieldProblem("end_setback", "the setbacks at both ends cover the whole span")
+    ribs = RibSettings(b.reference_end, b.far_end, None if b.first_rib is None else parse_length(b.first_rib),
+                       keep_start, keep_end, job.project.station_origin, setback)
+    # finding stations are read off the marks, so they follow the printed station convention
+    offset = setback if job.project.station_origin == "beam-end" else 0.0
+    findings = tuple(Finding(f.kind, f.rib, None if f.station is None else parse_length(f.station) + offset,
+                             f.count, f.note) for f in b.finding)
+    diameter = parse_length(b.studs.diameter)
+    if not 0.25 <= diameter <= 1.0:
+        raise _FieldProblem("studs.diameter", f"{b.studs.diameter} is outside 1/4 in to 1 in")
+    studs = StudSpec(diameter, b.studs.fu_ksi, parse_length(b.studs.length), b.studs.position,
+                     None if b.studs.count == "design" else b.studs.count, b.studs.max_per_rib)
+    return BeamInput(
+        mark=b.mark, shape=shape, span=span, fy=b.fy_ksi, slab=slab, orientation=b.deck_orientation,
+        slab_left=sides[0], slab_right=sides[1], superimposed_dead_psf=b.superimposed_dead_psf,
+        live_psf=b.live_psf, studs=studs, method=job.project.method, point_loads=tuple(point_loads),
+        load_width=None if b.load_width is None else parse_length(b.load_width),
+        construction=construction, ribs=ribs, findings=findings,
+        limits=Limits(b.live_limit_ratio, b.total_limit_ratio), support=b.support, web_openings=b.web_openings,
+    )
+
+
+def require_in_scope(beams: list[BeamInput], path: str | os.PathLike[str] = "<job>") -> None:
+    """Raise JobFileError naming beam, field and clause for every beam outside the engine's scope
+    (engine.finished.evaluate.check_scope)."""
+    from engine.finished.evaluate import OutOfScope, check_scope
+
+    problems = []
+    for b in beams:
+        try:
+            check_scope(b)
+        except OutOfScope as exc:
+            problems.append((f"beam '{b.mark}', field '{exc.field}'", str(exc)))
+    if problems:
+        raise JobFileError(path, problems)

@@ -1,0 +1,287 @@
+"""The job being edited in the workbench: the validated `Job`, undo/redo, dirty flag, the file it
+came from (path and digest), and the recovery file that keeps unsaved edits across a crash.
+
+Every edit goes through the job-file loader (`parse_job`, then `to_engine` and the engine's
+scope check, as `fieldcomp check` does), so a rejected edit carries the loader's own messages.
+"""
+
+from __future__ import annotations
+
+import hashlib
+import os
+import tempfile
+from dataclasses import dataclass, field
+from importlib.resources import files
+from pathlib import Path
+from typing import Any, Callable
+
+import tomli_w
+
+from fieldcomp.jobs.jobfile import JobFileError, dump_job, load_job, parse_job, save_job
+from fieldcomp.jobs.model import Job
+
+Path_ = tuple[str | int, ...]  # ("beam", 0, "studs", "count")
+
+# Setting one of these clears its partner, so switching e.g. from a spacing to a slab edge is
+# one edit instead of two (the loader refuses both and neither).
+PARTNERS = {"spacing_left": "edge_left", "edge_left": "spacing_left",
+            "spacing_right": "edge_right", "edge_right": "spacing_right",
+            "rib": "station", "station": "rib"}
+UNDO_DEPTH = 200
+
+
+class EditRejected(ValueError):
+    """An edit the loader refuses; `problems` are the loader's (where, message) pairs."""
+
+    def __init__(self, problems: list[tuple[str, str]]):
+        self.problems = problems
+        super().__init__("; ".join(f"{w}: {m}" if w else m for w, m in problems))
+
+
+def validate_job(job: Job, path: str | os.PathLike[str] = "<job>") -> None:
+    """Raise JobFileError if the job would not load and compute (engine conversion, scope)."""
+    from fieldcomp.jobs.to_engine import require_in_scope, to_engine
+
+    require_in_scope(to_engine(job, path), path)
+
+
+def field_text(job: Job, path: Path_) -> str:
+    """The current value at `path` as the text a person would type ('' for none)."""
+    node: Any = job
+    for part in path:
+        node = node[part] if isinstance(part, int) else getattr(node, part)
+    if node is None:
+        return ""
+    if isinstance(node, bool):
+        return "true" if node else "false"
+    if isinstance(node, float) and node.is_integer():
+        return str(int(node))
+    return str(node)
+
+
+def _raw(job: Job) -> dict[str, Any]:
+    return job.model_dump(mode="json", exclude_none=True)
+
+
+def _node(raw: dict[str, Any], path: Path_) -> Any:
+    node: Any = raw
+    for part in path:
+        node = node[part]
+    return node
+
+
+@dataclass
+class JobSession:
+    """One open job. `job` is always valid (it loads and computes); edits that are not stay out."""
+
+    job: Job
+    path: Path | None = None
+    digest: str | None = None
+    saved: Job | None = None
+    undo_stack: list[tuple[Job, str]] = field(default_factory=list)
+    redo_stack: list[tuple[Job, str]] = field(default_factory=list)
+    version: int = 0  # bumps on every change of `job`
+
+    @classmethod
+    def open(cls, path: str | os.PathLike[str]) -> "JobSession":
+        """Load a job file; raises JobFileError with the loader's messages."""
+        loaded = load_job(path)
+        validate_job(loaded.job, loaded.path)
+        return cls(loaded.job, loaded.path, loaded.digest, loaded.job)
+
+    @classmethod
+    def untitled(cls) -> "JobSession":
+        """A new job from the starter file, not yet saved anywhere."""
+        job = parse_job(files("fieldcomp.jobs").joinpath("starter.toml").read_text(encoding="utf-8"), "starter.toml")
+        return cls(job, None, None, job)
+
+    @property
+    def dirty(self) -> bool:
+        return self.saved is None or self.job != self.saved
+
+    @property
+    def name(self) -> str:
+        return self.path.name if self.path is not None else "untitled"
+
+    @property
+    def where(self) -> str:
+        return str(self.path) if self.path is not None else "<untitled>"
+
+    # -- edits -------------------------------------------------------------------------------
+    def candidate(self, change: Callable[[dict[str, Any]], None]) -> Job:
+        """The job after `change` (applied to a plain copy), validated like a loaded file."""
+        raw = _raw(self.job)
+        change(raw)
+        try:
+            job = parse_job(tomli_w.dumps(raw), self.where)
+            validate_job(job, self.where)
+        except JobFileError as exc:
+            raise EditRejected(exc.problems) from None
+        return job
+
+    def apply(self, change: Callable[[dict[str, Any]], None], description: str) -> bool:
+        """Apply a change if the loader accepts it; False when it changes nothing."""
+        job = self.candidate(change)
+        if job == self.job:
+            return False
+        self._replace(job, description)
+        return True
+
+    def set_text(self, path: Path_, text: str) -> bool:
+        """Set one field from typed text (lengths with units, numbers, words); '' clears an
+        optional field. Raises EditRejected with the loader's messages."""
+        return self.apply(_setter(path, text), f"{self.label(path)} = {text.strip() or '(none)'}")
+
+    def check_text(self, path: Path_, text: str) -> list[tuple[str, str]]:
+        """The loader's problems if `path` were set to `text` ([] when it would be accepted)."""
+        try:
+            self.candidate(_setter(path, text))
+        except EditRejected as exc:
+            return exc.problems
+        return []
+
+    def set_rows(self, path: Path_, rows: list[dict[str, Any]], description: str) -> bool:
+        """Replace the rows of a table (pour stages, findings) at `path` as one edit."""
+        def change(raw: dict[str, Any]) -> None:
+            _node(raw, path[:-1])[path[-1]] = rows
+        return self.apply(change, description)
+
+    def remove(self, path: Path_, index: int, description: str) -> bool:
+        def change(raw: dict[str, Any]) -> None:
+            del _node(raw, path)[index]
+        return self.apply(change, description)
+
+    def replace_job(self, job: Job, description: str) -> None:
+        """Take a whole validated job (restored recovery, reloaded file) as one undoable edit."""
+        validate_job(job, self.where)
+        if job != self.job:
+            self._replace(job, description)
+
+    def _replace(self, job: Job, description: str) -> None:
+        self.undo_stack.append((self.job, description))
+        del self.undo_stack[:-UNDO_DEPTH]
+        self.redo_stack.clear()
+        self.job = job
+        self.version += 1
+
+    def undo(self) -> str | None:
+        """Undo the last edit; returns its description, or None with nothing to undo."""
+        if not self.undo_stack:
+            return None
+        job, description = self.undo_stack.pop()
+        self.redo_stack.append((self.job, description))
+        self.job = job
+        self.version += 1
+        return description
+
+    def redo(self) -> str | None:
+        if not self.redo_stack:
+            return None
+        job, description = self.redo_stack.pop()
+        self.undo_stack.append((self.job, description))
+        self.job = job
+        self.version += 1
+        return description
+
+    def label(self, path: Path_) -> str:
+        """'3B-101 studs.count' style name of a field for messages and the undo list."""
+        if path[0] == "beam" and len(path) > 2 and isinstance(path[1], int):
+            return f"{self.job.beam[path[1]].mark} " + ".".join(str(p) for p in path[2:])
+        return ".".join(str(p) for p in path)
+
+    # -- files -------------------------------------------------------------------------------
+    def save(self, path: str | os.PathLike[str] | None = None, overwrite: bool = False) -> Path:
+        """Save atomically (previous version kept as .bak). Saving to the file it was loaded
+        from raises ChangedOnDisk if someone else changed it, unless `overwrite`."""
+        target = Path(path) if path is not None else self.path
+        if target is None:
+            raise ValueError("an untitled job needs a file name: use save as")
+        same = self.path is not None and target.resolve() == self.path.resolve()
+        expected = self.digest if same and not overwrite else None
+        self.digest = save_job(self.job, target, expected_digest=expected)
+        self.path = target
+        self.saved = self.job
+        return target
+
+    def changed_on_disk(self) -> bool:
+        """True if the file no longer holds the bytes loaded or saved last."""
+        if self.path is None or self.digest is None:
+            return False
+        try:
+            return hashlib.sha256(self.path.read_bytes()).hexdigest() != self.digest
+        except OSError:
+            return True
+
+    def reload(self) -> None:
+        """Read the file again (losing unsaved edits; the old job stays on the undo stack)."""
+        if self.path is None:
+            raise ValueError("an untitled job has no file to reopen")
+        loaded = load_job(self.path)
+        validate_job(loaded.job, loaded.path)
+        if loaded.job != self.job:
+            self._replace(loaded.job, f"reopen {self.path.name}")
+        self.digest, self.saved = loaded.digest, loaded.job
+
+
+def _setter(path: Path_, text: str) -> Callable[[dict[str, Any]], None]:
+    def change(raw: dict[str, Any]) -> None:
+        parent = _node(raw, path[:-1])
+        key = path[-1]
+        value = text.strip()
+        if value == "":
+            parent.pop(key, None)
+            return
+        parent[key] = value
+        partner = PARTNERS.get(str(key))
+        if partner is not None:
+            parent.pop(partner, None)
+    return change
+
+
+# -- recovery of unsaved edits ---------------------------------------------------------------
+def default_state_dir() -> Path:
+    """Where recovery files live: $FIELDCOMP_STATE_DIR, else $XDG_STATE_HOME/fieldcomp, else
+    ~/.local/state/fieldcomp."""
+    if os.environ.get("FIELDCOMP_STATE_DIR"):
+        return Path(os.environ["FIELDCOMP_STATE_DIR"])
+    base = os.environ.get("XDG_STATE_HOME") or str(Path.home() / ".local" / "state")
+    return Path(base) / "fieldcomp"
+
+
+def recovery_path(state_dir: Path, job_path: Path | None) -> Path:
+    """One recovery file per job file (by its absolute path); one for untitled jobs."""
+    if job_path is None:
+        return state_dir / "untitled.recover.toml"
+    key = hashlib.sha256(str(job_path.resolve()).encode("utf-8")).hexdigest()[:16]
+    return state_dir / f"{job_path.stem[:40]}-{key}.recover.toml"
+
+
+def write_recovery(state_dir: Path, job_path: Path | None, job: Job) -> Path:
+    """Write the unsaved job atomically (temp file + replace) to its recovery file."""
+    target = recovery_path(state_dir, job_path)
+    target.parent.mkdir(parents=True, exist_ok=True)
+    head = f"# fieldcomp recovery file: unsaved edits of {job_path.resolve() if job_path else 'an untitled job'}\n"
+    fd, tmp = tempfile.mkstemp(prefix=".recover.", suffix=".tmp", dir=target.parent)
+    try:
+        with os.fdopen(fd, "w", encoding="utf-8") as fh:
+            fh.write(head + dump_job(job))
+        os.replace(tmp, target)
+    except BaseException:
+        Path(tmp).unlink(missing_ok=True)
+        raise
+    return target
+
+
+def read_recovery(state_dir: Path, job_path: Path | None) -> Job | None:
+    """The recovered job, or None if there is none or it no longer loads."""
+    target = recovery_path(state_dir, job_path)
+    try:
+        job = parse_job(target.read_text(encoding="utf-8"), target)
+        validate_job(job, target)
+    except (OSError, UnicodeDecodeError, JobFileError):
+        return None
+    return job
+
+
+def discard_recovery(state_dir: Path, job_path: Path | None) -> None:
+    recovery_path(state_dir, job_path).unlink(missing_ok=True)

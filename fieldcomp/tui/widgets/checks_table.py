@@ -1,0 +1,26 @@
+"""A table of engine checks: verdict word, ratio, check, demand, capacity, clause."""
+
+from __future__ import annotations
+
+from rich.text import Text
+
+from engine.model.results import Check
+from fieldcomp.tui.widgets.fmt import station, value
+from fieldcomp.tui.widgets.table import Table
+
+
+def check_row(c: Check) -> tuple[Text, Text, str, str, str, str]:
+    word = Text("pass", style="green") if c.passed else Text("FAIL", style="bold red")
+    where = f" @ {station(c.station)}" if c.station is not None else ""
+    return (word, Text(f"{c.ratio:5.2f}", style="" if c.passed else "bold red"), c.name + where,
+            value(c.demand, c.unit), value(c.capacity, c.unit), c.clause)
+
+
+class ChecksTable(Table):
+    """Checks sorted by ratio, worst first."""
+
+    def __init__(self, *, id: str | None = None) -> None:
+        super().__init__("", "ratio", "check", "demand", "capacity", "source", id=id)
+
+    def show(self, checks: tuple[Check, ...] | list[Check]) -> None:
+        self.set_rows([check_row(c) for c in sorted(checks, key=lambda c: -c.ratio)])

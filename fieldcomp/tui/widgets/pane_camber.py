@@ -1,0 +1,111 @@
+"""Camber pane: the camber to order and why, the outcome at both ends of the shop tolerance,
+the construction-stage checks, warnings; and the camber schedule of every beam of the job."""
+
+from __future__ import annotations
+
+from rich.text import Text
+from textual.app import ComposeResult
+from textual.widgets import Static
+
+from engine.model.units import format_inches
+from fieldcomp.tui.outcome import BeamOutcome
+from fieldcomp.tui.session import JobSession
+from fieldcomp.tui.widgets.checks_table import ChecksTable
+from fieldcomp.tui.widgets.field_form import FieldForm, FieldSpec
+from fieldcomp.tui.widgets.fmt import signed_inches, station
+from fieldcomp.tui.widgets.pane_base import Pane
+from fieldcomp.tui.widgets.plot import Series, TerminalPlot
+from fieldcomp.tui.widgets.table import Table
+
+IN3_PER_FT3 = 1728.0  # unit conversion
+RULE_FIELDS = (
+    FieldSpec("share", ("camber", "fraction"), "Share of the pre-composite dead-load deflection to camber out (0.80 common)."),
+    FieldSpec("round down to", ("camber", "increment"), "Camber is rounded down to this increment."),
+    FieldSpec("minimum", ("camber", "minimum"), "No camber below this."),
+    FieldSpec("min span", ("camber", "min_length"), "Beams shorter than this are not cambered."),
+    FieldSpec("min depth", ("camber", "min_depth"), "Beams shallower than this are not cambered."),
+)
+
+
+def camber_word(outcome: BeamOutcome) -> str:
+    con = outcome.construction.value
+    if con is None:
+        return "-"
+    return format_inches(con.camber.camber) if con.camber.camber > 0 else "none"
+
+
+class CamberPane(Pane):
+    def build(self) -> ComposeResult:
+        yield Static("", classes="pane--head", id="camber-head")
+        yield Static("", id="camber-reason")
+        yield Static("Outcome at midspan, both ends of the shop tolerance (AISC 303 6.4.4)", classes="pane--section")
+        yield Table("case", "camber", "wet deflection", "top of slab vs supports", "slab over beam", "stud cover",
+                    "extra concrete", id="camber-envelope")
+        yield Static("", id="camber-warnings", classes="pane--warn")
+        yield TerminalPlot("Deflection while wet against the camber (down)", id="camber-plot")
+        yield Static("Construction-stage checks", classes="pane--section")
+        yield ChecksTable(id="camber-checks")
+        yield Static("Camber schedule, every beam", classes="pane--section")
+        yield Table("beam", "shape", "span", "predicted", "camber", "why", "construction", id="camber-schedule")
+        yield Static("Camber rules of the job", classes="pane--section")
+        yield FieldForm(RULE_FIELDS, id="camber-rules", columns=3)
+
+    def show_job(self, session: JobSession, index: int) -> None:
+        self.query_one(FieldForm).show(session, ("project",))
+
+    def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
+        self._schedule(outcomes)
+        envelope = self.query_one("#camber-envelope", Table)
+        con = outcome.construction.value if outcome else None
+        head = self.query_one("#camber-head", Static)
+        if outcome is None or con is None:
+            head.update(Text(outcome.construction.error if outcome else "no beam", style="bold red"))
+            self.query_one(TerminalPlot).clear("not computed")
+            envelope.set_rows([])
+            self.query_one(ChecksTable).show([])
+            return
+        b, d = con.beam, con.camber
+        order = (Text(f" order camber {format_inches(d.camber)} ", style="bold reverse")
+                 if d.camber > 0 else Text(" no camber ", style="bold reverse"))
+        tol = f"  shop tolerance -0 / +{format_inches(d.tolerance)}" if d.camber > 0 else ""
+        head.update(Text.assemble(f"{b.mark}  {b.shape.name}  ", order, tol))
+        self.query_one("#camber-reason", Static).update(
+            f"{d.reason}.  Predicted pre-composite dead-load deflection at midspan {signed_inches(d.predicted)} "
+            f"(constant thickness would give {signed_inches(con.at_midspan(con.no_ponding))}).")
+        envelope.set_rows([(o.case, format_inches(o.camber), signed_inches(o.deflection), signed_inches(o.top_of_slab),
+                            signed_inches(o.thickness),
+                            Text(signed_inches(o.stud_cover), style="bold red" if o.warnings else ""),
+                            f"{o.extra_concrete / IN3_PER_FT3:.1f} ft3") for o in con.outcomes])
+        self.query_one("#camber-warnings", Static).update(
+            "\n".join(f"{o.case}: {w}" for o in con.outcomes for w in o.warnings))
+        self._profile(con)
+        self.query_one(ChecksTable).show(con.checks)
+
+    def _profile(self, con) -> None:
+        """The predicted pre-composite deflection against the camber ordered and the camber the
+        shop may deliver (engine.mechanics.ponding.camber_shape scaled by the engine's camber values)."""
+        from engine.mechanics.ponding import camber_shape
+
+        x, b, d = con.x, con.beam, con.camber
+        series = [Series("pre-composite dead-load deflection", x, con.run.total, tone=0)]
+        if d.camber > 0:
+            shape = camber_shape(x, b.span)
+            series += [Series(f"camber {format_inches(d.camber)} ordered", x, d.camber * shape, tone=2),
+                       Series(f"camber {format_inches(d.camber + d.tolerance)} (+tolerance)", x,
+                              (d.camber + d.tolerance) * shape, tone=3)]
+        self.query_one(TerminalPlot).plot(series, b.span, downward=True, fmt=signed_inches)
+
+    def _schedule(self, outcomes: list[BeamOutcome]) -> None:
+        table = self.query_one("#camber-schedule", Table)
+        rows = []
+        for o in outcomes:
+            con = o.construction.value
+            if con is None:
+                rows.append((o.beam.mark, o.beam.shape.name, "", "", Text("error", style="red"),
+                             o.construction.error or "", ""))
+                continue
+            d = con.camber
+            word = Text(con.verdict, style="green" if con.verdict == "pass" else "bold red")
+            rows.append((o.beam.mark, o.beam.shape.name, station(o.beam.span),
+                          signed_inches(d.predicted), Text(camber_word(o), style="bold"), d.reason, word))
+        table.set_rows(rows)

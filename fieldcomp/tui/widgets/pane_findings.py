@@ -1,0 +1,187 @@
+"""Findings pane: enter or import inspection findings; as-built strength, verdict, repair."""
+
+from __future__ import annotations
+
+from pathlib import Path
+from typing import Any
+
+import numpy as np
+from rich.text import Text
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.widgets import Button, Static
+
+from fieldcomp.tui.outcome import BeamOutcome
+from fieldcomp.tui.session import JobSession
+from fieldcomp.tui.widgets.checks_table import ChecksTable
+from fieldcomp.tui.widgets.field_form import FieldSpec
+from fieldcomp.tui.widgets.fmt import station
+from fieldcomp.tui.widgets.pane_base import ROW_KEYS, Pane
+from fieldcomp.tui.widgets.plot import Series, TerminalPlot
+from fieldcomp.tui.widgets.row_editor import RowEditor
+from fieldcomp.tui.widgets.strip import StripMark, StudStrip, legend
+
+FINDING_FIELDS = (
+    FieldSpec("kind", ("kind",), "What the inspector found.",
+              ("missing", "failed-test", "weak-side", "off-rib", "short", "added")),
+    FieldSpec("rib", ("rib",), "Rib number from the reference end, 1-based (clears station)."),
+    FieldSpec("station", ("station",), "Station from the reference end (clears rib)."),
+    FieldSpec("count", ("count",), "Studs concerned."),
+    FieldSpec("note", ("note",), "Inspector's note."),
+    FieldSpec("date", ("date",), "Date of the report."),
+    FieldSpec("by", ("reported_by",), "Who reported it."),
+)
+
+
+def with_new_finding(rows: list[dict[str, Any]], beam: Any) -> list[dict[str, Any]]:
+    return rows + [{"kind": "missing", "rib": 1, "count": 1}]
+
+
+def as_built_marks(ab, slots: tuple[int, ...], repair) -> list[StripMark]:
+    """Strip marks of the studs as built: working, weak-side, added, each loss by its kind (at
+    the slot the engine found for it), and the studs the repair adds."""
+    st, x = ab.state, ab.designed.x
+    marks = []
+    for k in range(x.size):
+        working = int(st.effective[k] - st.weak[k] - st.added[k])
+        for kind, n in (("stud", working), ("weak-side", int(st.weak[k])), ("added", int(st.added[k]))):
+            if n > 0:
+                marks.append(StripMark(float(x[k]), n, kind))
+    for f, k in zip(ab.beam.findings, slots):
+        if f.kind not in ("added", "weak-side"):
+            marks.append(StripMark(float(x[k]), f.count, f.kind))
+    if repair is not None:
+        marks += [StripMark(float(x[k]), int(n), "repair") for k, n in enumerate(repair.added) if n > 0]
+    return marks
+
+
+class FindingsEditor(RowEditor):
+    def extra_buttons(self) -> ComposeResult:
+        yield Button("Import CSV", id="finding-import", tooltip="Add findings from an inspection log (CSV).", compact=True)
+
+    def on_button_pressed(self, event: Button.Pressed) -> None:
+        """Import here; Add and Remove are handled by RowEditor (Textual also calls the base
+        class handler unless the default is prevented)."""
+        if event.button.id == "finding-import":
+            event.stop()
+            event.prevent_default()
+            self.ask_import()
+
+    def ask_import(self) -> None:
+        from fieldcomp.tui.screens.dialogs import AskPath
+
+        self.app.push_screen(AskPath("Import inspection log (CSV)", str(Path.cwd()) + "/",
+                                     "Columns: kind, rib or station, count, note, date, reported_by."), self.import_csv)
+
+    def import_csv(self, path: Path | None) -> None:
+        from fieldcomp.jobs.inspection_log import CsvImportError, read_findings_csv
+
+        if path is None:
+            return
+        try:
+            rows = read_findings_csv(path)
+        except CsvImportError as exc:
+            self.app.notify(str(exc), title="Not imported", severity="error", timeout=12)
+            return
+        items = [f.model_dump(mode="json", exclude_defaults=True, exclude_none=True) for _, f in rows]
+        self.add(items, f"import {len(items)} finding(s) from {path.name}")
+
+
+class FindingsPane(Pane):
+    BINDINGS = [*ROW_KEYS, Binding("f8", "import_csv", "Import CSV", id="findings.import",
+                                   tooltip="Add findings from an inspection log (CSV).")]
+
+    def action_import_csv(self) -> None:
+        self.query_one(FindingsEditor).ask_import()
+
+    def build(self) -> ComposeResult:
+        yield Static("", classes="pane--head", id="findings-head")
+        yield FindingsEditor("finding", "finding", FINDING_FIELDS, with_new_finding, id="findings-rows",
+                             empty="No findings for this beam. Add them one by one or import an inspection log (CSV).")
+        yield Static("", id="findings-verdict")
+        yield StudStrip(id="findings-strip")
+        yield Static("", id="findings-legend", classes="pane--note")
+        yield TerminalPlot("Strength as built", id="findings-envelope")
+        yield Static("", id="findings-repair")
+        yield Static("Checks as built", classes="pane--section")
+        yield ChecksTable(id="findings-checks")
+        yield Static("", id="findings-effects", classes="pane--note")
+
+    def show_job(self, session: JobSession, index: int) -> None:
+        self.query_one(RowEditor).show(session, index)
+        self.query_one("#findings-head", Static).update(f"{session.job.beam[index].mark}: stud inspection findings")
+
+    def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
+        verdict = self.query_one("#findings-verdict", Static)
+        strip, plot = self.query_one(StudStrip), self.query_one(TerminalPlot)
+        repair_text = self.query_one("#findings-repair", Static)
+        ab = outcome.as_built.value if outcome else None
+        if outcome is None or ab is None:
+            error = outcome.as_built.error if outcome else None
+            verdict.update(Text(error, style="bold red") if error else "No findings: the beam stands as designed.")
+            strip.clear("")
+            plot.clear("")
+            repair_text.update("")
+            self.query_one(ChecksTable).show([])
+            self.query_one("#findings-effects", Static).update("")
+            return
+        b, r, gov = ab.beam, ab.result, ab.governing
+        low, at = ab.min_strength_ratio
+        word = Text(" PASS ", style="bold reverse green") if ab.verdict == "pass" else Text(" FAIL ", style="bold reverse red")
+        verdict.update(Text.assemble("As built: ", word, f"  governing: {gov.name}, ratio {gov.ratio:.2f};  "
+                                     f"least capacity / demand {low:.2f} at {station(at)};  "
+                                     f"{ab.layout.total} working studs of {ab.designed.total} designed"))
+        repair = outcome.repair.value if outcome.repair is not None else None
+        strip.draw(b.span, ab.designed.x, as_built_marks(ab, outcome.finding_slots, repair), ends=(b.ribs.reference_end, b.ribs.far_end),
+                   keep_out=(b.ribs.keep_out_start, b.ribs.keep_out_end))
+        kinds = {"stud"} | {f.kind for f in b.findings} | ({"repair"} if repair is not None and repair.total else set())
+        self.query_one("#findings-legend", Static).update(legend(kinds))
+        designed = outcome.result
+        series = [Series("demand", r.x, r.demand / 12.0, hatch=True, over=r.demand > r.capacity, tone=4)]
+        if designed is not None:
+            series.append(Series("as designed", designed.x, designed.capacity / 12.0, tone=5))
+        if repair is not None and repair.total:
+            series.append(Series("repaired", repair.after.result.x, repair.after.result.capacity / 12.0, tone=2))
+        series.append(Series("as built", r.x, r.capacity / 12.0, tone=3 if ab.verdict == "fail" else 0))
+        plot.plot(series, b.span, fmt=lambda v: f"{v:,.0f} k-ft")
+        repair_text.update(self._repair_text(outcome, ab, repair))
+        self.query_one(ChecksTable).show(ab.checks)
+        self.query_one("#findings-effects", Static).update(self._effects(b.findings, ab.flags))
+
+    @staticmethod
+    def _repair_text(outcome: BeamOutcome, ab, repair) -> Text:
+        from engine.studs.ribs import printed_station
+
+        if ab.verdict == "pass":
+            return Text("No repair needed: every check passes as built.", style="green")
+        if outcome.repair is None:
+            return Text("Finding the fewest studs to add ...", style="italic")
+        if repair is None:
+            return Text(f"Repair not found: {outcome.repair.error}", style="bold red")
+        out = Text()
+        b = ab.beam
+        if repair.total:
+            proof = ("the fewest possible (equals the lower bound)" if repair.proven_fewest
+                     else f"lower bound {repair.lower_bound}")
+            out.append(f"Proposed repair: add {repair.total} stud(s), {proof}"
+                       f"{'' if repair.restores else ' - does NOT restore every check'}\n", style="bold")
+            for k in np.flatnonzero(repair.added):
+                at = station(float(printed_station(b, float(ab.designed.x[k]))))
+                out.append(f"  rib {k + 1} at {at} from {b.ribs.reference_end}: "
+                           f"add {int(repair.added[k])}\n")
+            after = repair.after
+            out.append(f"  after repair: {after.verdict.upper()}, governing {after.governing.name} "
+                       f"{after.governing.ratio:.2f}\n")
+        for alt in repair.alternatives:
+            out.append(f"  option: {alt}\n", style="yellow")
+        out.append("Field repairs need the engineer of record's approval.", style="dim")
+        return out
+
+    @staticmethod
+    def _effects(findings, flags) -> str:
+        from engine.field.as_built import FINDING_EFFECTS
+
+        kinds = sorted({f.kind for f in findings})
+        lines = [f"{k}: {FINDING_EFFECTS[k][0]} [{FINDING_EFFECTS[k][1]}]" for k in kinds if k in FINDING_EFFECTS]
+        lines += [f"note [{f.clause}] {f.message}" for f in flags]
+        return "\n".join(lines)
