@@ -12,7 +12,7 @@ Units: kip, in. Tolerance 1% unless noted.
 import numpy as np
 import pytest
 
-from engine.finished.evaluate import evaluate_beam
+from engine.studs.evaluate import evaluate_studs
 from engine.model.inputs import BeamInput
 from engine.finished.slab_force import StudGroups, stud_qn
 
@@ -30,7 +30,7 @@ def example_studs(beam: BeamInput) -> StudGroups:
 @pytest.fixture(scope="module")
 def result():
     beam = girder()
-    return evaluate_beam(beam, example_studs(beam))
+    return evaluate_studs(beam, example_studs(beam))
 
 
 def test_example_i2_stud_strength(result):

@@ -75,7 +75,7 @@ def test_empty_log_is_refused():
 
 def _occupied_ribs(mark: str) -> list[int]:
     """Rib numbers holding exactly one stud in the demo beam's layout (engine.studs.layout.design_layout)."""
-    from engine.studs.layout import design_layout
+    from engine.studs.design import design_layout
     from fieldcomp.jobs.jobfile import load_job
     from fieldcomp.jobs.to_engine import to_engine
 

@@ -14,9 +14,10 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 from engine.construction.evaluate import evaluate_construction
-from engine.finished.evaluate import OutOfScope, check_scope, evaluate_beam
+from engine.model.scope import OutOfScopeError, check_scope
+from engine.pipeline import evaluate_beam
 from engine.field.as_built import FindingError, evaluate_as_built
-from engine.studs.layout import design_layout
+from engine.studs.design import design_layout
 from fieldcomp.jobs.jobfile import JobFileError, parse_job
 from fieldcomp.jobs.to_engine import to_engine
 
@@ -98,7 +99,7 @@ def load_and_evaluate(text: str) -> None:
     for beam in to_engine(job, PATH):
         try:
             check_scope(beam)
-        except OutOfScope:
+        except OutOfScopeError:
             continue
         checks = list(evaluate_beam(beam).checks) + list(evaluate_construction(beam).checks)
         checks += list(design_layout(beam).checks)

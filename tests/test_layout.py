@@ -17,8 +17,11 @@ from hypothesis import strategies as st
 
 from engine.codes.aisc360_22.i3_composite import plastic_moment
 from engine.model.deck import DeckProfile, Slab
-from engine.finished.evaluate import evaluate_beam, moment_demand, slab_limits
-from engine.studs.layout import deck_anchor_slots, design_layout, flute_pitch, layout_qn, slots_for
+from engine.finished.basis import moment_demand, slab_limits
+from engine.pipeline import evaluate_beam
+from engine.studs.evaluate import evaluate_studs
+from engine.studs.design import design_layout
+from engine.studs.layout import deck_anchor_slots, flute_pitch, layout_qn, slots_for
 from engine.model.inputs import BeamInput, PointLoad, RibSettings, StudSpec
 from engine.model.shapes import get_shape
 from engine.model.units import format_ft_in
@@ -143,7 +146,7 @@ def test_too_many_studs_for_the_ribs_are_not_forced_in():
 def test_design_count_is_the_fewest_singles_that_meet_the_envelope():
     b = beam(span=360.0, count=None, shape="W18X35", live=100.0, ribs=RibSettings("grid 2", "grid 3"))
     r = design_layout(b)
-    res = evaluate_beam(b, r.layout.groups())
+    res = evaluate_studs(b, r.layout.groups())
     assert r.shortfall is None and np.all(res.capacity >= res.demand)
     # one stud fewer (the one nearest midspan on the side with more) no longer meets the envelope
     counts = r.layout.count.copy()
@@ -151,7 +154,7 @@ def test_design_count_is_the_fewest_singles_that_meet_the_envelope():
     side = np.flatnonzero((counts > 0) & ((r.layout.x < r.layout.x_flip) == left_heavy))
     counts[side[-1] if left_heavy else side[0]] -= 1
     fewer = replace(r.layout, count=counts, qn=layout_qn(b, counts, r.layout.position))
-    res2 = evaluate_beam(b, fewer.groups())
+    res2 = evaluate_studs(b, fewer.groups())
     assert np.any(res2.capacity < res2.demand * (1 - 1e-9)) or res2.composite_ratio < 0.25
 
 

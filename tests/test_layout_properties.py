@@ -16,8 +16,9 @@ from hypothesis import strategies as st
 
 from engine.model.deck import DeckProfile, Slab
 from engine.studs.detailing import off_web_allowed, spacing_limits, studs_per_slot
-from engine.finished.evaluate import evaluate_beam
-from engine.studs.layout import design_layout, layout_qn
+from engine.studs.evaluate import evaluate_studs
+from engine.studs.design import design_layout
+from engine.studs.layout import layout_qn
 from engine.model.inputs import BeamInput, PointLoad, RibSettings, StudSpec
 from engine.studs.ribs import in_keep_out
 from engine.finished.slab_force import slab_force
@@ -87,7 +88,7 @@ def test_no_limit_broken_and_requirement_met_or_shortfall_reported(beam):
     if result.shortfall is not None:
         assert result.shortfall.strip()
         return
-    r = evaluate_beam(beam, groups)
+    r = evaluate_studs(beam, groups)
     occupied = lay.x[lay.count > 0]
     if occupied.size > 1:
         assert np.diff(occupied).max() <= spacing_limits(beam)[1] + 1e-9  # I8.2d maximum

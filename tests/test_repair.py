@@ -105,7 +105,7 @@ def test_no_room_gives_alternatives_not_a_repair():
 
 
 def test_demo_beam_repair_restores_and_every_stud_is_needed():
-    from engine.studs.layout import design_layout
+    from engine.studs.design import design_layout
     from fieldcomp.jobs.jobfile import load_job
     from fieldcomp.jobs.to_engine import to_engine
 

@@ -12,8 +12,8 @@ from dataclasses import replace
 import numpy as np
 import pytest
 
-from engine.finished.evaluate import evaluate_beam
-from engine.studs.layout import design_layout
+from engine.studs.evaluate import evaluate_studs
+from engine.studs.design import design_layout
 from engine.model.inputs import RibSettings
 from engine.studs.sheet_data import CSV_COLUMNS, Envelope, SheetData, mark_rows, marks_csv, marks_svg, marks_text, totals
 from fieldcomp.views.marks_svg import X0, X1
@@ -26,7 +26,7 @@ CAUTION = "Results support, and do not replace, the engineer of record."
 
 def sheet_of(b, **kw) -> SheetData:
     placed = design_layout(b)
-    r = evaluate_beam(b, placed.layout.groups())
+    r = evaluate_studs(b, placed.layout.groups())
     base = dict(job="Test job", beam=b, date="2025-01-15", layout=placed.layout, caution=CAUTION,
                 required_sum_qn=placed.required_sum_qn, checks=placed.checks,
                 envelope=Envelope(r.x, r.demand, r.capacity))

@@ -5,7 +5,7 @@ from pathlib import Path
 
 import pytest
 
-from engine.studs.layout import design_layout
+from engine.studs.design import design_layout
 from engine.studs.sheet_data import SheetData, mark_rows
 from engine.model.units import parse_length
 from fieldcomp.jobs.jobfile import parse_job

@@ -13,7 +13,8 @@ from engine.codes.aisc360_22.i8_anchors import qn_stud, rg_rp, stud_area
 from engine.codes.aisc360_22.i3_composite import effective_width, plastic_moment
 from engine.codes.aisc360_22.i1_materials import ec
 from engine.model.deck import DeckProfile, Slab
-from engine.finished.evaluate import OutOfScope, check_scope, evaluate_beam
+from engine.model.scope import OutOfScopeError, check_scope
+from engine.pipeline import evaluate_beam
 from engine.model.inputs import BeamInput, StudSpec
 from engine.model.shapes import find_shapes
 from engine.mechanics.statics import UniformLoad, deflection, stations
@@ -126,7 +127,7 @@ def test_out_of_scope_inputs_refused_with_clause(change, clause):
     b = BeamInput(mark="X", shape=shape, span=360.0, fy=50.0, slab=slab, orientation="perpendicular",
                   slab_left=60.0, slab_right=60.0, superimposed_dead_psf=0.0, live_psf=50.0,
                   studs=StudSpec(0.75, 65.0, 5.0, "weak", 20))
-    with pytest.raises(OutOfScope, match=clause):
+    with pytest.raises(OutOfScopeError, match=clause):
         check_scope(b)
-    with pytest.raises(OutOfScope):
+    with pytest.raises(OutOfScopeError):
         evaluate_beam(b)

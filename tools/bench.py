@@ -83,9 +83,9 @@ def cold(fn, caches: list):
 def stages(beam):
     """The stages of a full evaluation of `beam`, as (name, callable)."""
     from engine.construction.evaluate import evaluate_construction
-    from engine.finished.evaluate import evaluate_beam
+    from engine.pipeline import evaluate_beam
     from engine.field.as_built import evaluate_as_built
-    from engine.studs.layout import design_layout
+    from engine.studs.design import design_layout
 
     out = [("evaluate_beam", lambda: evaluate_beam(beam)),
            ("evaluate_construction", lambda: evaluate_construction(beam)),
@@ -99,9 +99,9 @@ def stages(beam):
 def full_evaluation(beam):
     """One call running every stage of `beam` as the workbench does (see the module docstring)."""
     from engine.construction.evaluate import evaluate_construction
-    from engine.finished.evaluate import evaluate_beam
+    from engine.pipeline import evaluate_beam
     from engine.field.as_built import evaluate_as_built
-    from engine.studs.layout import design_layout
+    from engine.studs.design import design_layout
 
     def run():
         evaluate_beam(beam)

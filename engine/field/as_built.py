@@ -14,7 +14,8 @@ import numpy as np
 
 from engine.model.results import Check, Flag
 from engine.studs.detailing import DECK_ANCHOR_SPACING_MAX
-from engine.finished.evaluate import BeamResult, evaluate_beam, governing_check
+from engine.finished.evaluate import BeamResult, governing_check
+from engine.studs.evaluate import evaluate_studs
 from engine.studs.layout import StudLayout
 from engine.model.inputs import FINDING_KINDS, BeamInput, Finding
 from engine.finished.slab_force import stud_qn
@@ -217,7 +218,7 @@ class AsBuiltResult:
 def assess(beam: BeamInput, designed: StudLayout, state: RibState, designed_gap: float | None = None) -> AsBuiltResult:
     """Evaluate the finished beam with the studs of `state` (one `evaluate_beam` call)."""
     layout = state_layout(beam, designed, state)
-    result = evaluate_beam(beam, layout.groups())
+    result = evaluate_studs(beam, layout.groups())
     if designed_gap is None:
         designed_gap = longest_anchor_gap(beam, designed)[0]
     gap, start = longest_anchor_gap(beam, layout)

@@ -18,7 +18,7 @@ from itertools import combinations_with_replacement
 import numpy as np
 
 from engine.studs.detailing import DECK_ANCHOR_SPACING_MAX, spacing_checks, spacing_limits
-from engine.finished.evaluate import evaluate_beam
+from engine.studs.evaluate import evaluate_studs
 from engine.field.as_built import AsBuiltResult, RibState, assess, slot_strength, state_layout
 from engine.model.inputs import BeamInput, Finding
 from engine.finished.slab_force import StudGroups, slab_force
@@ -88,7 +88,7 @@ def _flat_force(r: AsBuiltResult, t: float) -> tuple[np.ndarray, bool]:
     the supports): (flexure passes per station, the other stud-dependent checks pass)."""
     beam = r.beam
     groups = StudGroups(np.array([0.0, beam.span]), np.array([1, 1]), np.array([t, t]))
-    trial = evaluate_beam(beam, groups)
+    trial = evaluate_studs(beam, groups)
     geometric = {c.name for c in spacing_checks(beam, groups)[0]}
     others = all(c.passed for c in trial.checks if c.name not in geometric and c.unit != "kip-in")
     return trial.demand <= trial.capacity * (1.0 + _TOL), others

@@ -1,44 +1,27 @@
-"""Finished-beam evaluation: one entry point used by the CLI, the workbench, sheets and tests.
+"""Finished-beam evaluation for a given set of studs.
 
 Composite flexure along the span (AISC 360-22 I3.2a with the slab force available at each
 station, I3.2d.1 / I8.2c), web shear on the steel alone (I4.3, G2.1), live-load and total
-deflection with I_LB (Commentary Eq. C-I3-1), minimum degree of composite, and detailing.
+deflection with I_LB (Commentary Eq. C-I3-1) and the minimum degree of composite. The studs and
+their detailing results come in as arguments (engine.pipeline composes them).
 """
 
 from __future__ import annotations
 
 from dataclasses import dataclass
-from functools import lru_cache
 
 import numpy as np
 
-from engine.codes.aisc360_22.i3_composite import (
-    effective_width,
-    equivalent_inertia,
-    lower_bound_inertia,
-    pna_label,
-    plastic_moment,
-    transformed_inertia,
-)
-from engine.codes.aisc360_22.i1_materials import E_STEEL, ec, fc_strength_range
-from engine.codes.aisc360_22.g_shear import ShearStrength, web_shear_strength
-from engine.model.results import Check, Flag
-from engine.studs.detailing import deck_checks, spacing_checks
-from engine.finished.loads import FinishedLoads, combinations, finished_loads, load_factors
-from engine.model.inputs import BeamInput
+from engine.codes.aisc360_22.i1_materials import E_STEEL
+from engine.codes.aisc360_22.i3_composite import equivalent_inertia, lower_bound_inertia, pna_label
+from engine.finished.basis import FinishedBasis, available_strength, composite_strength, finished_basis
 from engine.finished.slab_force import StudGroups, slab_force
-from engine.mechanics.statics import deflection_rows, factored_max_abs_shear, factored_moment, stations
+from engine.mechanics.statics import deflection_rows
+from engine.model.inputs import BeamInput
+from engine.model.results import Check, Flag
+from engine.model.scope import check_scope
 
-PHI_B, OMEGA_B = 0.90, 1.67  # AISC 360-22 I3.2a
 MIN_COMPOSITE = 0.25  # Commentary I3.2a/I3.2d lower limit of the I_equiv fit (common practice minimum)
-
-
-class OutOfScope(ValueError):
-    """The input lies outside what the engine checks; the message names the clause."""
-
-    def __init__(self, field: str, message: str):
-        super().__init__(message)
-        self.field = field
 
 
 @dataclass(frozen=True, slots=True)
@@ -105,190 +88,15 @@ def governing_check(checks: tuple[Check, ...] | list[Check]) -> Check:
     return max(pool, key=lambda c: c.ratio)
 
 
-def check_scope(beam: BeamInput) -> None:
-    """Refuse inputs outside the engine's scope, naming the clause (AISC 360-22 I1.3, I3.2c.1)."""
-    lo, hi = fc_strength_range(beam.slab.lightweight)
-    if not lo <= beam.slab.fc_ksi <= hi:
-        kind = "lightweight" if beam.slab.lightweight else "normal-weight"
-        raise OutOfScope("fc_ksi", f"f'c = {beam.slab.fc_ksi:g} ksi is outside {lo:g}-{hi:g} ksi for "
-                         f"{kind} concrete (AISC 360-22 I1.3); not computed")
-    deck = beam.slab.deck
-    if deck is not None and deck.rib_height > 3.0:
-        raise OutOfScope("rib_height", f"rib height {deck.rib_height:g} in exceeds 3 in "
-                         "(AISC 360-22 I3.2c.1(a)); not computed")
-    if deck is not None and beam.studs.diameter > 0.75:
-        raise OutOfScope("diameter", f"stud diameter {beam.studs.diameter:g} in exceeds 3/4 in through deck "
-                         "(AISC 360-22 I8.1 / I3.2c.1(c)); not computed")
-    if beam.support != "simple":
-        raise OutOfScope("support", f"a {beam.support} beam has negative moment over its supports (AISC 360-22 I3.2b); "
-                         "fieldcomp computes simply supported beams only; not computed")
-    if beam.fy > 70.0:
-        raise OutOfScope("fy_ksi", f"Fy = {beam.fy:g} ksi exceeds 70 ksi; plastic stress distribution "
-                         "not established (AISC 360-22 I3.2a); not computed")
-
-
-@dataclass(frozen=True, slots=True)
-class Demand:
-    """Finished-beam demand along the span: LRFD envelope `mu` and ASD `ma` (kip-in), the
-    largest shears `vu`, `va` (kip)."""
-
-    mu: np.ndarray
-    ma: np.ndarray
-    vu: float
-    va: float
-
-
-def _factors(loads: FinishedLoads) -> tuple[list[list[float]], int]:
-    """Load factors of each LRFD combination and then the ASD one, per load of dead + live
-    (ASCE/SEI 7-22 2.3.1 and 2.4.1), and the number of LRFD rows."""
-    lrfd = combinations("LRFD")
-    return load_factors(loads, lrfd + combinations("ASD")), len(lrfd)
-
-
-def moment_envelope(beam: BeamInput, x: np.ndarray, loads: FinishedLoads | None = None) -> tuple[np.ndarray, np.ndarray]:
-    """(Mu, Ma) at stations `x` (kip-in): the LRFD envelope and the ASD moment of the finished loads.
-
-    ASCE/SEI 7-22 2.3.1 (LRFD) and 2.4.1 (ASD), via `engine.finished.loads`.
-    """
-    loads = finished_loads(beam) if loads is None else loads
-    rows, lrfd = _factors(loads)
-    return _envelope(factored_moment(x, beam.span, loads.dead + loads.live, rows), lrfd)
-
-
-def _envelope(moments: np.ndarray, lrfd: int) -> tuple[np.ndarray, np.ndarray]:
-    """(Mu, Ma) from moment rows of the LRFD combinations then the ASD one (ASCE/SEI 7-22 2.3.1, 2.4.1)."""
-    mu = np.zeros_like(moments[0])
-    for m in moments[:lrfd]:
-        mu = np.maximum(mu, m)
-    return mu, moments[lrfd]
-
-
-def moment_demand(beam: BeamInput, x: np.ndarray, loads: FinishedLoads | None = None) -> Demand:
-    """Moments and shears of the finished loads in their combinations at stations `x`.
-
-    ASCE/SEI 7-22 2.3.1 (LRFD) and 2.4.1 (ASD), via `engine.finished.loads`.
-    """
-    loads = finished_loads(beam) if loads is None else loads
-    mu, ma = moment_envelope(beam, x, loads)
-    return Demand(mu, ma, *_shears(beam, loads))
-
-
-def _shears(beam: BeamInput, loads: FinishedLoads) -> tuple[float, float]:
-    """Largest |Vu| (LRFD envelope) and |Va| (ASD) of the finished loads (kip).
-    ASCE/SEI 7-22 2.3.1 (LRFD) and 2.4.1 (ASD); statics (engine.mechanics.statics)."""
-    rows, lrfd = _factors(loads)
-    shears = factored_max_abs_shear(beam.span, loads.dead + loads.live, rows)
-    return max(float(v) for v in shears[:lrfd]), float(shears[lrfd])
-
-
-@dataclass(frozen=True, slots=True)
-class SlabLimits:
-    """Effective width `b_eff` (in), strength concrete area `ac` (in^2), full-composite slab
-    force `cf` and the largest force the stress block may take within the topping `c_block` (kip)."""
-
-    b_eff: float
-    ac: float
-    cf: float
-    c_block: float
-
-
-def slab_limits(beam: BeamInput) -> SlabLimits:
-    """Effective width, strength concrete area and C_f = min(A_s F_y, 0.85 f'c A_c).
-    AISC 360-22 I3.1a (b_eff), I3.2c.2-3 (A_c), I3.2d.1 (C_f).
-
-    The stress block is taken within the topping; where it would reach into parallel ribs the
-    force is limited to the topping (conservative; AISC 360-22 I3.2a).
-    """
-    slab = beam.slab
-    b_left, b_right = effective_width(beam.span, beam.slab_left, beam.slab_right)
-    b_eff = float(b_left + b_right)
-    ac = slab.strength_concrete_area(b_eff, beam.orientation)
-    cf = min(beam.shape.area * beam.fy, 0.85 * slab.fc_ksi * ac)
-    return SlabLimits(b_eff, ac, cf, min(cf, 0.85 * slab.fc_ksi * b_eff * slab.topping))
-
-
-def composite_strength(beam: BeamInput, limits: SlabLimits, c: np.ndarray):
-    """Plastic stress distribution for the slab force `c` (kip), the stress block in the topping.
-
-    AISC 360-22 I3.2a; returns `engine.codes.aisc360_22.i3_composite.PlasticMoment`.
-    """
-    return plastic_moment(np.minimum(c, limits.c_block), beam.shape, beam.fy, beam.slab.fc_ksi,
-                          limits.b_eff, beam.slab.total_thickness)
-
-
-def available_strength(beam: BeamInput, mn: np.ndarray) -> np.ndarray:
-    """phi_b Mn (LRFD) or Mn / Omega_b (ASD) for the beam's design method.
-
-    AISC 360-22 I3.2a (phi_b = 0.90, Omega_b = 1.67).
-    """
-    return method_strength(beam.method, mn)
-
-
-def method_strength(method: str, mn: np.ndarray) -> np.ndarray:
-    """phi_b Mn for "LRFD", else Mn / Omega_b.
-
-    AISC 360-22 I3.2a (phi_b = 0.90, Omega_b = 1.67).
-    """
-    return PHI_B * mn if method == "LRFD" else mn / OMEGA_B
-
-
-@dataclass(frozen=True, slots=True)
-class FinishedBasis:
-    """What the finished-beam evaluation of one beam needs whatever studs it has: stations `x`,
-    loads and their demand, the service moments (live; superimposed dead + live; kip-in, None
-    without such loads), slab limits, E_c, n, I_tr, the web shear strength and deck checks."""
-
-    x: np.ndarray
-    loads: FinishedLoads
-    demand: Demand
-    service: np.ndarray | None
-    limits: SlabLimits
-    ec: float
-    n: float
-    i_tr: float
-    shear: ShearStrength
-    deck_checks: tuple[Check, ...]
-
-
-@lru_cache(maxsize=64)
-def finished_basis(beam: BeamInput) -> FinishedBasis:
-    """The stud-independent part of `evaluate_beam`, computed once per beam input (layout, as-built
-    and repair evaluations of the same beam share it). Arrays are read-only.
-    ASCE/SEI 7-22 2.3.1 / 2.4.1 (demand); AISC 360-22 I3.1a, I3.2d.1 (limits), I2.1b (E_c),
-    Commentary I3.2 (I_tr), G2.1 (shear), I3.2c.1 (deck)."""
-    slab = beam.slab
-    x = stations(beam.span, beam.n_stations)
-    loads = finished_loads(beam)
-    rows, lrfd = _factors(loads)
-    pre, post, live = len(loads.precomposite_dead), len(loads.postcomposite_dead), len(loads.live)
-    rows += [[0.0] * (pre + post) + [1.0] * live, [0.0] * pre + [1.0] * (post + live)]  # service: L, SD + L
-    moments = factored_moment(x, beam.span, loads.dead + loads.live, rows)
-    moments.flags.writeable = False
-    dem = Demand(*_envelope(moments, lrfd), *_shears(beam, loads))
-    service = moments[-2:] if post + live else None
-    for arr in (x, dem.mu):
-        arr.flags.writeable = False
-    lim = slab_limits(beam)
-    e_c = float(ec(slab.concrete_pcf, slab.fc_ksi))
-    n = E_STEEL / e_c
-    i_tr, _ = transformed_inertia(beam.shape, lim.b_eff, n, slab.topping, slab.total_thickness)
-    return FinishedBasis(x, loads, dem, service, lim, e_c, n, float(i_tr), web_shear_strength(beam.shape, beam.fy),
-                         tuple(deck_checks(beam)))
-
-
-def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResult:
-    """Evaluate the finished composite beam with the studs in `groups` (default: the studs laid
-    out rib by rib by `engine.studs.layout.design_layout`, whose checks then join the beam's)."""
+def evaluate_finished(beam: BeamInput, groups: StudGroups, detailing: tuple[Check, ...],
+                      detailing_flags: tuple[Flag, ...]) -> BeamResult:
+    """Evaluate the finished composite beam with the studs in `groups`; `detailing` and
+    `detailing_flags` are the deck and stud detailing results of those studs (engine.studs), listed
+    after the beam's own checks. AISC 360-22 I3.2a, I3.2d.1, I8.2c, G2.1, Commentary I3.2."""
     check_scope(beam)
     shape, slab = beam.shape, beam.slab
     basis = finished_basis(beam)
-    x, loads, dem = basis.x, basis.loads, basis.demand
-    placed = None
-    if groups is None:
-        from engine.studs.layout import design_layout  # late import: the layout builds on this module
-
-        placed = design_layout(beam)
-        groups = placed.layout.groups()
+    x, dem = basis.x, basis.demand
     mu, ma, vu, va = dem.mu, dem.ma, dem.vu, dem.va
 
     lim = basis.limits
@@ -331,12 +139,8 @@ def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResu
         Check("degree of composite (min 25%)", "AISC 360-22 Commentary I3.2d (common practice)",
               MIN_COMPOSITE, composite_ratio, "ratio", kind="detailing"),
     ]
-    checks += basis.deck_checks
-    if placed is None:
-        spacing, flags = spacing_checks(beam, groups)
-    else:  # the layout's checks hold the spacing checks of the same studs, and its own
-        spacing, flags = list(placed.checks), list(placed.flags)
-    checks += spacing
+    checks += detailing
+    flags = list(detailing_flags)
     flags += _ductility_flags(beam, composite_ratio, groups)
     if beam.web_openings:
         flags.append(Flag("AISC Design Guide 2", "web openings are not checked: strength and deflection here assume "

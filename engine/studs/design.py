@@ -1,5 +1,5 @@
-"""The work of `engine.studs.layout.design_layout`: studs placed on one beam (engine.studs.placement), their
-checks, and, when the requirement cannot be met, the shortfall and what would close it."""
+"""`design_layout`: studs placed on one beam (engine.studs.placement), their checks, and, when the
+requirement cannot be met, the shortfall and what would close it."""
 
 from __future__ import annotations
 
@@ -38,9 +38,11 @@ def stud_layout(slots: Slots, counts: np.ndarray, x_max: float) -> StudLayout:
 
 
 @lru_cache(maxsize=64)
-def design(beam: BeamInput, suggest: bool = True) -> LayoutResult:
-    """Place the studs of one beam and check them (see `engine.studs.layout.design_layout`); computed
-    once per beam input, its arrays read-only."""
+def design_layout(beam: BeamInput, suggest: bool = True) -> LayoutResult:
+    """Studs rib by rib for one beam: the drawings' count, or with `count = "design"` the fewest
+    that give phi Mn >= Mu at every station; singles first, doubles nearest the ends, within
+    the limits of AISC 360-22 I8.1, I8.2d and I3.2c.3 (engine.studs.placement). Computed once per
+    beam input (the finished-beam evaluation designs it too); arrays read-only."""
     need = slab_force_needed(beam)
     slots = beam_slots(beam)
     total = beam.studs.count
@@ -166,18 +168,18 @@ def closing_options(beam: BeamInput, need: Need, slots: Slots, layout: StudLayou
         for k in range(1, 16):
             first = round(now + k * pitch / 16.0, 4) % pitch or pitch
             trial = replace(beam, ribs=replace(beam.ribs, first_rib=first))
-            if design(trial, suggest=False).shortfall is None:
+            if design_layout(trial, suggest=False).shortfall is None:
                 options.append(f"first rib at {format_inches(first)} from the {beam.ribs.reference_end} end instead "
                                f"of {format_inches(now)} (if the deck layout allows)")
                 break
         if beam.studs.position == "weak":
             trial = replace(beam, studs=replace(beam.studs, position="strong"))
-            if design(trial, suggest=False).shortfall is None:
+            if design_layout(trial, suggest=False).shortfall is None:
                 options.append("studs on the strong side of each rib (R_p 0.75, AISC 360-22 I8.2a), if the "
                                "deck's stiffener allows and the installer is told which side")
     if beam.studs.max_per_rib < studs_across(replace(beam, studs=replace(beam.studs, max_per_rib=3))):
         trial = replace(beam, studs=replace(beam.studs, max_per_rib=beam.studs.max_per_rib + 1))
-        if design(trial, suggest=False).shortfall is None:
+        if design_layout(trial, suggest=False).shortfall is None:
             options.append(f"allowing {beam.studs.max_per_rib + 1} studs per rib (job limit)")
     options.append("a heavier shape (less slab force needed)")
     return options

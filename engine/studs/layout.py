@@ -1,5 +1,5 @@
-"""Studs rib by rib along a beam: the slots, the layout data shared by placement, findings and
-sheets, and `design_layout`, which places the studs (the filling itself is in engine.studs.placement)."""
+"""Studs rib by rib along a beam: the slots and the layout data shared by placement, findings and
+sheets (the studs are placed by engine.studs.design.design_layout)."""
 
 from __future__ import annotations
 
@@ -149,13 +149,3 @@ def deck_anchor_slots(beam: BeamInput, layout: StudLayout) -> np.ndarray:
             need[i] = True
             last = xi
     return need
-
-
-def design_layout(beam: BeamInput) -> LayoutResult:
-    """Studs rib by rib for one beam: the drawings' count, or with `count = "design"` the fewest
-    that give phi Mn >= Mu at every station; singles first, doubles nearest the ends, within
-    the limits of AISC 360-22 I8.1, I8.2d and I3.2c.3 (engine.studs.placement, engine.studs.design).
-    Computed once per beam input (the finished-beam evaluation designs it too); arrays read-only."""
-    from engine.studs.design import design  # it builds on this module's data
-
-    return design(beam)

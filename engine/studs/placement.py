@@ -23,9 +23,8 @@ import numpy as np
 
 from engine.codes.aisc360_22.i3_composite import plastic_moment
 from engine.studs.detailing import spacing_limits
-from engine.finished.evaluate import (
-    MIN_COMPOSITE, available_strength, composite_strength, finished_basis, method_strength, moment_envelope,
-)
+from engine.finished.basis import available_strength, composite_strength, finished_basis, method_strength, moment_envelope
+from engine.finished.evaluate import MIN_COMPOSITE
 from engine.model.inputs import BeamInput
 
 _TOL = 1e-9

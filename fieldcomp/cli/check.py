@@ -20,7 +20,7 @@ def check_beam(beam, as_json: bool) -> tuple[str | None, bool, str]:
     """(input error or None, whether the beam fails, its report: a JSON list item or text) for
     one beam; run in worker processes for large jobs."""
     from engine.construction.evaluate import evaluate_construction
-    from engine.finished.evaluate import evaluate_beam
+    from engine.pipeline import evaluate_beam
     from fieldcomp.cli.parallel import json_item
     from fieldcomp.jobs.jobfile import JobFileError
     from fieldcomp.views.finished_report import beam_json, beam_text

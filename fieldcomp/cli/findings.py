@@ -33,7 +33,7 @@ def register(sub) -> None:
 
 def run(args: argparse.Namespace) -> int:
     from engine.field.as_built import FindingError, evaluate_as_built
-    from engine.studs.layout import design_layout
+    from engine.studs.design import design_layout
     from engine.field.repair import find_repair
     from fieldcomp.cli.common import load_inputs
     from fieldcomp.jobs.inspection_log import CsvImportError
@@ -74,7 +74,7 @@ def import_log(job_path: str, mark: str, csv_path: str) -> str:
     Every row is checked first, against the file format and against the beam's layout; on any
     error nothing is written. Returns a one-line summary."""
     from engine.field.as_built import FindingError, apply_findings
-    from engine.studs.layout import design_layout
+    from engine.studs.design import design_layout
     from fieldcomp.cli.common import load_inputs
     from fieldcomp.jobs.inspection_log import CsvImportError, read_findings_csv
     from fieldcomp.jobs.jobfile import load_job, save_job

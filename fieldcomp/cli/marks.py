@@ -63,14 +63,14 @@ def inside(folder: Path, name: str) -> Path:
 def sheet_for(job_name: str, beam, date: str):
     """(SheetData, LayoutResult, flexure Check) of one beam. The sheet lists deck anchors and the
     shortfall itself, so those flags are not repeated in its notes."""
-    from engine.finished.evaluate import evaluate_beam
-    from engine.studs.layout import design_layout
+    from engine.studs.evaluate import evaluate_studs
+    from engine.studs.design import design_layout
     from engine.studs.design import SHORTFALL_CLAUSE
     from engine.studs.detailing import DECK_ANCHOR_CLAUSE
     from engine.studs.sheet_data import Envelope, SheetData
 
     placed = design_layout(beam)
-    result = evaluate_beam(beam, placed.layout.groups())
+    result = evaluate_studs(beam, placed.layout.groups())
     flexure = next(c for c in result.checks if c.name.startswith("flexure"))
     composite = next(c for c in result.checks if c.name.startswith("degree of composite"))
     notes = tuple(f.message for f in placed.flags if f.clause not in (SHORTFALL_CLAUSE, DECK_ANCHOR_CLAUSE))

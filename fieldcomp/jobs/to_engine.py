@@ -138,13 +138,13 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
 def require_in_scope(beams: list[BeamInput], path: str | os.PathLike[str] = "<job>") -> None:
     """Raise JobFileError naming beam, field and clause for every beam outside the engine's scope
     (engine.finished.evaluate.check_scope)."""
-    from engine.finished.evaluate import OutOfScope, check_scope
+    from engine.model.scope import OutOfScopeError, check_scope
 
     problems = []
     for b in beams:
         try:
             check_scope(b)
-        except OutOfScope as exc:
+        except OutOfScopeError as exc:
             problems.append((f"beam '{b.mark}', field '{exc.field}'", str(exc)))
     if problems:
         raise JobFileError(path, problems)

@@ -14,7 +14,8 @@ from collections import OrderedDict
 from dataclasses import dataclass, replace
 from typing import Any, Callable
 
-from engine.finished.evaluate import BeamResult, evaluate_beam, governing_check
+from engine.finished.evaluate import BeamResult, governing_check
+from engine.pipeline import evaluate_beam
 from engine.model.inputs import BeamInput
 from fieldcomp.jobs.model import Job
 from fieldcomp.jobs.to_engine import to_engine
@@ -91,7 +92,8 @@ def compute_outcome(beam: BeamInput, job_name: str = "", date: str = "") -> Beam
     """The first pass for one beam: finished beam, construction stage, layout, as built."""
     from engine.construction.evaluate import evaluate_construction
     from engine.field.as_built import evaluate_as_built, finding_slot
-    from engine.studs.layout import deck_anchor_slots, design_layout
+    from engine.studs.design import design_layout
+    from engine.studs.layout import deck_anchor_slots
 
     finished = _part(lambda: evaluate_beam(beam))
     construction = _part(lambda: evaluate_construction(beam))
