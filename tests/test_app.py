@@ -296,7 +296,8 @@ def test_new_untitled_job_from_the_starter(tmp_path):
 
 def test_write_the_marks_sheet_and_import_an_inspection_log(tmp_path):
     async def flow():
-        from engine.studs.sheet_data import marks_csv, marks_svg
+        from fieldcomp.views.marks_sheet import marks_csv
+        from fieldcomp.views.marks_svg import marks_svg
         from fieldcomp.cli.marks import sheet_for
 
         app = make_app(demo_copy(tmp_path), tmp_path)

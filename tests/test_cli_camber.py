@@ -96,9 +96,10 @@ def test_csv_escapes_user_text_and_keeps_numbers(tmp_path, capsys):
 
 
 def test_csv_reason_starting_with_a_formula_character_is_escaped(tmp_path):
-    from fieldcomp.views.construction_report import csv_text
+    from fieldcomp.views.csv_safety import csv_cell
 
-    assert csv_text("-2 in") == "'-2 in" and csv_text("@x") == "'@x" and csv_text("ok") == "ok"
+    assert csv_cell("-2 in") == "'-2 in" and csv_cell("@x") == "'@x" and csv_cell("ok") == "ok"
+    assert csv_cell("\x00=cmd") == "'=cmd"  # a control character cannot hide the formula
 
 
 @pytest.mark.parametrize("old, new, field", [

@@ -15,7 +15,9 @@ import pytest
 from engine.studs.evaluate import evaluate_studs
 from engine.studs.design import design_layout
 from engine.model.inputs import RibSettings
-from engine.studs.sheet_data import CSV_COLUMNS, Envelope, SheetData, mark_rows, marks_csv, marks_svg, marks_text, totals
+from engine.studs.sheet_data import Envelope, SheetData, mark_rows, totals
+from fieldcomp.views.marks_sheet import CSV_COLUMNS, marks_csv, marks_text
+from fieldcomp.views.marks_svg import marks_svg
 from fieldcomp.views.marks_svg import X0, X1
 from engine.model.units import format_ft_in
 from test_layout import beam

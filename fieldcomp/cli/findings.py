@@ -302,7 +302,7 @@ def write_sheet(path: str, job_name: str, before, repair) -> None:
     """Write the repair marks sheet (SVG) atomically."""
     import datetime
 
-    from engine.studs.sheet_data import marks_svg
+    from fieldcomp.views.marks_svg import marks_svg
     from fieldcomp.cli.marks import write_atomic
 
     sheet = repair_sheet(job_name, datetime.date.today().isoformat(), before, repair)

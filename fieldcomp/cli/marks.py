@@ -85,7 +85,7 @@ def sheet_for(job_name: str, beam, date: str):
 def run(args: argparse.Namespace) -> int:
     import datetime
 
-    from engine.studs.sheet_data import marks_text
+    from fieldcomp.views.marks_sheet import marks_text
     from fieldcomp.cli.common import load_inputs
     from fieldcomp.jobs.jobfile import JobFileError
 
@@ -114,7 +114,8 @@ def run(args: argparse.Namespace) -> int:
 
 
 def _write(args: argparse.Namespace, sheets: list) -> None:
-    from engine.studs.sheet_data import marks_csv, marks_svg
+    from fieldcomp.views.marks_sheet import marks_csv
+    from fieldcomp.views.marks_svg import marks_svg
 
     for option, render, ext in ((args.svg, marks_svg, ".svg"), (args.csv, marks_csv, ".csv")):
         if option is None:

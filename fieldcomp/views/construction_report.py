@@ -12,11 +12,11 @@ from engine.construction.evaluate import ConstructionResult, StageSummary
 from engine.finished.evaluate import governing_check
 from engine.model.units import format_ft_in, format_inches
 from fieldcomp import CAUTION
+from fieldcomp.views.csv_safety import csv_cell
 from fieldcomp.views.finished_report import check_json, check_line
 
 IN3_PER_FT3 = 1728.0
 PROFILE_POINTS = 21  # JSON profiles at the twentieth-points of the span
-FORMULA_STARTS = ("=", "+", "-", "@", "\t", "\r")
 
 
 def _num(value: float | None, digits: int = 3) -> float | None:
@@ -175,12 +175,6 @@ CSV_HEADER = ("mark", "shape", "span_in", "span", "screed", "wet_deflection_in",
               "construction_mu_kipft", "verdict", "warnings")
 
 
-def csv_text(value: str) -> str:
-    """User text for a spreadsheet cell: a leading = + - @ (or tab, CR) is escaped with ' so the
-    cell is not read as a formula (CSV injection, DESIGN.md section 7)."""
-    return "'" + value if value.startswith(FORMULA_STARTS) else value
-
-
 def csv_rows(results: list[ConstructionResult]) -> list[list[Any]]:
     """Rows for the camber schedule CSV: caution, header, one row per beam; numbers stay numbers."""
     rows: list[list[Any]] = [["caution", CAUTION], list(CSV_HEADER)]
@@ -189,11 +183,11 @@ def csv_rows(results: list[ConstructionResult]) -> list[list[Any]]:
         low, high = cr.outcomes[0], cr.outcomes[-1]
         warnings = "; ".join(f"{o.case}: {w}" for o in cr.outcomes for w in o.warnings)
         rows.append([
-            csv_text(j["mark"]), j["shape"], j["span_in"], csv_text(format_ft_in(cr.beam.span)), j["screed"],
+            csv_cell(j["mark"]), j["shape"], j["span_in"], csv_cell(format_ft_in(cr.beam.span)), j["screed"],
             j["wet_deflection_in"], j["wet_deflection_no_ponding_in"], j["construction_live_deflection_in"],
-            j["ponding_extra_psf"], j["camber_in"], csv_text(j["camber_reason"]), j["camber_tolerance_in"],
+            j["ponding_extra_psf"], j["camber_in"], csv_cell(j["camber_reason"]), j["camber_tolerance_in"],
             _num(low.top_of_slab), _num(high.top_of_slab), _num(low.thickness), _num(high.thickness),
             _num(low.stud_cover), _num(high.stud_cover), j["bare_phi_mn_kipft"], j["construction_mu_kipft"],
-            cr.verdict, csv_text(warnings),
+            cr.verdict, csv_cell(warnings),
         ])
     return rows

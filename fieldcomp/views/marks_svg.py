@@ -11,11 +11,10 @@ from xml.sax.saxutils import escape
 
 import numpy as np
 
-from engine.studs.sheet_data import (
-    SheetData, anchor_ribs, clean, heading_lines, mark_rows, origin_text, slot_word, station_origin_text, studs_text,
-    summary_lines,
-)
+from engine.model.text import printable as clean
 from engine.model.units import format_ft_in
+from engine.studs.sheet_data import SheetData, anchor_ribs, mark_rows, origin_text, slot_word, station_origin_text
+from fieldcomp.views.marks_sheet import heading_lines, studs_text, summary_lines
 
 W, H = 1000, 750
 X0, X1 = 60.0, 940.0  # the beam's ends on the sheet
@@ -248,8 +247,8 @@ def _summary(sheet: SheetData, x: float, y: float, bottom: float) -> list[str]:
     return out
 
 
-def draw(sheet: SheetData) -> str:
-    """The whole sheet as SVG text."""
+def marks_svg(sheet: SheetData) -> str:
+    """The printable sheet as SVG text (landscape, 10 x 7.5 in: fits letter and tabloid)."""
     overlays = sheet.lost is not None or sheet.added is not None
     body = _title(sheet, overlays) + _strip(sheet, 104) + _dimensions(sheet, 262)
     table_y = 350.0

@@ -79,7 +79,7 @@ class SheetPane(Pane):
     outcomes: list[BeamOutcome] = []
 
     def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
-        from engine.studs.sheet_data import marks_text
+        from fieldcomp.views.marks_sheet import marks_text
 
         self.outcome, self.outcomes = outcome, outcomes
         head = self.query_one("#sheet-head", Static)
@@ -113,7 +113,8 @@ class SheetPane(Pane):
         self.action_write((event.button.id or "").removeprefix("sheet-write-"))
 
     def action_write(self, which: str) -> None:
-        from engine.studs.sheet_data import marks_csv, marks_svg
+        from fieldcomp.views.marks_sheet import marks_csv
+        from fieldcomp.views.marks_svg import marks_svg
 
         if which == "all":
             self.write_all()
@@ -126,7 +127,8 @@ class SheetPane(Pane):
         self.write([(Path(self.query_one(field, Input).value.strip()).expanduser(), render(sheet))])
 
     def write_all(self) -> None:
-        from engine.studs.sheet_data import marks_csv, marks_svg
+        from fieldcomp.views.marks_sheet import marks_csv
+        from fieldcomp.views.marks_svg import marks_svg
         from fieldcomp.cli.marks import inside, unique_names
 
         folder = Path(self.query_one("#sheet-folder", Input).value.strip()).expanduser()

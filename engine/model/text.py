@@ -1,0 +1,8 @@
+"""User text made safe to print: names, marks and notes come from job files and inspection logs."""
+
+from __future__ import annotations
+
+
+def printable(text: object) -> str:
+    """The text without control characters (kept out of terminals, XML, CSV and PDF)."""
+    return "".join(ch for ch in str(text) if ch.isprintable())
