@@ -298,7 +298,8 @@ def test_write_the_marks_sheet_and_import_an_inspection_log(tmp_path):
     async def flow():
         from fieldcomp.views.marks_sheet import marks_csv
         from fieldcomp.views.marks_svg import marks_svg
-        from fieldcomp.cli.marks import sheet_for
+        from engine.pipeline import marks_sheet
+        from fieldcomp import CAUTION
 
         app = make_app(demo_copy(tmp_path), tmp_path)
         async with app.run_test(size=SIZE) as pilot:
@@ -310,7 +311,7 @@ def test_write_the_marks_sheet_and_import_an_inspection_log(tmp_path):
             app.workbench.query_one("#sheet-folder", Input).value = str(tmp_path / "all")
             await pilot.press("f6", "f7", "f8")
             await settle(pilot, app)
-            expected = sheet_for(app.session.job.project.name, app.outcomes[0].beam, app.date)[0]
+            expected = marks_sheet(app.session.job.project.name, app.outcomes[0].beam, app.date, CAUTION)[0]
             assert (tmp_path / "b1.svg").read_text() == marks_svg(expected)  # as `fieldcomp marks` writes it
             assert (tmp_path / "b1.csv").read_text() == marks_csv(expected)
             assert len(list((tmp_path / "all").glob("*.svg"))) == len(app.session.job.beam)

@@ -15,7 +15,7 @@ import sys
 from pathlib import Path
 
 from fieldcomp import CAUTION, __version__
-from fieldcomp.jobs.atomic import write_text_atomic as write_atomic
+from fieldcomp.jobs.atomic import write_text_atomic
 from fieldcomp.cli.common import EXIT_FAIL, EXIT_INPUT, EXIT_PASS, fail_input
 
 _RESERVED = {"CON", "PRN", "AUX", "NUL", *(f"COM{i}" for i in range(1, 10)), *(f"LPT{i}" for i in range(1, 10))}
@@ -60,31 +60,10 @@ def inside(folder: Path, name: str) -> Path:
     return target
 
 
-def sheet_for(job_name: str, beam, date: str):
-    """(SheetData, LayoutResult, flexure Check) of one beam. The sheet lists deck anchors and the
-    shortfall itself, so those flags are not repeated in its notes."""
-    from engine.studs.evaluate import evaluate_studs
-    from engine.studs.design import design_layout
-    from engine.studs.design import SHORTFALL_CLAUSE
-    from engine.studs.detailing import DECK_ANCHOR_CLAUSE
-    from engine.studs.sheet_data import Envelope, SheetData
-
-    placed = design_layout(beam)
-    result = evaluate_studs(beam, placed.layout.groups())
-    flexure = next(c for c in result.checks if c.name.startswith("flexure"))
-    composite = next(c for c in result.checks if c.name.startswith("degree of composite"))
-    notes = tuple(f.message for f in placed.flags if f.clause not in (SHORTFALL_CLAUSE, DECK_ANCHOR_CLAUSE))
-    if placed.shortfall:
-        notes = (f"SHORTFALL: {placed.shortfall}",) + notes
-    sheet = SheetData(job=job_name, beam=beam, date=date, layout=placed.layout, caution=CAUTION,
-                      required_sum_qn=placed.required_sum_qn, checks=(flexure, composite) + placed.checks,
-                      notes=notes, envelope=Envelope(result.x, result.demand, result.capacity))
-    return sheet, placed, flexure
-
-
 def run(args: argparse.Namespace) -> int:
     import datetime
 
+    from engine.pipeline import marks_sheet
     from fieldcomp.views.marks_sheet import marks_text
     from fieldcomp.cli.common import load_inputs
     from fieldcomp.jobs.jobfile import JobFileError
@@ -97,7 +76,7 @@ def run(args: argparse.Namespace) -> int:
     except JobFileError as exc:
         return fail_input(exc)
     date = args.date if args.date is not None else datetime.date.today().isoformat()
-    sheets = [sheet_for(job.project.name, b, date) for b in beams]
+    sheets = [marks_sheet(job.project.name, b, date, CAUTION) for b in beams]
     try:
         _write(args, [s for s, _, _ in sheets])
     except OSError as exc:
@@ -121,11 +100,11 @@ def _write(args: argparse.Namespace, sheets: list) -> None:
         if option is None:
             continue
         if not args.all:
-            write_atomic(Path(option), render(sheets[0]))
+            write_text_atomic(Path(option), render(sheets[0]))
             continue
         folder = Path(option)
         if folder.exists() and not folder.is_dir():
             raise OSError(f"{folder} is not a folder (with --all, --svg and --csv name folders)")
         folder.mkdir(parents=True, exist_ok=True)
         for sheet, name in zip(sheets, unique_names([s.beam.mark for s in sheets])):
-            write_atomic(inside(folder, name + ext), render(sheet))
+            write_text_atomic(inside(folder, name + ext), render(sheet))

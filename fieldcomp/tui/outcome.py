@@ -17,6 +17,7 @@ from typing import Any, Callable
 from engine.finished.evaluate import BeamResult, governing_check
 from engine.pipeline import evaluate_beam
 from engine.model.inputs import BeamInput
+from fieldcomp import CAUTION
 from fieldcomp.jobs.model import Job
 from fieldcomp.jobs.to_engine import to_engine
 
@@ -111,18 +112,18 @@ def finish(outcome: BeamOutcome) -> BeamOutcome:
     """The second pass: the marks sheet as `fieldcomp marks` builds it and, for a beam that
     fails as built, the repair (many trial evaluations) and its marks sheet."""
     from engine.field.repair import find_repair
-    from fieldcomp.cli.findings import repair_sheet
-    from fieldcomp.cli.marks import sheet_for
+    from engine.pipeline import marks_sheet, repair_sheet
+    from fieldcomp.views.findings_report import REPAIR_CAUTION
 
     if outcome.finished_all:
         return outcome
-    sheet = _part(lambda: sheet_for(outcome.key[0], outcome.beam, outcome.key[1])[0])
+    sheet = _part(lambda: marks_sheet(outcome.key[0], outcome.beam, outcome.key[1], CAUTION)[0])
     if not outcome.needs_repair:
         return replace(outcome, sheet=sheet, repair=NONE)
     repair = _part(lambda: find_repair(outcome.as_built.value))
     fixed = NONE
     if repair.value is not None:
-        fixed = _part(lambda: repair_sheet(*outcome.key, outcome.as_built.value, repair.value))
+        fixed = _part(lambda: repair_sheet(*outcome.key, outcome.as_built.value, repair.value, f"{CAUTION} {REPAIR_CAUTION}"))
     return replace(outcome, sheet=sheet, repair=repair, repair_sheet=fixed)
 
 

@@ -147,11 +147,11 @@ class SheetPane(Pane):
         self.write(files)
 
     def write(self, files: list[tuple[Path, str]]) -> None:
-        from fieldcomp.cli.marks import write_atomic
+        from fieldcomp.jobs.atomic import write_text_atomic
 
         try:
             for path, text in files:
-                write_atomic(path, text)
+                write_text_atomic(path, text)
         except OSError as exc:
             self.app.notify(f"Not written: {exc.strerror or exc}", severity="error")
             return
