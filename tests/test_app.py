@@ -16,7 +16,7 @@ from textual.widgets import Input, Static
 from engine.construction.evaluate import evaluate_construction
 from fieldcomp.tui.app import FieldcompApp
 from fieldcomp.jobs.jobfile import load_job, parse_job
-from fieldcomp.tui.screens.dialogs import Choice
+from fieldcomp.tui.dialogs import Choice
 from fieldcomp.tui.screens.help import HelpScreen
 from fieldcomp.tui.session import JobSession, read_recovery, recovery_path
 from fieldcomp.jobs.to_engine import to_engine

@@ -10,7 +10,7 @@ from pathlib import Path
 import pytest
 
 from fieldcomp.cli.main import main
-from fieldcomp.cli.marks import inside, safe_name, unique_names
+from fieldcomp.jobs.output_names import inside, safe_name, unique_names
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"

@@ -12,7 +12,7 @@ from typing import Callable
 from textual import work
 
 from fieldcomp.jobs.jobfile import ChangedOnDisk, JobFileError
-from fieldcomp.tui.screens.dialogs import AskPath, Choice
+from fieldcomp.tui.dialogs import AskPath, Choice
 from fieldcomp.tui.session import JobSession, discard_recovery, read_recovery, write_recovery
 
 

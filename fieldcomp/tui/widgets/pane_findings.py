@@ -68,7 +68,7 @@ class FindingsEditor(RowEditor):
             self.ask_import()
 
     def ask_import(self) -> None:
-        from fieldcomp.tui.screens.dialogs import AskPath
+        from fieldcomp.tui.dialogs import AskPath
 
         self.app.push_screen(AskPath("Import inspection log (CSV)", str(Path.cwd()) + "/",
                                      "Columns: kind, rib or station, count, note, date, reported_by."), self.import_csv)

@@ -49,7 +49,7 @@ class SheetPane(Pane):
         yield Static("", id="sheet-preview")
 
     def show_job(self, session: JobSession, index: int) -> None:
-        from fieldcomp.cli.marks import safe_name
+        from fieldcomp.jobs.output_names import safe_name
 
         self.folder = session.path.parent if session.path is not None else Path.cwd()
         self.name = safe_name(session.job.beam[index].mark)
@@ -129,7 +129,7 @@ class SheetPane(Pane):
     def write_all(self) -> None:
         from fieldcomp.views.marks_sheet import marks_csv
         from fieldcomp.views.marks_svg import marks_svg
-        from fieldcomp.cli.marks import inside, unique_names
+        from fieldcomp.jobs.output_names import inside, unique_names
 
         folder = Path(self.query_one("#sheet-folder", Input).value.strip()).expanduser()
         sheets = [o.sheet.value for o in self.outcomes if o.sheet is not None and o.sheet.value is not None]
