@@ -32,8 +32,8 @@ def marks_sheet(job_name: str, beam: BeamInput, date: str, caution: str) -> tupl
     deck anchors and the shortfall itself, so those flags are not repeated in its notes."""
     placed = design_layout(beam)
     result = evaluate_studs(beam, placed.layout.groups())
-    flexure = next(c for c in result.checks if c.name.startswith("flexure"))
-    composite = next(c for c in result.checks if c.name.startswith("degree of composite"))
+    flexure = result.check("flexure.composite")
+    composite = result.check("composite.degree_min")
     notes = tuple(f.message for f in placed.flags if f.clause not in (SHORTFALL_CLAUSE, DECK_ANCHOR_CLAUSE))
     if placed.shortfall:
         notes = (f"SHORTFALL: {placed.shortfall}",) + notes

@@ -239,28 +239,28 @@ def _checks(beam: BeamInput, plan: PourPlan, run: StagedRun, decision: CamberDec
     s = flex.strength
     lb = "continuous" if s.lb == 0.0 else format_ft_in(s.lb)
     checks = [
-        Check(f"bare steel flexure while wet ({'phi Mn' if lrfd else 'Mn/Omega'}, Lb {lb}, Cb {s.cb:.2f})",
+        Check("construction.flexure", f"bare steel flexure while wet ({'phi Mn' if lrfd else 'Mn/Omega'}, Lb {lb}, Cb {s.cb:.2f})",
               f"{s.clause}; AISC 360-22 I3.1b", flex.demand, flex.available(beam.method), "kip-in",
               station=flex.station, note=f"step '{step_name}', {s.limit_state}"),
-        Check("bare steel web shear while wet", f"{shear.clause}; AISC 360-22 I3.1b",
+        Check("construction.shear", "bare steel web shear while wet", f"{shear.clause}; AISC 360-22 I3.1b",
               vu if lrfd else va, shear.phi_vn if lrfd else shear.vn_omega, "kip"),
     ]
     limit = beam.span / con.dead_limit_ratio
     if con.dead_limit_max is not None:
         limit = min(limit, con.dead_limit_max)
     cap = f", max {format_inches(con.dead_limit_max)}" if con.dead_limit_max is not None else ""
-    checks.append(Check(f"pre-composite dead-load deflection less camber (span/{con.dead_limit_ratio:g}{cap})",
+    checks.append(Check("construction.deflection.dead_less_camber", f"pre-composite dead-load deflection less camber (span/{con.dead_limit_ratio:g}{cap})",
                         "AISC Design Guide 3 limit as used in AISC Design Examples v16.0 Chapter I; net of camber",
                         max(decision.predicted - decision.camber, 0.0), limit, "in", station=plan.span / 2,
                         kind="serviceability"))
     if con.live_limit_ratio is not None:
-        checks.append(Check(f"construction live-load deflection (span/{con.live_limit_ratio:g})", "limit set by the job",
+        checks.append(Check("construction.deflection.live", f"construction live-load deflection (span/{con.live_limit_ratio:g})", "limit set by the job",
                             float(run.live[:, plan.midspan].max()), beam.span / con.live_limit_ratio, "in",
                             station=plan.span / 2, kind="serviceability"))
     if level or not stable:
         k_max = max(float(step.k.max()) for step in plan.steps)
         cc = first_mode_ratio(k_max, beam.span, E_STEEL * beam.shape.ix)
-        checks.append(Check("level-screed ponding stability (C_c < 1)",
+        checks.append(Check("construction.ponding_stability", "level-screed ponding stability (C_c < 1)",
                             "REFERENCE.md section 2 closed form (Ruddy, AISC EJ 1986); AISC 360-22 Commentary I3.1b",
                             cc if stable else max(cc, 1.0 + 1e-6), 1.0, "ratio",
                             note="" if stable else "the exact solution has no stable equilibrium"))

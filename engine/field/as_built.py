@@ -226,7 +226,7 @@ def assess(beam: BeamInput, designed: StudLayout, state: RibState, designed_gap:
     flags = list(result.flags)
     if beam.slab.deck is not None and beam.orientation == "perpendicular":
         if designed_gap <= DECK_ANCHOR_SPACING_MAX + 1e-9:
-            checks.append(Check("deck anchorage by studs as built (max 18 in)", "AISC 360-22 I3.2c.1",
+            checks.append(Check("deck.anchorage", "deck anchorage by studs as built (max 18 in)", "AISC 360-22 I3.2c.1",
                                 gap, DECK_ANCHOR_SPACING_MAX, "in", station=start, kind="detailing"))
         elif gap > designed_gap + 1e-9:
             flags.append(Flag("AISC 360-22 I3.2c.1", f"losses open a {gap:.1f} in gap between working studs from "

@@ -89,8 +89,8 @@ def _flat_force(r: AsBuiltResult, t: float) -> tuple[np.ndarray, bool]:
     beam = r.beam
     groups = StudGroups(np.array([0.0, beam.span]), np.array([1, 1]), np.array([t, t]))
     trial = evaluate_studs(beam, groups)
-    geometric = {c.name for c in spacing_checks(beam, groups)[0]}
-    others = all(c.passed for c in trial.checks if c.name not in geometric and c.unit != "kip-in")
+    geometric = {c.id for c in spacing_checks(beam, groups)[0]}
+    others = all(c.passed for c in trial.checks if c.id not in geometric and c.id != "flexure.composite")
     return trial.demand <= trial.capacity * (1.0 + _TOL), others
 
 

@@ -76,10 +76,22 @@ class BeamResult:
     def verdict(self) -> str:
         return "pass" if all(c.passed for c in self.checks) else "fail"
 
+    def check(self, check_id: str) -> Check:
+        """The check with this stable id (KeyError if the beam has none)."""
+        return find_check(self.checks, check_id)
+
     @property
     def qn_per_stud(self) -> float:
         """Strength of the weakest stud on the beam (kip); 0 with no studs."""
         return float(self.groups.qn.min()) if self.groups.total else 0.0
+
+
+def find_check(checks: tuple[Check, ...], check_id: str) -> Check:
+    """The check with the stable id `check_id` (KeyError naming it if absent)."""
+    for c in checks:
+        if c.id == check_id:
+            return c
+    raise KeyError(f"no check {check_id!r}")
 
 
 def governing_check(checks: tuple[Check, ...] | list[Check]) -> Check:
@@ -127,16 +139,16 @@ def evaluate_finished(beam: BeamInput, groups: StudGroups, detailing: tuple[Chec
 
     word = "phi Mn" if beam.method == "LRFD" else "Mn/Omega"
     checks = [
-        Check(f"flexure, composite ({word} along span)", "AISC 360-22 I3.2a, I3.2d.1, I8.2c",
+        Check("flexure.composite", f"flexure, composite ({word} along span)", "AISC 360-22 I3.2a, I3.2d.1, I8.2c",
               float(demand[g]), float(capacity[g]), "kip-in", station=float(x[g])),
-        Check("shear, steel web", "AISC 360-22 I4.3, G2.1",
+        Check("shear.web", "shear, steel web", "AISC 360-22 I4.3, G2.1",
               vu if beam.method == "LRFD" else va, phi_vn if beam.method == "LRFD" else vn_omega, "kip"),
-        Check(f"live-load deflection (span/{beam.limits.live_ratio:g})", "AISC 360-22 Commentary I3.2 (I_LB); "
+        Check("deflection.live", f"live-load deflection (span/{beam.limits.live_ratio:g})", "AISC 360-22 Commentary I3.2 (I_LB); "
               "limit common practice", live_defl, beam.span / beam.limits.live_ratio, "in", kind="serviceability"),
-        Check(f"superimposed dead + live deflection (span/{beam.limits.total_ratio:g})",
+        Check("deflection.superimposed_live", f"superimposed dead + live deflection (span/{beam.limits.total_ratio:g})",
               "AISC 360-22 Commentary I3.2 (I_LB); limit common practice",
               after_cure_defl, beam.span / beam.limits.total_ratio, "in", kind="serviceability"),
-        Check("degree of composite (min 25%)", "AISC 360-22 Commentary I3.2d (common practice)",
+        Check("composite.degree_min", "degree of composite (min 25%)", "AISC 360-22 Commentary I3.2d (common practice)",
               MIN_COMPOSITE, composite_ratio, "ratio", kind="detailing"),
     ]
     checks += detailing

@@ -9,11 +9,13 @@ from dataclasses import dataclass
 class Check:
     """One limit check: demand against capacity.
 
-    `ratio` is demand / capacity (<= 1.0 passes). `station` is where it governs
-    (inches from the reference end) or None when it is not tied to a station.
-    A failed check is a result, never an exception.
+    `id` is the check's stable identity (e.g. "flexure.composite", "studs.spacing.max"): code,
+    JSON and tests find a check by it, never by its display `name` or unit. `ratio` is
+    demand / capacity (<= 1.0 passes). `station` is where it governs (inches from the reference
+    end) or None when it is not tied to a station. A failed check is a result, never an exception.
     """
 
+    id: str
     name: str
     clause: str
     demand: float

@@ -18,17 +18,17 @@ def deck_checks(beam: BeamInput) -> list[Check]:
     checks: list[Check] = []
     if deck is not None:
         checks += [
-            Check("rib height", "AISC 360-22 I3.2c.1(a)", deck.rib_height, 3.0, "in", kind="detailing"),
-            Check("average rib width (min 2 in)", "AISC 360-22 I3.2c.1(b)", 2.0, deck.rib_average_width, "in", kind="detailing"),
-            Check("stud diameter through deck", "AISC 360-22 I3.2c.1(c)", spec.diameter, 0.75, "in", kind="detailing"),
-            Check("stud projection above deck (min 1 1/2 in)", "AISC 360-22 I3.2c.1(c)",
+            Check("deck.rib_height", "rib height", "AISC 360-22 I3.2c.1(a)", deck.rib_height, 3.0, "in", kind="detailing"),
+            Check("deck.rib_width", "average rib width (min 2 in)", "AISC 360-22 I3.2c.1(b)", 2.0, deck.rib_average_width, "in", kind="detailing"),
+            Check("deck.stud_diameter", "stud diameter through deck", "AISC 360-22 I3.2c.1(c)", spec.diameter, 0.75, "in", kind="detailing"),
+            Check("deck.stud_projection", "stud projection above deck (min 1 1/2 in)", "AISC 360-22 I3.2c.1(c)",
                   1.5, spec.length - deck.rib_height, "in", kind="detailing"),
-            Check("slab thickness above deck (min 2 in)", "AISC 360-22 I3.2c.1(d)", 2.0, slab.topping, "in", kind="detailing"),
+            Check("deck.topping", "slab thickness above deck (min 2 in)", "AISC 360-22 I3.2c.1(d)", 2.0, slab.topping, "in", kind="detailing"),
         ]
     checks += [
-        Check("concrete cover over stud head (min 1/2 in)", "AISC 360-22 I3.2c.1(c)",
+        Check("studs.cover", "concrete cover over stud head (min 1/2 in)", "AISC 360-22 I3.2c.1(c)",
               0.5, slab.total_thickness - spec.length, "in", kind="detailing"),
-        Check("stud length (min 4 d)", "AISC 360-22 I8.2", 4.0 * spec.diameter, spec.length, "in", kind="detailing"),
+        Check("studs.length", "stud length (min 4 d)", "AISC 360-22 I8.2", 4.0 * spec.diameter, spec.length, "in", kind="detailing"),
     ]
     return checks
 
@@ -86,17 +86,17 @@ def spacing_checks(beam: BeamInput, groups: StudGroups) -> tuple[list[Check], li
     ends = np.array([x[0], beam.span - x[-1]])
     if gaps.size:
         i = int(np.argmin(gaps))
-        checks.append(Check("stud spacing along beam (min)", "AISC 360-22 I8.2d", smin, gaps[i], "in",
+        checks.append(Check("studs.spacing.min", "stud spacing along beam (min)", "AISC 360-22 I8.2d", smin, gaps[i], "in",
                             station=float(x[i]), kind="detailing"))
         j = int(np.argmax(gaps))
-        checks.append(Check("stud spacing along beam (max)", "AISC 360-22 I8.2d", gaps[j], smax, "in",
+        checks.append(Check("studs.spacing.max", "stud spacing along beam (max)", "AISC 360-22 I8.2d", gaps[j], smax, "in",
                             station=float(x[j]), kind="detailing"))
     most = int(groups.count.max())
     row_clause = "AISC 360-22 I8.2d (4d transverse)" + (", I3.2c.3" if beam.deck_case == "parallel" else "")
-    checks.append(Check("studs in one transverse row", row_clause,
+    checks.append(Check("studs.row", "studs in one transverse row", row_clause,
                         most, studs_across(beam), "studs", kind="detailing"))
     if most >= 2:
-        checks.append(Check("stud diameter off the web (max 2.5 tf)", "AISC 360-22 I8.1",
+        checks.append(Check("studs.diameter_off_web", "stud diameter off the web (max 2.5 tf)", "AISC 360-22 I8.1",
                             d, 2.5 * beam.shape.tf, "in", kind="detailing"))
     if perpendicular:
         longest = float(max(gaps.max() if gaps.size else 0.0, ends.max()))

@@ -51,7 +51,7 @@ def beam_json(r: BeamResult) -> dict[str, Any]:
 
 
 def check_json(c: Check) -> dict[str, Any]:
-    return {"name": c.name, "clause": c.clause, "demand": _num(c.demand), "capacity": _num(c.capacity),
+    return {"id": c.id, "name": c.name, "clause": c.clause, "demand": _num(c.demand), "capacity": _num(c.capacity),
             "unit": c.unit, "ratio": _num(c.ratio), "passed": c.passed,
             "station_in": None if c.station is None else _num(c.station, 2)}
 
