@@ -8,7 +8,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from engine.codes.aisc360_22.f_flexure import FlexureStrength, cb_from_moments, flexure_strength
-from engine.model.inputs import BeamInput
+from engine.model.inputs import BeamInput, Method
 from engine.model.units import format_ft_in
 
 
@@ -32,7 +32,7 @@ class BareFlexure:
 
     def available(self, method: str) -> float:
         """phi_b Mn (LRFD) or Mn / Omega_b (ASD), kip-in. AISC 360-22 F1."""
-        return self.strength.phi_mn if method == "LRFD" else self.strength.mn_omega
+        return self.strength.phi_mn if method == Method.LRFD else self.strength.mn_omega
 
     def ratio(self, method: str) -> float:
         return self.demand / self.available(method)

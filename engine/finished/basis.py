@@ -15,7 +15,7 @@ from engine.codes.aisc360_22.i1_materials import E_STEEL, ec
 from engine.codes.aisc360_22.i3_composite import effective_width, plastic_moment, transformed_inertia
 from engine.finished.loads import FinishedLoads, combinations, finished_loads, load_factors
 from engine.mechanics.statics import factored_max_abs_shear, factored_moment, stations
-from engine.model.inputs import BeamInput
+from engine.model.inputs import BeamInput, Method
 
 PHI_B, OMEGA_B = 0.90, 1.67  # AISC 360-22 I3.2a
 
@@ -34,8 +34,8 @@ class Demand:
 def _factors(loads: FinishedLoads) -> tuple[list[list[float]], int]:
     """Load factors of each LRFD combination and then the ASD one, per load of dead + live
     (ASCE/SEI 7-22 2.3.1 and 2.4.1), and the number of LRFD rows."""
-    lrfd = combinations("LRFD")
-    return load_factors(loads, lrfd + combinations("ASD")), len(lrfd)
+    lrfd = combinations(Method.LRFD)
+    return load_factors(loads, lrfd + combinations(Method.ASD)), len(lrfd)
 
 
 def moment_envelope(beam: BeamInput, x: np.ndarray, loads: FinishedLoads | None = None) -> tuple[np.ndarray, np.ndarray]:
@@ -122,7 +122,7 @@ def method_strength(method: str, mn: np.ndarray) -> np.ndarray:
 
     AISC 360-22 I3.2a (phi_b = 0.90, Omega_b = 1.67).
     """
-    return PHI_B * mn if method == "LRFD" else mn / OMEGA_B
+    return PHI_B * mn if method == Method.LRFD else mn / OMEGA_B
 
 
 @dataclass(frozen=True, slots=True)

@@ -17,7 +17,7 @@ from engine.codes.aisc360_22.i3_composite import equivalent_inertia, lower_bound
 from engine.finished.basis import FinishedBasis, available_strength, composite_strength, finished_basis
 from engine.finished.slab_force import StudGroups, slab_force
 from engine.mechanics.statics import deflection_rows
-from engine.model.inputs import BeamInput
+from engine.model.inputs import BeamInput, Method
 from engine.model.results import Check, Flag
 from engine.model.scope import check_scope
 
@@ -64,7 +64,7 @@ class BeamResult:
 
     @property
     def demand(self) -> np.ndarray:
-        return self.mu if self.beam.method == "LRFD" else self.ma
+        return self.mu if self.beam.method == Method.LRFD else self.ma
 
     @property
     def governing(self) -> Check:
@@ -118,7 +118,7 @@ def evaluate_finished(beam: BeamInput, groups: StudGroups, detailing: tuple[Chec
     plastic = composite_strength(beam, lim, c)
     mn = plastic.mn
 
-    demand = mu if beam.method == "LRFD" else ma
+    demand = mu if beam.method == Method.LRFD else ma
     capacity = available_strength(beam, mn)
     k = int(np.argmax(demand))
     ratio = np.divide(demand, capacity, out=np.zeros_like(demand), where=capacity > 0)
@@ -137,12 +137,12 @@ def evaluate_finished(beam: BeamInput, groups: StudGroups, detailing: tuple[Chec
 
     live_defl, after_cure_defl = _service_deflections(basis, E_STEEL * i_lb)
 
-    word = "phi Mn" if beam.method == "LRFD" else "Mn/Omega"
+    word = "phi Mn" if beam.method == Method.LRFD else "Mn/Omega"
     checks = [
         Check("flexure.composite", f"flexure, composite ({word} along span)", "AISC 360-22 I3.2a, I3.2d.1, I8.2c",
               float(demand[g]), float(capacity[g]), "kip-in", station=float(x[g])),
         Check("shear.web", "shear, steel web", "AISC 360-22 I4.3, G2.1",
-              vu if beam.method == "LRFD" else va, phi_vn if beam.method == "LRFD" else vn_omega, "kip"),
+              vu if beam.method == Method.LRFD else va, phi_vn if beam.method == Method.LRFD else vn_omega, "kip"),
         Check("deflection.live", f"live-load deflection (span/{beam.limits.live_ratio:g})", "AISC 360-22 Commentary I3.2 (I_LB); "
               "limit common practice", live_defl, beam.span / beam.limits.live_ratio, "in", kind="serviceability"),
         Check("deflection.superimposed_live", f"superimposed dead + live deflection (span/{beam.limits.total_ratio:g})",

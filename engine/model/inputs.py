@@ -7,11 +7,28 @@ Stations run from the beam's reference end (x = 0) to the far end (x = span).
 from __future__ import annotations
 
 from dataclasses import dataclass, field
+from enum import StrEnum
 
 from engine.model.deck import Slab
 from engine.model.shapes import WShape
 
-ORIENTATIONS = ("perpendicular", "parallel")
+class Method(StrEnum):
+    """Design method: load and resistance factor design or allowable strength design (AISC 360-22 B3.1, B3.2)."""
+
+    LRFD = "LRFD"
+    ASD = "ASD"
+
+
+class DeckCase(StrEnum):
+    """Slab on the beam for stud strength: solid slab, deck ribs parallel or perpendicular to the
+    beam (AISC 360-22 I8.2a)."""
+
+    NONE = "none"
+    PARALLEL = "parallel"
+    PERPENDICULAR = "perpendicular"
+
+
+ORIENTATIONS = (DeckCase.PERPENDICULAR.value, DeckCase.PARALLEL.value)
 STUD_POSITIONS = ("strong", "weak", "center")
 SCREED_MODES = ("constant-thickness", "level")
 POUR_SIDES = ("both", "left", "right")
@@ -136,7 +153,7 @@ class BeamInput:
     superimposed_dead_psf: float
     live_psf: float
     studs: StudSpec
-    method: str = "LRFD"
+    method: Method = Method.LRFD
     point_loads: tuple[PointLoad, ...] = ()
     load_width: float | None = None
     construction: ConstructionSpec = field(default_factory=ConstructionSpec)
@@ -155,6 +172,6 @@ class BeamInput:
         return self.slab_left + self.slab_right
 
     @property
-    def deck_case(self) -> str:
-        """'none' (solid slab), 'parallel' or 'perpendicular' for AISC 360-22 I8.2a."""
-        return "none" if self.slab.deck is None else self.orientation
+    def deck_case(self) -> DeckCase:
+        """Solid slab, parallel or perpendicular deck, for AISC 360-22 I8.2a."""
+        return DeckCase.NONE if self.slab.deck is None else DeckCase(self.orientation)

@@ -12,7 +12,7 @@ import numpy as np
 from engine.model.results import Check, Flag
 from engine.studs.detailing import spacing_checks, spacing_limits, studs_across
 from engine.studs.layout import LayoutResult, StudLayout, layout_qn, slots_for
-from engine.model.inputs import BeamInput
+from engine.model.inputs import BeamInput, DeckCase
 from engine.studs.placement import Arrangement, Need, Slots, arrange, slab_force_needed
 from engine.finished.slab_force import slab_force
 from engine.model.units import format_ft_in, format_inches
@@ -25,7 +25,7 @@ def beam_slots(beam: BeamInput) -> Slots:
     """The beam's slots with the strength of a slot holding 0..3 studs in the job's position
     (perpendicular deck) or centred (parallel flute, solid slab). AISC 360-22 I8.2a."""
     x, cap = slots_for(beam)
-    word = beam.studs.position if beam.deck_case == "perpendicular" else "center"
+    word = beam.studs.position if beam.deck_case == DeckCase.PERPENDICULAR else "center"
     per_slot = np.concatenate(([0.0], np.arange(1, 4) * layout_qn(beam, np.arange(1, 4), word)))
     return Slots(x, cap, np.full(x.size, word), per_slot)
 
@@ -162,7 +162,7 @@ def closing_options(beam: BeamInput, need: Need, slots: Slots, layout: StudLayou
         if _meets_all(beam, need, slots, fewest, None) and int(fewest.counts.sum()) <= layout.total:
             options.append(f"the EOR accepting the lower degree of composite these studs give: phi Mn >= Mu holds "
                            f"at every station with {int(fewest.counts.sum())} studs on this deck")
-    if beam.deck_case == "perpendicular" and beam.slab.deck is not None:
+    if beam.deck_case == DeckCase.PERPENDICULAR and beam.slab.deck is not None:
         pitch = beam.slab.deck.pitch
         now = beam.ribs.first_rib if beam.ribs.first_rib is not None else 0.5 * pitch
         for k in range(1, 16):

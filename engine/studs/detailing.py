@@ -5,7 +5,7 @@ from __future__ import annotations
 import numpy as np
 
 from engine.model.results import Check, Flag
-from engine.model.inputs import BeamInput
+from engine.model.inputs import BeamInput, DeckCase
 from engine.finished.slab_force import StudGroups
 
 DECK_ANCHOR_SPACING_MAX = 18.0  # in, AISC 360-22 I3.2c.1
@@ -92,7 +92,7 @@ def spacing_checks(beam: BeamInput, groups: StudGroups) -> tuple[list[Check], li
         checks.append(Check("studs.spacing.max", "stud spacing along beam (max)", "AISC 360-22 I8.2d", gaps[j], smax, "in",
                             station=float(x[j]), kind="detailing"))
     most = int(groups.count.max())
-    row_clause = "AISC 360-22 I8.2d (4d transverse)" + (", I3.2c.3" if beam.deck_case == "parallel" else "")
+    row_clause = "AISC 360-22 I8.2d (4d transverse)" + (", I3.2c.3" if beam.deck_case == DeckCase.PARALLEL else "")
     checks.append(Check("studs.row", "studs in one transverse row", row_clause,
                         most, studs_across(beam), "studs", kind="detailing"))
     if most >= 2:

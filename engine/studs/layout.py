@@ -10,7 +10,7 @@ import numpy as np
 
 from engine.model.results import Check, Flag
 from engine.studs.detailing import DECK_ANCHOR_SPACING_MAX, spacing_limits, studs_per_slot
-from engine.model.inputs import BeamInput
+from engine.model.inputs import BeamInput, DeckCase
 from engine.studs.ribs import in_keep_out, rib_stations
 from engine.finished.slab_force import StudGroups, stud_qn
 
@@ -104,7 +104,7 @@ def slots_for(beam: BeamInput) -> tuple[np.ndarray, np.ndarray]:
     beam gets a symmetric grid), those in keep-out zones with max_count 0.
     max_count elsewhere: `engine.studs.detailing.studs_per_slot` (flange / flute width, I8.1, job limit).
     """
-    if beam.deck_case == "perpendicular":
+    if beam.deck_case == DeckCase.PERPENDICULAR:
         x = rib_stations(beam)
     else:
         step = flute_pitch(beam)
@@ -136,7 +136,7 @@ def deck_anchor_slots(beam: BeamInput, layout: StudLayout) -> np.ndarray:
     18 in between deck anchors (AISC 360-22 I3.2c.1). Chosen from the reference end, each the
     last rib within 18 in of the previous anchor. Perpendicular deck only (else all False)."""
     need = np.zeros(layout.x.size, dtype=bool)
-    if beam.deck_case != "perpendicular" or layout.x.size == 0:
+    if beam.deck_case != DeckCase.PERPENDICULAR or layout.x.size == 0:
         return need
     anchored = layout.count > 0
     last = 0.0

@@ -25,7 +25,7 @@ from engine.codes.aisc360_22.i3_composite import plastic_moment
 from engine.studs.detailing import spacing_limits
 from engine.finished.basis import available_strength, composite_strength, finished_basis, method_strength, moment_envelope
 from engine.finished.evaluate import MIN_COMPOSITE
-from engine.model.inputs import BeamInput
+from engine.model.inputs import BeamInput, Method
 
 _TOL = 1e-9
 _C_GRID = 257  # slab forces tabulated between 0 and the topping limit to invert phi Mn(C)
@@ -54,13 +54,13 @@ def slab_force_needed(beam: BeamInput) -> Need:
     """
     basis = finished_basis(beam)
     x, mu, ma = basis.x, basis.demand.mu, basis.demand.ma
-    demand = mu if beam.method == "LRFD" else ma
+    demand = mu if beam.method == Method.LRFD else ma
     top = float(demand.max())  # the maximum on the evaluation grid (evaluate_beam's critical station)
     if beam.point_loads:
         px = np.array([p.x for p in beam.point_loads])
         mu, ma = moment_envelope(beam, px, basis.loads)
         x = np.concatenate((x, px))
-        demand = np.concatenate((demand, mu if beam.method == "LRFD" else ma))
+        demand = np.concatenate((demand, mu if beam.method == Method.LRFD else ma))
         order = np.argsort(x, kind="stable")
         x, demand = x[order], demand[order]
     lim = basis.limits

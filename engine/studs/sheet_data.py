@@ -14,7 +14,7 @@ import numpy as np
 
 from engine.model.results import Check
 from engine.studs.layout import StudLayout, deck_anchor_slots, layout_qn
-from engine.model.inputs import BeamInput
+from engine.model.inputs import BeamInput, DeckCase
 from engine.studs.ribs import printed_station
 from engine.model.text import printable as clean
 from engine.model.units import format_ft_in
@@ -69,7 +69,7 @@ class MarkRow:
 
 def slot_word(beam: BeamInput) -> str:
     """What a slot is called: a deck rib, or a row of studs along a flute or solid slab."""
-    return "rib" if beam.deck_case == "perpendicular" else "row"
+    return "rib" if beam.deck_case == DeckCase.PERPENDICULAR else "row"
 
 
 def origin_text(beam: BeamInput) -> str:
@@ -87,8 +87,8 @@ def station_origin_text(beam: BeamInput) -> str:
 
 def side_text(beam: BeamInput, side: str) -> str:
     """The side of the rib a stud stands on, named by the end it is toward."""
-    if beam.deck_case != "perpendicular":
-        return "in flute" if beam.deck_case == "parallel" else "on flange"
+    if beam.deck_case != DeckCase.PERPENDICULAR:
+        return "in flute" if beam.deck_case == DeckCase.PARALLEL else "on flange"
     if side == "center":
         return "centre of rib"
     if beam.studs.position == "weak":  # strength assumes the weak side: either side works, the strong side is better

@@ -8,7 +8,7 @@ from engine.construction.evaluate import CONSTRUCTION_LOAD_PSF
 from engine.construction.pours import check_stages
 from engine.model.deck import DeckProfile, Slab
 from engine.model.inputs import (
-    BeamInput, CamberRules, ConstructionSpec, Finding, Limits, PointLoad, PourStage, RibSettings, StudSpec,
+    BeamInput, CamberRules, ConstructionSpec, Finding, Limits, Method, PointLoad, PourStage, RibSettings, StudSpec,
 )
 from engine.model.shapes import ShapeNotFound, get_shape
 from engine.model.units import parse_length
@@ -128,7 +128,7 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
     return BeamInput(
         mark=b.mark, shape=shape, span=span, fy=b.fy_ksi, slab=slab, orientation=b.deck_orientation,
         slab_left=sides[0], slab_right=sides[1], superimposed_dead_psf=b.superimposed_dead_psf,
-        live_psf=b.live_psf, studs=studs, method=job.project.method, point_loads=tuple(point_loads),
+        live_psf=b.live_psf, studs=studs, method=Method(job.project.method), point_loads=tuple(point_loads),
         load_width=None if b.load_width is None else parse_length(b.load_width),
         construction=construction, ribs=ribs, findings=findings,
         limits=Limits(b.live_limit_ratio, b.total_limit_ratio), support=b.support, web_openings=b.web_openings,

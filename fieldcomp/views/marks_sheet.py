@@ -6,6 +6,7 @@ import csv
 import io
 import math
 
+from engine.model.inputs import DeckCase
 from engine.model.text import printable as clean
 from engine.model.units import format_ft_in, format_inches
 from engine.studs.detailing import DECK_ANCHOR_CLAUSE
@@ -48,7 +49,7 @@ def heading_lines(sheet: SheetData) -> list[str]:
     deck = b.slab.deck
     if deck is None:
         slab = f"solid slab {format_inches(b.slab.topping)}"
-    elif b.deck_case == "perpendicular":
+    elif b.deck_case == DeckCase.PERPENDICULAR:
         first = b.ribs.first_rib if b.ribs.first_rib is not None else 0.5 * deck.pitch
         slab = (f"{format_inches(deck.rib_height)} deck '{clean(deck.name)}' across the beam, ribs at "
                 f"{format_inches(deck.pitch)}, first rib {format_ft_in(first)}")

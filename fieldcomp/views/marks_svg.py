@@ -11,6 +11,7 @@ from xml.sax.saxutils import escape
 
 import numpy as np
 
+from engine.model.inputs import DeckCase
 from engine.model.text import printable as clean
 from engine.model.units import format_ft_in
 from engine.studs.sheet_data import SheetData, anchor_ribs, mark_rows, origin_text, slot_word, station_origin_text
@@ -96,7 +97,7 @@ def _title(sheet: SheetData, overlays: bool) -> list[str]:
         x, y = 262 + 250 * col, 24 + 21 * row
         width = 44 if col or key in ("JOB", "REFERENCE END") else 88
         out += [_t(x, y, key, "k"), _t(x, y + 10, textwrap.shorten(clean(value), width, placeholder="..."), "s")]
-    return out + _legend(745, 24, overlays, b.deck_case == "perpendicular")
+    return out + _legend(745, 24, overlays, b.deck_case == DeckCase.PERPENDICULAR)
 
 
 def _deck(sheet: SheetData, span: float) -> list[str]:
@@ -104,7 +105,7 @@ def _deck(sheet: SheetData, span: float) -> list[str]:
     deck = b.slab.deck
     out = [f'<rect x="{X0:.2f}" y="150" width="{X1 - X0:.2f}" height="{22 if deck else 40}" fill="{CONCRETE}" '
            f'stroke="{FAINT}" stroke-width="0.6"/>']
-    if deck is not None and b.deck_case == "perpendicular":
+    if deck is not None and b.deck_case == DeckCase.PERPENDICULAR:
         for xi in lay.x:
             c, top, bot = _px(xi, span), deck.rib_top_width * (X1 - X0) / span / 2, deck.rib_bottom_width * (X1 - X0) / span / 2
             out.append(f'<polygon points="{c - top:.2f},172 {c + top:.2f},172 {c + bot:.2f},190 {c - bot:.2f},190" '
@@ -149,7 +150,7 @@ def _strip(sheet: SheetData, top_y: float) -> list[str]:
     for i in used:
         c = _px(lay.x[i], span)
         kinds = ["placed"] * int(lay.count[i] - lost[i]) + ["lost"] * int(lost[i]) + ["added"] * int(added[i])
-        shift = sign.get(str(lay.side[i]), 0.0) * offset if b.deck_case == "perpendicular" else 0.0
+        shift = sign.get(str(lay.side[i]), 0.0) * offset if b.deck_case == DeckCase.PERPENDICULAR else 0.0
         marks = "".join(_stud(k, shift + 5.0 * (j - (len(kinds) - 1) / 2), 165.0) for j, k in enumerate(kinds))
         out.append(f'<g class="stud-mark" data-slot="{lay.number[i]}" data-station-in="{lay.x[i]:.4f}" '
                    f'data-studs="{int(lay.count[i])}" transform="translate({c:.3f},0)">{marks}</g>')
@@ -206,7 +207,7 @@ def _envelope(sheet: SheetData, y: float, h: float) -> list[str]:
 def _table(sheet: SheetData, y: float, bottom: float) -> list[str]:
     rows = mark_rows(sheet)
     extra = sheet.lost is not None or sheet.added is not None
-    perpendicular = sheet.beam.deck_case == "perpendicular"
+    perpendicular = sheet.beam.deck_case == DeckCase.PERPENDICULAR
     blocks = 2 if len(rows) <= 2 * 24 else 3 if extra or len(rows) <= 3 * 26 else 4
     width = 620.0 / blocks
     if blocks == 4:  # compact columns for long beams

@@ -6,6 +6,7 @@ from rich.text import Text
 from textual.app import ComposeResult
 from textual.widgets import Static
 
+from engine.model.inputs import Method
 from fieldcomp.tui.outcome import BeamOutcome
 from fieldcomp.tui.session import JobSession
 from fieldcomp.tui.widgets.checks_table import ChecksTable
@@ -73,8 +74,8 @@ class BeamPane(Pane):
         head.update(Text.assemble(f"{b.mark}  {b.shape.name}  span {station(b.span)}  {b.method}   ", word,
                                   f"   governing: {gov.name}, ratio {gov.ratio:.2f}"))
         k = r.critical
-        word_cap = "phi Mn" if b.method == "LRFD" else "Mn/Omega"
-        word_dem = "Mu" if b.method == "LRFD" else "Ma"
+        word_cap = "phi Mn" if b.method == Method.LRFD else "Mn/Omega"
+        word_dem = "Mu" if b.method == Method.LRFD else "Ma"
         self.query_one("#beam-summary", Static).update(
             f"b_eff {station(r.b_eff)}   studs {r.groups.total}, Qn {r.qn_per_stud:.1f} kip (weakest)   "
             f"sum Qn {r.sum_qn_left:.0f}/{r.sum_qn_right:.0f} kip   composite {r.composite_ratio:.0%}   "
