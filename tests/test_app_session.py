@@ -10,8 +10,8 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from fieldcomp.jobs.jobfile import ChangedOnDisk, JobFileError, load_job, parse_job
-from fieldcomp.tui.session import EditRejected, JobSession, read_recovery, recovery_path, write_recovery
+from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError, load_job, parse_job
+from fieldcomp.tui.session import EditRejectedError, JobSession, read_recovery, recovery_path, write_recovery
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
@@ -37,7 +37,7 @@ def test_undo_walks_back_every_accepted_edit_and_dirty_follows_the_job(edits):
         problems = s.check_text(path, text)
         try:
             changed = s.set_text(path, text)
-        except EditRejected as exc:
+        except EditRejectedError as exc:
             assert exc.problems == problems and problems  # the inline check and the edit agree
             continue
         assert not problems
@@ -55,7 +55,7 @@ def test_undo_walks_back_every_accepted_edit_and_dirty_follows_the_job(edits):
 
 def test_a_rejected_edit_carries_the_loaders_own_message():
     s = fresh()
-    with pytest.raises(EditRejected) as caught:
+    with pytest.raises(EditRejectedError) as caught:
         s.set_text(("beam", 0, "span"), "30")
     raw = DEMO.read_text().replace("span = \"30'-0\\\"\"", "span = \"30\"", 1)
     with pytest.raises(JobFileError) as loader:
@@ -81,7 +81,7 @@ def test_save_keeps_bak_and_refuses_a_file_changed_on_disk(tmp_path):
     s.set_text(("beam", 0, "live_psf"), "70")
     path.write_text(DEMO.read_text() + "\n# someone else's edit\n")
     assert s.changed_on_disk()
-    with pytest.raises(ChangedOnDisk):
+    with pytest.raises(ChangedOnDiskError):
         s.save()
     assert path.read_text().endswith("# someone else's edit\n")
     s.save(overwrite=True)

@@ -93,3 +93,30 @@ def test_engine_module_loads_no_edge_package(module):
             "'csv') if m in sys.modules))")
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True).stdout
     assert out.strip() == ""
+
+
+def _all_modules() -> list[str]:
+    import fieldcomp
+
+    found = []
+    for package in (engine, fieldcomp):
+        found += [m.name for m in pkgutil.walk_packages(package.__path__, package.__name__ + ".")]
+    return sorted(found)
+
+
+def test_every_error_is_a_fieldcomp_error_named_error():
+    """One base class for the errors fieldcomp raises on purpose; each subclass says it is an error."""
+    import importlib
+    import inspect
+
+    from engine.model.errors import FieldcompError
+
+    errors = []
+    for name in _all_modules():
+        module = importlib.import_module(name)
+        errors += [cls for _, cls in inspect.getmembers(module, inspect.isclass)
+                   if issubclass(cls, BaseException) and cls.__module__ == name]
+    assert len(errors) >= 8
+    for cls in errors:
+        assert issubclass(cls, FieldcompError), cls
+        assert cls.__name__.endswith("Error"), cls

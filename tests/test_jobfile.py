@@ -5,7 +5,7 @@ from pathlib import Path
 
 import pytest
 
-from fieldcomp.jobs.jobfile import ChangedOnDisk, JobFileError, dump_job, load_job, parse_job, save_job
+from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError, dump_job, load_job, parse_job, save_job
 from fieldcomp.jobs.schema import job_schema
 from fieldcomp.jobs.to_engine import to_engine
 
@@ -128,7 +128,7 @@ def test_save_refuses_when_changed_on_disk(tmp_path):
     path.write_text(MINIMAL)
     loaded = load_job(path)
     path.write_text(MINIMAL.replace('name = "t"', 'name = "someone else"'))
-    with pytest.raises(ChangedOnDisk):
+    with pytest.raises(ChangedOnDiskError):
         save_job(loaded.job, path, expected_digest=loaded.digest)
     assert "someone else" in path.read_text()
 

@@ -20,7 +20,7 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from engine.model.data.w_shapes import COLUMNS, ROWS
-from engine.model.shapes import ShapeNotFound, WShape, find_shapes, get_shape
+from engine.model.shapes import ShapeNotFoundError, WShape, find_shapes, get_shape
 
 # Our column -> efficalc column (aisc_wide_flange).
 EFFICALC_COLUMN = {
@@ -168,7 +168,7 @@ def test_any_spelling_of_any_shape_finds_it(row: tuple, data: st.DataObject) -> 
 
 
 def test_unknown_shape_suggests_close_names() -> None:
-    with pytest.raises(ShapeNotFound) as caught:
+    with pytest.raises(ShapeNotFoundError) as caught:
         get_shape("W21X51")
     assert isinstance(caught.value, ValueError)
     assert "W21X50" in caught.value.suggestions
@@ -177,7 +177,7 @@ def test_unknown_shape_suggests_close_names() -> None:
 
 @pytest.mark.parametrize("bad", ["", "W21", "HSS6X6X1/4", "W21X5O", None, 21])
 def test_bad_names_raise_shape_not_found(bad: object) -> None:
-    with pytest.raises(ShapeNotFound):
+    with pytest.raises(ShapeNotFoundError):
         get_shape(bad)  # type: ignore[arg-type]
 
 

@@ -12,7 +12,7 @@ from hypothesis import strategies as st
 
 from engine.mechanics.statics import (
     PointLoad,
-    PondingInstability,
+    PondingInstabilityError,
     UniformLoad,
     deflection,
     deflection_from_curvature,
@@ -313,7 +313,7 @@ def test_ponding_example_i1_amplification() -> None:
 @pytest.mark.parametrize("cc", [1.01, 1.5, 4.0, 20.0, 100.0])
 def test_ponding_instability_raised(cc: float) -> None:
     # Cc = k L^4/(pi^4 EI) > 1 is unstable (REFERENCE.md §2 Closed form: stable only if Cc < 1)
-    with pytest.raises(PondingInstability):
+    with pytest.raises(PondingInstabilityError):
         ponded_deflection(stations(L), L, [UniformLoad(0.1)], EI, k_for(cc))
 
 
@@ -387,7 +387,7 @@ def test_ponding_equals_dense_solve_and_stability_rule(ei_factors, k_factors, ta
         assert np.allclose(y, dense, rtol=1e-8, atol=1e-10 * np.abs(dense).max())
         assert np.all(y >= y0 - 1e-12)
     elif target > 1 + 1e-6:
-        with pytest.raises(PondingInstability):
+        with pytest.raises(PondingInstabilityError):
             ponded_deflection(x, L, loads, ei, k)
 
 

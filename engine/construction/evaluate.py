@@ -26,7 +26,7 @@ from engine.construction.pours import (
     first_difference, pour_plan, side_widths,
 )
 from engine.construction.staging import StagedRun, blend, constant_thickness_total, run_stages_at, step_effects
-from engine.mechanics.statics import PondingInstability
+from engine.mechanics.statics import PondingInstabilityError
 from engine.model.units import format_ft_in, format_inches
 
 CONSTRUCTION_LOAD_PSF = MappingProxyType({"very-light": 20.0, "light": 25.0, "medium": 50.0, "heavy": 75.0})
@@ -173,7 +173,7 @@ def evaluate_construction(beam: BeamInput) -> ConstructionResult:
         if not (level and may_camber(beam, delta0)):
             at_one = at_zero
         stable = True
-    except PondingInstability as exc:
+    except PondingInstabilityError as exc:
         at_zero = at_one = run_stages_at(plan, bare, (0.0,), False, effects=effects)[0]
         delta0 = float(at_zero.total[mid])
         stable = False

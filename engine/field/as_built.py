@@ -20,6 +20,7 @@ from engine.studs.layout import StudLayout
 from engine.model.inputs import FINDING_KINDS, BeamInput, Finding
 from engine.finished.slab_force import stud_qn
 from engine.model.units import format_ft_in
+from engine.model.errors import FieldcompError
 
 LOSS_KINDS = ("missing", "failed-test", "off-rib", "short")
 LEAVE_THE_RIB = ("missing", "off-rib")  # no longer welded in the rib: R_g recounted without them
@@ -38,7 +39,7 @@ FINDING_EFFECTS: dict[str, tuple[str, str]] = {
 }
 
 
-class FindingError(ValueError):
+class FindingError(FieldcompError, ValueError):
     """A finding that contradicts the layout; `index` is its 0-based place in the list."""
 
     def __init__(self, index: int, message: str):

@@ -11,6 +11,7 @@ from collections.abc import Iterable
 from dataclasses import dataclass
 
 import numpy as np
+from engine.model.errors import FieldcompError
 
 _BLOCK = 13  # stations per block of the prefix product in ponded_deflection (speed only)
 
@@ -49,7 +50,7 @@ class PointLoad:
 Load = UniformLoad | PointLoad
 
 
-class PondingInstability(ValueError):
+class PondingInstabilityError(FieldcompError, ValueError):
     """The deflection-dependent load has no stable equilibrium: the beam is too flexible."""
 
 
@@ -288,7 +289,7 @@ def _transfer_matrices(x: np.ndarray, flex: np.ndarray, k: np.ndarray, kappa: np
     alpha, gamma = h2 * k1 / 6.0, h2 * f1 / 6.0
     det = 1.0 - alpha * gamma
     if (det <= 0.0).any():
-        raise PondingInstability("deflection-dependent load is too stiff for the station spacing")
+        raise PondingInstabilityError("deflection-dependent load is too stiff for the station spacing")
     dim = 4 + kappa.shape[0]
     # rows before coupling: m_next + alpha*y_next = row_m . z,  y_next + gamma*m_next = row_y . z
     row_m = np.zeros((h.size, dim))
@@ -354,7 +355,7 @@ def ponded_deflection(
 
     Solves y = y_0 + A K y for the discrete operator A of `deflection`. Stability: A is entrywise
     positive, so (Perron-Frobenius) the largest eigenvalue of A K is < 1 exactly when the response
-    to a positive probe load stays positive; otherwise PondingInstability is raised.
+    to a positive probe load stays positive; otherwise PondingInstabilityError is raised.
     """
     x = _check_grid(x, span)
     flex = 1.0 / _per_station(ei, x, "EI", positive=True)
@@ -377,17 +378,17 @@ def ponded_rows(x: np.ndarray, span: float, moments: np.ndarray, flex: np.ndarra
     deflections, end = _prefix_states(steps, x.size - 1, [1, 3, *range(4, 4 + kappa.shape[0])], _BLOCK)
     ends = end[[0, 2]]  # moment and deflection at the far support must vanish
     if not np.isfinite(deflections).all() or not np.isfinite(ends).all():
-        raise PondingInstability("ponding load makes the beam singular (critical stiffness)")
+        raise PondingInstabilityError("ponding load makes the beam singular (critical stiffness)")
     try:
         starts = np.linalg.solve(ends[:, :2], -ends[:, 2:])
     except np.linalg.LinAlgError as exc:
-        raise PondingInstability("ponding load makes the beam singular (critical stiffness)") from exc
+        raise PondingInstabilityError("ponding load makes the beam singular (critical stiffness)") from exc
     solved = np.ascontiguousarray((deflections[:, :2] @ starts + deflections[:, 2:]).T)
     y, y_probe = solved[:-1], solved[-1]
     inside = (x > x[0]) & (x < x[-1])
     if not (np.isfinite(y).all() and (y_probe[inside] > 0.0).all()):
         crit = float(np.max(k) * span**4 * np.max(flex) / math.pi**4)
-        raise PondingInstability(
+        raise PondingInstabilityError(
             "ponding is unstable: the deflection-dependent load exceeds the beam's stiffness "
             f"(first-mode ratio k L^4/(pi^4 EI) with the largest k and least EI = {crit:.3g})"
         )

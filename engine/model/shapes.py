@@ -8,8 +8,9 @@ from dataclasses import dataclass
 from types import MappingProxyType
 
 from engine.model.data.w_shapes import ROWS
+from engine.model.errors import FieldcompError
 
-__all__ = ["WShape", "ShapeNotFound", "get_shape", "find_shapes"]
+__all__ = ["WShape", "ShapeNotFoundError", "get_shape", "find_shapes"]
 
 
 @dataclass(frozen=True, slots=True)
@@ -47,7 +48,7 @@ class WShape:
         return (self.d - 2.0 * self.k_des) / self.tw
 
 
-class ShapeNotFound(ValueError):
+class ShapeNotFoundError(FieldcompError, ValueError):
     """No W-shape by that name; `suggestions` holds close names from the table."""
 
     def __init__(self, name: object, suggestions: tuple[str, ...]) -> None:
@@ -87,12 +88,12 @@ def _close_names(key: str) -> tuple[str, ...]:
 def get_shape(name: str) -> WShape:
     """The W-shape with this designation; case, spaces and x / X / × are ignored."""
     if not isinstance(name, str):
-        raise ShapeNotFound(name, ())
+        raise ShapeNotFoundError(name, ())
     key = _normalise(name)
     try:
         return _BY_NAME[key]
     except KeyError:
-        raise ShapeNotFound(name, _close_names(key)) from None
+        raise ShapeNotFoundError(name, _close_names(key)) from None
 
 
 def find_shapes(pattern: str = "*") -> tuple[WShape, ...]:

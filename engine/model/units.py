@@ -8,6 +8,7 @@ from __future__ import annotations
 import math
 import re
 from functools import lru_cache
+from engine.model.errors import FieldcompError
 
 __all__ = ["UnitError", "parse_length", "format_ft_in", "format_inches", "round_to_sixteenth"]
 
@@ -34,7 +35,7 @@ _METRIC = re.compile(rf"(?P<value>{_DECIMAL})\s*(?P<unit>mm|cm|m)", re.IGNORECAS
 _BARE_NUMBER = re.compile(rf"[+-]?{_DECIMAL}(?:\s+\d+\s*/\s*\d+)?|[+-]?\d+\s*/\s*\d+")
 
 
-class UnitError(ValueError):
+class UnitError(FieldcompError, ValueError):
     """A length string that cannot be read; the message names the text and the accepted forms."""
 
 

@@ -30,13 +30,13 @@ def run(args: argparse.Namespace) -> int:
     from engine.field.repair import find_repair
     from fieldcomp.cli.common import load_inputs
     from fieldcomp.jobs.inspection_log import CsvImportError
-    from fieldcomp.jobs.jobfile import ChangedOnDisk, JobFileError
+    from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError
     from fieldcomp.views.findings_report import findings_json, findings_text
 
     try:
         if args.import_csv:
             print(import_log(args.job, args.beam, args.import_csv), file=sys.stderr)
-    except (JobFileError, CsvImportError, ChangedOnDisk) as exc:
+    except (JobFileError, CsvImportError, ChangedOnDiskError) as exc:
         return fail_input(exc)
     except OSError as exc:
         return fail_input(f"cannot save {args.job}: {exc.strerror or exc}")

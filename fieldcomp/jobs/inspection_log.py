@@ -15,13 +15,14 @@ from pathlib import Path
 from pydantic import ValidationError
 
 from fieldcomp.jobs.model import FindingIn
+from engine.model.errors import FieldcompError
 
 COLUMNS = ("kind", "rib", "station", "count", "note", "date", "reported_by")
 MAX_BYTES = 2 * 1024 * 1024
 MAX_ROWS = 5000
 
 
-class CsvImportError(ValueError):
+class CsvImportError(FieldcompError, ValueError):
     """Bad inspection log. `problems` lists (row number or None, message)."""
 
     def __init__(self, path: str | os.PathLike[str], problems: list[tuple[int | None, str]]):
@@ -84,7 +85,7 @@ def parse_findings_csv(text: str, path: str | os.PathLike[str] = "<csv>") -> lis
             continue
         try:
             found.append((number, _finding(dict(zip(header, (c.strip() for c in cells))))))
-        except _RowProblem as exc:
+        except _RowProblemError as exc:
             problems.extend((number, msg) for msg in exc.messages)
     if problems:
         raise CsvImportError(path, problems)
@@ -93,7 +94,7 @@ def parse_findings_csv(text: str, path: str | os.PathLike[str] = "<csv>") -> lis
     return found
 
 
-class _RowProblem(ValueError):
+class _RowProblemError(FieldcompError, ValueError):
     def __init__(self, messages: list[str]):
         super().__init__("; ".join(messages))
         self.messages = messages
@@ -115,7 +116,7 @@ def _finding(cells: dict[str, str]) -> FindingIn:
         else:
             raw[name] = value
     if messages:
-        raise _RowProblem(messages)
+        raise _RowProblemError(messages)
     try:
         return FindingIn.model_validate(raw)
     except ValidationError as exc:
@@ -127,4 +128,4 @@ def _finding(cells: dict[str, str]) -> FindingIn:
             elif "input" in err and field:
                 msg = f"{msg} (got {err['input']!r})"
             messages.append(f"column '{field}': {msg}" if field else msg)
-        raise _RowProblem(messages) from None
+        raise _RowProblemError(messages) from None

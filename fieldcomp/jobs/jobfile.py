@@ -16,11 +16,12 @@ from pydantic import BaseModel, ValidationError
 
 from fieldcomp.jobs.atomic import write_bytes_atomic
 from fieldcomp.jobs.model import Job
+from engine.model.errors import FieldcompError
 
 MAX_BYTES = 20 * 1024 * 1024
 
 
-class JobFileError(ValueError):
+class JobFileError(FieldcompError, ValueError):
     """Bad job file. `problems` lists (where, message); `where` names table, beam mark and field."""
 
     def __init__(self, path: str | os.PathLike[str], problems: list[tuple[str, str]]):
@@ -30,7 +31,7 @@ class JobFileError(ValueError):
         super().__init__("\n".join(lines))
 
 
-class ChangedOnDisk(RuntimeError):
+class ChangedOnDiskError(FieldcompError, RuntimeError):
     """The file on disk changed since it was loaded; saving would overwrite someone's edit."""
 
 
@@ -123,7 +124,7 @@ def _unwrap(value: Any) -> Any:
 
 def save_job(job: Job, path: str | os.PathLike[str], expected_digest: str | None = None) -> str:
     """Write the job atomically: temp file in the same folder, flush + fsync, previous version
-    kept as `<name>.bak`, then atomic replace. Returns the new digest. Raises ChangedOnDisk if
+    kept as `<name>.bak`, then atomic replace. Returns the new digest. Raises ChangedOnDiskError if
     `expected_digest` is given and the file on disk no longer has it."""
     p = Path(path)
     previous = None
@@ -135,7 +136,7 @@ def save_job(job: Job, path: str | os.PathLike[str], expected_digest: str | None
     data = dump_job(job, previous).encode("utf-8")
     if expected_digest is not None and p.exists():
         if hashlib.sha256(p.read_bytes()).hexdigest() != expected_digest:
-            raise ChangedOnDisk(f"{p} changed on disk since it was opened; not overwritten")
+            raise ChangedOnDiskError(f"{p} changed on disk since it was opened; not overwritten")
     if p.exists():
         _keep_backup(p)
     write_bytes_atomic(p, data)

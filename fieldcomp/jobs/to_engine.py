@@ -10,8 +10,9 @@ from engine.model.deck import DeckProfile, Slab
 from engine.model.inputs import (
     BeamInput, CamberRules, ConstructionSpec, Finding, Limits, Method, PointLoad, PourStage, RibSettings, StudSpec,
 )
-from engine.model.shapes import ShapeNotFound, get_shape
+from engine.model.shapes import ShapeNotFoundError, get_shape
 from engine.model.units import parse_length
+from engine.model.errors import FieldcompError
 from fieldcomp.jobs.jobfile import JobFileError
 from fieldcomp.jobs.model import Beam, Job
 
@@ -47,56 +48,56 @@ def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInpu
         here = f"beam '{b.mark}' #{i + 1}"
         try:
             beams.append(beam_input(job, b, slabs[b.slab], rules))
-        except _FieldProblem as exc:
+        except _FieldProblemError as exc:
             problems.append((f"{here}, field '{exc.field}'", str(exc)))
     if problems:
         raise JobFileError(path, problems)
     return beams
 
 
-class _FieldProblem(ValueError):
+class _FieldProblemError(FieldcompError, ValueError):
     def __init__(self, field: str, message: str):
         super().__init__(message)
         self.field = field
 
 
 def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
-    """One beam of the job as engine input; raises _FieldProblem naming the field."""
+    """One beam of the job as engine input; raises _FieldProblemError naming the field."""
     try:
         shape = get_shape(b.shape)
-    except ShapeNotFound as exc:
-        raise _FieldProblem("shape", str(exc)) from None
+    except ShapeNotFoundError as exc:
+        raise _FieldProblemError("shape", str(exc)) from None
     span = parse_length(b.span)
     if not 12.0 <= span <= 1200.0:
-        raise _FieldProblem("span", f"{b.span} is outside 1 ft to 100 ft")
+        raise _FieldProblemError("span", f"{b.span} is outside 1 ft to 100 ft")
     sides = []
     for side in ("left", "right"):
         spacing, edge = getattr(b, f"spacing_{side}"), getattr(b, f"edge_{side}")
         value = parse_length(spacing) / 2.0 if spacing is not None else parse_length(edge)
         if spacing is not None and value <= 0.0:
-            raise _FieldProblem(f"spacing_{side}", "must be greater than zero")
+            raise _FieldProblemError(f"spacing_{side}", "must be greater than zero")
         sides.append(value)
     point_loads = []
     for k, p in enumerate(b.point_loads):
         x = parse_length(p.at)
         if not 0.0 < x < span:
-            raise _FieldProblem(f"point_loads[{k}].at", f"{p.at} is not inside the span {b.span}")
+            raise _FieldProblemError(f"point_loads[{k}].at", f"{p.at} is not inside the span {b.span}")
         pre = p.dead_kips if p.precomposite_dead_kips is None else p.precomposite_dead_kips
         if pre > p.dead_kips:
-            raise _FieldProblem(f"point_loads[{k}].precomposite_dead_kips", "exceeds dead_kips")
+            raise _FieldProblemError(f"point_loads[{k}].precomposite_dead_kips", "exceeds dead_kips")
         point_loads.append(PointLoad(x, p.dead_kips, p.live_kips, pre, p.construction_live_kips))
     pours = []
     for k, stage in enumerate(b.pour):
         start = parse_length(stage.start)
         end = span if stage.end is None else parse_length(stage.end)
         if not 0.0 <= start < end <= span + 1e-6:
-            raise _FieldProblem(f"pour[{k}]", f"stage '{stage.name}' must run from 0 to the span with start < end")
+            raise _FieldProblemError(f"pour[{k}]", f"stage '{stage.name}' must run from 0 to the span with start < end")
         pours.append(PourStage(stage.name, start, min(end, span), stage.side, stage.day, stage.screed))
     if pours:
         try:
             check_stages(tuple(pours), span)
         except ValueError as exc:
-            raise _FieldProblem("pour", str(exc)) from None
+            raise _FieldProblemError("pour", str(exc)) from None
     camber = rules if b.camber == "auto" else CamberRules(
         rules.fraction, rules.increment, rules.minimum, rules.min_length, rules.min_depth,
         do_not_camber=b.no_camber_reason or "marked not to be cambered")
@@ -110,10 +111,10 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         live_limit_ratio=limits.live_ratio)
     keep_start, keep_end = parse_length(b.keep_out_start), parse_length(b.keep_out_end)
     if keep_start + keep_end >= span:
-        raise _FieldProblem("keep_out_start", "keep-out zones cover the whole span")
+        raise _FieldProblemError("keep_out_start", "keep-out zones cover the whole span")
     setback = parse_length(b.end_setback)
     if 2.0 * setback >= span:
-        raise _FieldProblem("end_setback", "the setbacks at both ends cover the whole span")
+        raise _FieldProblemError("end_setback", "the setbacks at both ends cover the whole span")
     ribs = RibSettings(b.reference_end, b.far_end, None if b.first_rib is None else parse_length(b.first_rib),
                        keep_start, keep_end, job.project.station_origin, setback)
     # finding stations are read off the marks, so they follow the printed station convention
@@ -122,7 +123,7 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
                              f.count, f.note) for f in b.finding)
     diameter = parse_length(b.studs.diameter)
     if not 0.25 <= diameter <= 1.0:
-        raise _FieldProblem("studs.diameter", f"{b.studs.diameter} is outside 1/4 in to 1 in")
+        raise _FieldProblemError("studs.diameter", f"{b.studs.diameter} is outside 1/4 in to 1 in")
     studs = StudSpec(diameter, b.studs.fu_ksi, parse_length(b.studs.length), b.studs.position,
                      None if b.studs.count == "design" else b.studs.count, b.studs.max_per_rib)
     return BeamInput(

@@ -26,7 +26,7 @@ from fieldcomp.tui.messages import BeamSelected, EditRequested, OutcomeFinished,
 from fieldcomp.tui.outcome import BeamOutcome, OutcomeCache
 from fieldcomp.tui.screens.help import HelpScreen
 from fieldcomp.tui.screens.workbench import WorkbenchScreen
-from fieldcomp.tui.session import EditRejected, JobSession, default_state_dir
+from fieldcomp.tui.session import EditRejectedError, JobSession, default_state_dir
 
 THEMES = {
     "light": Theme(name="fieldcomp-light", dark=False, primary="#1D5A85", secondary="#56646F", accent="#A8561C",
@@ -104,7 +104,7 @@ class FieldcompApp(FileActions, App[None]):
         started = time.perf_counter()
         try:
             changed = self.session.set_text(message.path, message.text)
-        except EditRejected as exc:
+        except EditRejectedError as exc:
             self.notify(str(exc), title="Not accepted", severity="error")
             return
         if changed:
@@ -120,7 +120,7 @@ class FieldcompApp(FileActions, App[None]):
         started = time.perf_counter()
         try:
             changed = edit()
-        except EditRejected as exc:
+        except EditRejectedError as exc:
             self.notify(str(exc), title="Not accepted", severity="error")
             return
         if changed:

@@ -11,7 +11,7 @@ from typing import Callable
 
 from textual import work
 
-from fieldcomp.jobs.jobfile import ChangedOnDisk, JobFileError
+from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError
 from fieldcomp.tui.dialogs import AskPath, Choice
 from fieldcomp.tui.session import JobSession, discard_recovery, read_recovery, write_recovery
 
@@ -34,7 +34,7 @@ class FileActions:
         old = self.session.path
         try:
             saved = self.session.save(path, overwrite=overwrite)
-        except ChangedOnDisk:
+        except ChangedOnDiskError:
             self.push_screen(Choice(
                 "Changed on disk", f"{self.session.where} was changed by someone else since it was opened. "
                 "Saving now would overwrite their edit.",

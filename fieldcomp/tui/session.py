@@ -19,6 +19,7 @@ import tomli_w
 
 from fieldcomp.jobs.jobfile import JobFileError, dump_job, load_job, parse_job, save_job
 from fieldcomp.jobs.model import Job
+from engine.model.errors import FieldcompError
 
 Path_ = tuple[str | int, ...]  # ("beam", 0, "studs", "count")
 
@@ -30,7 +31,7 @@ PARTNERS = {"spacing_left": "edge_left", "edge_left": "spacing_left",
 UNDO_DEPTH = 200
 
 
-class EditRejected(ValueError):
+class EditRejectedError(FieldcompError, ValueError):
     """An edit the loader refuses; `problems` are the loader's (where, message) pairs."""
 
     def __init__(self, problems: list[tuple[str, str]]):
@@ -116,7 +117,7 @@ class JobSession:
             job = parse_job(tomli_w.dumps(raw), self.where)
             validate_job(job, self.where)
         except JobFileError as exc:
-            raise EditRejected(exc.problems) from None
+            raise EditRejectedError(exc.problems) from None
         return job
 
     def apply(self, change: Callable[[dict[str, Any]], None], description: str) -> bool:
@@ -129,14 +130,14 @@ class JobSession:
 
     def set_text(self, path: Path_, text: str) -> bool:
         """Set one field from typed text (lengths with units, numbers, words); '' clears an
-        optional field. Raises EditRejected with the loader's messages."""
+        optional field. Raises EditRejectedError with the loader's messages."""
         return self.apply(_setter(path, text), f"{self.label(path)} = {text.strip() or '(none)'}")
 
     def check_text(self, path: Path_, text: str) -> list[tuple[str, str]]:
         """The loader's problems if `path` were set to `text` ([] when it would be accepted)."""
         try:
             self.candidate(_setter(path, text))
-        except EditRejected as exc:
+        except EditRejectedError as exc:
             return exc.problems
         return []
 
@@ -192,7 +193,7 @@ class JobSession:
     # -- files -------------------------------------------------------------------------------
     def save(self, path: str | os.PathLike[str] | None = None, overwrite: bool = False) -> Path:
         """Save atomically (previous version kept as .bak). Saving to the file it was loaded
-        from raises ChangedOnDisk if someone else changed it, unless `overwrite`."""
+        from raises ChangedOnDiskError if someone else changed it, unless `overwrite`."""
         target = Path(path) if path is not None else self.path
         if target is None:
             raise ValueError("an untitled job needs a file name: use save as")
