@@ -120,3 +120,12 @@ def test_every_error_is_a_fieldcomp_error_named_error():
     for cls in errors:
         assert issubclass(cls, FieldcompError), cls
         assert cls.__name__.endswith("Error"), cls
+
+
+def test_no_source_cites_a_file_users_do_not_have():
+    """What users read cites published sources only: no module names a notes file outside this
+    repository (reports once printed such a citation)."""
+    offenders = [str(p.relative_to(ROOT)) for folder in ("engine", "fieldcomp") for p in (ROOT / folder).rglob("*")
+                 if p.suffix in (".py", ".tcss", ".toml", ".json")
+                 and any(name in p.read_text(encoding="utf-8") for name in ("REFERENCE.md", "DESIGN.md"))]
+    assert offenders == []

@@ -1,4 +1,4 @@
-"""Benchmarks against the targets in DESIGN.md section 5. Not collected by pytest.
+"""Benchmarks against the speed targets of the open issues. Not collected by pytest.
 
     python tools/bench.py            # all figures, medians
     python tools/bench.py --quick    # fewer repetitions

@@ -62,7 +62,7 @@ class CamberDecision:
 
 
 def _ruled_out(beam: BeamInput) -> str | None:
-    """Why the job's rules forbid camber on this beam, or None (common practice, DESIGN.md "Camber")."""
+    """Why the job's rules forbid camber on this beam, or None (common practice)."""
     rules = beam.construction.camber
     if rules.do_not_camber:
         return rules.do_not_camber
@@ -82,7 +82,7 @@ def may_camber(beam: BeamInput, at_zero: float) -> bool:
 
 def decide_camber(beam: BeamInput, at_zero: float, drop: float) -> CamberDecision:
     """Camber for a predicted midspan deflection `at_zero - drop * c` at camber c (in).
-    Common practice (DESIGN.md "Camber"; "Specifying Camber", Modern Steel Construction, July 2006).
+    Common practice ("Specifying Camber", Modern Steel Construction, July 2006).
 
     Level screeding ponds less concrete on a cambered beam, so the deflection falls with the
     camber (`drop` >= 0; 0 for constant thickness). The order solves c = f (at_zero - drop c),
@@ -130,7 +130,7 @@ class CamberOutcome:
 def camber_outcome(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: StagedRun,
                    camber: float, case: str) -> CamberOutcome:
     """Outcome at midspan for a delivered camber.
-    Definitions of this tool (DESIGN.md "Camber"); stud cover minimum AISC 360-22 I3.2c.1(c).
+    Definitions of this tool; stud cover minimum AISC 360-22 I3.2c.1(c).
 
     Constant thickness: the slab keeps its nominal thickness and its top follows the steel, so
     top = camber - deflection at midspan. Level: the concrete is struck off level with the

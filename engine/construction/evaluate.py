@@ -261,7 +261,7 @@ def _checks(beam: BeamInput, plan: PourPlan, run: StagedRun, decision: CamberDec
         k_max = max(float(step.k.max()) for step in plan.steps)
         cc = first_mode_ratio(k_max, beam.span, E_STEEL * beam.shape.ix)
         checks.append(Check("construction.ponding_stability", "level-screed ponding stability (C_c < 1)",
-                            "REFERENCE.md section 2 closed form (Ruddy, AISC EJ 1986); AISC 360-22 Commentary I3.1b",
+                            "closed form after Ruddy, AISC Engineering Journal 1986; AISC 360-22 Commentary I3.1b",
                             cc if stable else max(cc, 1.0 + 1e-6), 1.0, "ratio",
                             note="" if stable else "the exact solution has no stable equilibrium"))
     return checks

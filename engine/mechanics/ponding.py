@@ -2,7 +2,7 @@
 
 When the slab is struck off level at the elevation set at the supports, the concrete at x is
 deeper than nominal by the sag of the steel below that line, so the load grows by
-k(x) * sag(x), k = unit weight x width placed (REFERENCE.md section 2, "Closed form", after
+k(x) * sag(x), k = unit weight x width placed (after
 Ruddy, "Ponding of Concrete Deck Floors", AISC Engineering Journal 23(3), 1986). The sag is
 the deflection so far less the camber; the linear problem is solved exactly on the station grid
 by engine.mechanics.statics.ponded_deflection, not with a fixed percentage.
@@ -77,7 +77,7 @@ def level_deflection(
     x: np.ndarray, span: float, loads: Sequence[Load], known: np.ndarray, k: np.ndarray, ei: np.ndarray
 ) -> np.ndarray:
     """Deflection y (in) under `loads`, a known station load `known` and the ponding load k y.
-    REFERENCE.md section 2 (level placement adds gamma_c s Delta): y = A (loads + known + k y).
+    Level placement adds gamma_c s Delta (after Ruddy, AISC Engineering Journal 1986): y = A (loads + known + k y).
 
     A is the simple-span flexibility with EI(x); solved by engine.mechanics.statics.ponded_deflection.
     `known` (kip/in at stations) enters it as uniform pieces of equal resultant; the
@@ -94,7 +94,7 @@ def level_deflections(
     """`level_deflection` for several rows of known station load (rows, x.size) on the same
     beam, loads and ponding stiffness: one solve of the ponding operator for every row.
     `moment`: the moment of `loads` at x when the caller has it.
-    REFERENCE.md section 2; linear ponding equilibrium solved by engine.mechanics.statics.ponded_rows."""
+    Linear ponding equilibrium solved by engine.mechanics.statics.ponded_rows."""
     ei = np.broadcast_to(np.asarray(ei, dtype=float), x.shape)
     moment = shear_moment(x, span, loads)[1] if moment is None else moment
     rows = np.repeat(moment[None, :], len(known), axis=0)
@@ -115,5 +115,5 @@ def level_deflections(
 
 def first_mode_ratio(k_max: float, span: float, ei_min: float) -> float:
     """C_c = k L^4 / (pi^4 EI): level placement is stable only for C_c < 1 (largest k, least EI).
-    REFERENCE.md section 2, "Closed form" (amplification 1 / (1 - C_c))."""
+    Closed form after Ruddy, AISC Engineering Journal 1986 (amplification 1 / (1 - C_c))."""
     return float(k_max * span**4 / (np.pi**4 * ei_min))

@@ -57,7 +57,7 @@ class PondingInstabilityError(FieldcompError, ValueError):
 def stations(span: float, n: int = 401) -> np.ndarray:
     """Equally spaced stations from 0 to span inclusive (use n >= 201 for reports).
 
-    Grid definition (DESIGN.md, Statics); n >= 3 is required.
+    Grid definition of this tool; n >= 3 is required.
     """
     if not (math.isfinite(span) and span > 0.0):
         raise ValueError(f"span = {span} in must be > 0")
@@ -351,7 +351,7 @@ def ponded_deflection(
 ) -> np.ndarray:
     """Deflection (in, downward +) with the extra load k(x)*y(x) (k in kip/in per in), solved exactly.
 
-    Linear ponding equilibrium (REFERENCE.md §2, Closed form, D), solved on the grid.
+    Linear ponding equilibrium (after Ruddy, AISC Engineering Journal 1986), solved on the grid.
 
     Solves y = y_0 + A K y for the discrete operator A of `deflection`. Stability: A is entrywise
     positive, so (Perron-Frobenius) the largest eigenvalue of A K is < 1 exactly when the response
@@ -368,7 +368,7 @@ def ponded_rows(x: np.ndarray, span: float, moments: np.ndarray, flex: np.ndarra
     """`ponded_deflection` for several load cases on one operator, without input checks: rows of
     moments M_0 (kip-in at stations `x` from `stations`), flex = 1/EI and k per station.
 
-    Linear ponding equilibrium (REFERENCE.md §2, Closed form, D): one transfer-matrix sweep carries
+    Linear ponding equilibrium (after Ruddy, AISC Engineering Journal 1986): one transfer-matrix sweep carries
     every load case and the stability probe (see `ponded_deflection`).
     """
     probe_moment = 0.5 * x * (span - x)  # unit uniform load, kip-in per kip/in

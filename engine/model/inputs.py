@@ -75,7 +75,7 @@ class PourStage:
 
 @dataclass(frozen=True, slots=True)
 class CamberRules:
-    """Camber decision settings (common practice defaults, see DESIGN.md "Camber")."""
+    """Camber decision settings (common practice defaults; "Specifying Camber", Modern Steel Construction, July 2006)."""
 
     fraction: float = 0.80
     increment: float = 0.25

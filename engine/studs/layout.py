@@ -54,7 +54,7 @@ class StudLayout:
         """The end each slot's studs stand toward within the rib: "reference", "far" or "center".
 
         A stud bears toward the maximum moment, so its strong side is the rib side nearer the
-        end it serves (REFERENCE.md section 1, derived from AISC 360-22 I8.2a e_mid-ht).
+        end it serves (derived from the AISC 360-22 I8.2a e_mid-ht definition).
         """
         flip = self.x_flip if math.isfinite(self.x_flip) else 0.5 * (self.x[0] + self.x[-1]) if self.x.size else 0.0
         serves_reference = self.x < flip

@@ -67,7 +67,7 @@ class PlasticMoment:
 def model_web_thickness(shape) -> float:
     """Web thickness that makes two bf x tf flanges plus the web equal the tabulated area, in.
 
-    DESIGN.md section 3 (fillets folded into the web) for AISC 360-22 I3.2a plastic analysis.
+    Model of this tool (fillets folded into the web) for AISC 360-22 I3.2a plastic analysis.
     """
     tw = (shape.area - 2.0 * shape.bf * shape.tf) / (shape.d - 2.0 * shape.tf)
     if tw <= 0.0:

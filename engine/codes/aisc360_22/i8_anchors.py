@@ -34,7 +34,7 @@ def emid_ht(w_mid, offset, d, position):
     """Shank edge to rib wall at rib mid-height, in the direction the stud bears, in.
 
     AISC 360-22 I8.2a (definition of e_mid-ht); geometry e = w_mid/2 + s*offset - d/2 with
-    s = +1 "strong", -1 "weak", 0 "center" (REFERENCE.md section 1, derived).
+    s = +1 "strong", -1 "weak", 0 "center" (geometry derived from the I8.2a definition).
     `position` is one of those words or an array of them; `offset` is the distance of the
     stud axis from the rib centreline.
     """
