@@ -1,4 +1,1 @@
-"""fieldcomp engine: pure computation for unshored composite steel floor beams.
-
-No file, terminal or network access; no pydantic. Units inside: kip, inch, ksi, kip-in.
-"""
+"""fieldcomp engine: pure computation (no files, terminal, network or UI), kip / inch / ksi inside."""

@@ -1,0 +1,1 @@
+"""Job files: the pydantic model, load and atomic save, conversion to engine inputs, inspection logs."""

@@ -1,0 +1,1 @@
+"""The Textual workbench: app, session (job, undo, recovery), outcomes in workers, screens and widgets."""

@@ -1,5 +1,1 @@
-"""Clause layer: small pure functions named after the symbols of ANSI/AISC 360-22.
-
-Each function's docstring names its clause on the second line. Domain modules
-(`engine.finished.slab_force`, `engine.construction.evaluate`, `engine.studs.layout`, ...) compose them.
-"""
+"""ANSI/AISC 360-22 Specification for Structural Steel Buildings: one module per chapter section used."""
