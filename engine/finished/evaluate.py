@@ -22,15 +22,16 @@ from engine.codes.aisc360_22.i3_composite import (
 )
 from engine.codes.aisc360_22.i1_materials import E_STEEL, ec, fc_strength_range
 from engine.codes.aisc360_22.g_shear import ShearStrength, web_shear_strength
+from engine.codes.asce7_22 import combinations
+from engine.codes.practice import MIN_COMPOSITE
 from engine.model.results import Check, Flag
 from engine.studs.detailing import deck_checks, spacing_checks
-from engine.finished.loads import FinishedLoads, combinations, finished_loads, load_factors
+from engine.finished.loads import FinishedLoads, finished_loads, load_factors
 from engine.model.inputs import BeamInput
 from engine.finished.slab_force import StudGroups, slab_force
 from engine.mechanics.statics import deflection_rows, factored_max_abs_shear, factored_moment, stations
 
 PHI_B, OMEGA_B = 0.90, 1.67  # AISC 360-22 I3.2a
-MIN_COMPOSITE = 0.25  # Commentary I3.2a/I3.2d lower limit of the I_equiv fit (common practice minimum)
 
 
 class OutOfScope(ValueError):

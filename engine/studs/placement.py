@@ -22,9 +22,10 @@ from functools import lru_cache
 import numpy as np
 
 from engine.codes.aisc360_22.i3_composite import plastic_moment
+from engine.codes.practice import MIN_COMPOSITE
 from engine.studs.detailing import spacing_limits
 from engine.finished.evaluate import (
-    MIN_COMPOSITE, available_strength, composite_strength, finished_basis, method_strength, moment_envelope,
+    available_strength, composite_strength, finished_basis, method_strength, moment_envelope,
 )
 from engine.model.inputs import BeamInput
 
