@@ -14,12 +14,11 @@ from dataclasses import dataclass
 import numpy as np
 
 from engine.codes.aisc303_16 import camber_tolerance
+from engine.codes.aisc360_22.i3_composite import STUD_COVER_MIN
 from engine.model.inputs import BeamInput, CamberRules
 from engine.construction.pours import KIP_PER_IN3_PER_PCF, PourPlan
 from engine.construction.staging import StagedRun
 from engine.model.units import format_ft_in, format_inches
-
-MIN_STUD_COVER = 0.5  # in, AISC 360-22 I3.2c.1(c)
 
 
 def round_down(value: float, increment: float) -> float:
@@ -145,7 +144,7 @@ def camber_outcome(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: 
     warnings = []
     if cover < 0.0:
         warnings.append(f"stud heads stand {format_inches(-cover)} proud of the slab at midspan")
-    elif cover < MIN_STUD_COVER - 1e-9:
+    elif cover < STUD_COVER_MIN - 1e-9:
         warnings.append(f"stud cover {format_inches(cover)} at midspan is under the 1/2\" minimum "
                         "(AISC 360-22 I3.2c.1(c))")
     return CamberOutcome(case, camber, final, top, thickness, cover, extra, tuple(warnings))

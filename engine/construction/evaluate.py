@@ -14,6 +14,7 @@ import numpy as np
 
 from engine.codes import asce7_22
 from engine.codes.aisc360_22.i1_materials import E_STEEL
+from engine.codes.aisc360_22.i3_composite import COMPOSITE_FC_SHARE
 from engine.codes.aisc360_22.g_shear import ShearStrength, web_shear_strength
 from engine.construction.bare_steel import BareFlexure, Bracing, bracing, governing_segments
 from engine.construction.camber import CamberDecision, CamberOutcome, decide_camber, may_camber, outcome_envelope
@@ -22,7 +23,7 @@ from engine.model.deck import psf_to_kip_per_in
 from engine.model.inputs import BeamInput
 from engine.mechanics.ponding import first_mode_ratio
 from engine.construction.pours import (
-    KIP_PER_IN3_PER_PCF, STRENGTH_FRACTION, PourPlan, bare_sections, cured_sections, earlier_strength_ratio,
+    KIP_PER_IN3_PER_PCF, PourPlan, bare_sections, cured_sections, earlier_strength_ratio,
     first_difference, pour_plan, side_widths,
 )
 from engine.construction.staging import StagedRun, blend, constant_thickness_total, run_stages_at, step_effects
@@ -264,7 +265,7 @@ def _flags(beam: BeamInput, plan: PourPlan, braces: Bracing, cured: bool, outcom
            summaries: tuple[StageSummary, ...]) -> list[Flag]:
     flags = [Flag("AISC 360-22 F1, I3.1b", braces.note, severity="info")]
     for st in summaries:
-        if st.earlier_fc_ratio is not None and st.earlier_fc_ratio >= STRENGTH_FRACTION:
+        if st.earlier_fc_ratio is not None and st.earlier_fc_ratio >= COMPOSITE_FC_SHARE:
             flags.append(Flag("AISC 360-22 I3.1b", f"stage '{st.name}': earlier concrete has reached "
                               f"{st.earlier_fc_ratio:.0%} of f'c (ACI 209R-92); composite strength could be "
                               "counted there, the bare steel is checked (conservative)", severity="info"))

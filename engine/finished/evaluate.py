@@ -13,14 +13,20 @@ from functools import lru_cache
 import numpy as np
 
 from engine.codes.aisc360_22.i3_composite import (
-    effective_width,
+    DECK_RIB_HEIGHT_MAX,
+    DECK_STUD_DIAMETER_MAX,
+    b_eff as total_effective_width,
+    cf_force,
     equivalent_inertia,
     lower_bound_inertia,
     pna_label,
     plastic_moment,
+    slip_capacity_exempt,
+    stress_block_force,
     transformed_inertia,
 )
-from engine.codes.aisc360_22.i1_materials import E_STEEL, ec, fc_strength_range
+from engine.codes.aisc360_22.f_flexure import OMEGA_B, PHI_B
+from engine.codes.aisc360_22.i1_materials import E_STEEL, ec, fc_strength_range, modular_ratio
 from engine.codes.aisc360_22.g_shear import ShearStrength, web_shear_strength
 from engine.codes.asce7_22 import combinations
 from engine.codes.practice import MIN_COMPOSITE
@@ -30,8 +36,6 @@ from engine.finished.loads import FinishedLoads, finished_loads, load_factors
 from engine.model.inputs import BeamInput
 from engine.finished.slab_force import StudGroups, slab_force
 from engine.mechanics.statics import deflection_rows, factored_max_abs_shear, factored_moment, stations
-
-PHI_B, OMEGA_B = 0.90, 1.67  # AISC 360-22 I3.2a
 
 
 class OutOfScope(ValueError):
@@ -114,10 +118,10 @@ def check_scope(beam: BeamInput) -> None:
         raise OutOfScope("fc_ksi", f"f'c = {beam.slab.fc_ksi:g} ksi is outside {lo:g}-{hi:g} ksi for "
                          f"{kind} concrete (AISC 360-22 I1.3); not computed")
     deck = beam.slab.deck
-    if deck is not None and deck.rib_height > 3.0:
+    if deck is not None and deck.rib_height > DECK_RIB_HEIGHT_MAX:
         raise OutOfScope("rib_height", f"rib height {deck.rib_height:g} in exceeds 3 in "
                          "(AISC 360-22 I3.2c.1(a)); not computed")
-    if deck is not None and beam.studs.diameter > 0.75:
+    if deck is not None and beam.studs.diameter > DECK_STUD_DIAMETER_MAX:
         raise OutOfScope("diameter", f"stud diameter {beam.studs.diameter:g} in exceeds 3/4 in through deck "
                          "(AISC 360-22 I8.1 / I3.2c.1(c)); not computed")
     if beam.support != "simple":
@@ -201,11 +205,10 @@ def slab_limits(beam: BeamInput) -> SlabLimits:
     force is limited to the topping (conservative; AISC 360-22 I3.2a).
     """
     slab = beam.slab
-    b_left, b_right = effective_width(beam.span, beam.slab_left, beam.slab_right)
-    b_eff = float(b_left + b_right)
+    b_eff = float(total_effective_width(beam.span, beam.slab_left, beam.slab_right))
     ac = slab.strength_concrete_area(b_eff, beam.orientation)
-    cf = min(beam.shape.area * beam.fy, 0.85 * slab.fc_ksi * ac)
-    return SlabLimits(b_eff, ac, cf, min(cf, 0.85 * slab.fc_ksi * b_eff * slab.topping))
+    cf = float(cf_force(beam.shape.area * beam.fy, slab.fc_ksi, ac))
+    return SlabLimits(b_eff, ac, cf, min(cf, float(stress_block_force(slab.fc_ksi, b_eff, slab.topping))))
 
 
 def composite_strength(beam: BeamInput, limits: SlabLimits, c: np.ndarray):
@@ -271,7 +274,7 @@ def finished_basis(beam: BeamInput) -> FinishedBasis:
         arr.flags.writeable = False
     lim = slab_limits(beam)
     e_c = float(ec(slab.concrete_pcf, slab.fc_ksi))
-    n = E_STEEL / e_c
+    n = float(modular_ratio(e_c))
     i_tr, _ = transformed_inertia(beam.shape, lim.b_eff, n, slab.topping, slab.total_thickness)
     return FinishedBasis(x, loads, dem, service, lim, e_c, n, float(i_tr), web_shear_strength(beam.shape, beam.fy),
                          tuple(deck_checks(beam)))
@@ -314,7 +317,7 @@ def evaluate_beam(beam: BeamInput, groups: StudGroups | None = None) -> BeamResu
     i_equiv = float(equivalent_inertia(shape.ix, i_tr, sum_qn_eff, cf)) if sum_qn_eff > 0 else shape.ix
 
     shear = basis.shear
-    phi_vn, vn_omega = shear.phi * shear.vn, shear.vn / shear.omega
+    phi_vn, vn_omega = shear.phi_vn, shear.vn_omega
 
     live_defl, after_cure_defl = _service_deflections(basis, E_STEEL * i_lb)
 
@@ -365,7 +368,7 @@ def _ductility_flags(beam: BeamInput, composite_ratio: float, groups: StudGroups
     """AISC 360-22 I3.2d slip capacity: flagged unless a Commentary exemption applies
     (span <= 30 ft, >= 50% composite, or average stud strength >= 16 kip/ft)."""
     per_ft = float(groups.strength.sum()) / (beam.span / 12.0)
-    if beam.span <= 360.0 or composite_ratio >= 0.5 or per_ft >= 16.0:
+    if slip_capacity_exempt(beam.span, composite_ratio, per_ft):
         return []
     return [Flag("AISC 360-22 I3.2d, Commentary", "slip capacity not checked: span over 30 ft, composite under "
                  f"50% and {per_ft:.1f} kip/ft of studs (< 16): the engineer of record must consider connector "
