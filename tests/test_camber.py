@@ -16,7 +16,8 @@ import pytest
 from hypothesis import assume, given, settings
 from hypothesis import strategies as st
 
-from engine.construction.camber import camber_tolerance, decide_camber, round_down
+from engine.codes.aisc303_16 import camber_tolerance
+from engine.construction.camber import decide_camber, round_down
 from engine.construction.evaluate import evaluate_construction
 from engine.model.deck import DeckProfile, Slab
 from engine.model.inputs import BeamInput, CamberRules, ConstructionSpec, PourStage, StudSpec

@@ -12,8 +12,9 @@ import pytest
 from hypothesis import given
 from hypothesis import strategies as st
 
+from engine.codes.aci209r_92 import fc_at_age
 from engine.codes.aisc360_22.i8_anchors import emid_ht, qn_concrete_limit, qn_stud, rg_rp, stud_area
-from engine.codes.aisc360_22.i1_materials import E_STEEL, ec, fc_at_age, fc_strength_range, modular_ratio
+from engine.codes.aisc360_22.i1_materials import E_STEEL, ec, fc_strength_range, modular_ratio
 
 FU = 65.0  # ksi, stud tensile strength used in REFERENCE.md section 8 and DE16 (AWS D1.1 Type B)
 D34 = 0.75  # in, 3/4-in stud

@@ -7,7 +7,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from engine.codes.aisc360_22.f_flexure import FlexureStrength, cb_from_moments, flexure_strength
+from engine.codes.aisc360_22.f_flexure import FlexureStrength, flexure_strength, unbraced_segments
 from engine.model.inputs import BeamInput, Method
 from engine.model.units import format_ft_in
 
@@ -70,31 +70,24 @@ def governing_segments(beam: BeamInput, x: np.ndarray, moments: np.ndarray, brac
     """For each moment diagram (rows of `moments`, kip-in at stations x), the unbraced segment with
     the highest demand / available strength: Lb between brace points, Cb by AISC 360-22 Eq. F1-1
     over the segment (quarter-point moments interpolated linearly, Mmax over the segment), Mn by
-    F2 (or F3). The segments are found once for every diagram (engine.codes.aisc360_22.f_flexure)."""
+    F2 (or F3). The segments are found once for every diagram
+    (engine.codes.aisc360_22.f_flexure.unbraced_segments)."""
     shape, fy = beam.shape, beam.fy
     size = np.abs(moments)
     if braces.points is None:
         strength = flexure_strength(shape, fy, 0.0, 1.0)
         return [BareFlexure(float(size[d, p]), float(x[p]), float(x[0]), float(x[-1]), strength)
                 for d, p in enumerate(np.argmax(size, axis=1))]
-    if np.any(braces.points < x[0]) or np.any(braces.points > x[-1]):
-        raise ValueError(f"brace points must lie within {x[0]:g} to {x[-1]:g} in, got {braces.points.tolist()}")
-    points = np.unique(np.concatenate(([x[0]], braces.points, [x[-1]])))
-    start, end = points[:-1], points[1:]
-    where = np.concatenate((start[:, None] + (end - start)[:, None] * np.array([0.25, 0.5, 0.75]),
-                            start[:, None], end[:, None]), axis=1)
-    at_points = np.abs(np.array([np.interp(where, x, m) for m in moments]))  # quarter points, ends
+    segments = unbraced_segments(x, moments, braces.points)
+    start, end, m_max, cb = segments.start, segments.end, segments.m_max, segments.cb
     inside = (x >= start[:, None]) & (x <= end[:, None])
-    m_max = np.maximum(np.where(inside, size[:, None, :], 0.0).max(axis=-1),
-                       np.maximum(at_points[..., 3], at_points[..., 4]))
-    cb = cb_from_moments(m_max, at_points[..., 0], at_points[..., 1], at_points[..., 2])
-    at = np.where(inside, size[:, None, :], -1.0).argmax(axis=-1)
+    at = np.where(inside, size[:, None, :], -1.0).argmax(axis=-1)  # station of the largest |M| in each
     for i in np.flatnonzero(~inside.any(axis=1)):  # segment shorter than the station spacing
         at[:, i] = int(np.argmin(np.abs(x - 0.5 * (start[i] + end[i]))))
     found = []
     for d in range(size.shape[0]):
         each = [BareFlexure(float(m_max[d, i]), float(x[at[d, i]]), float(start[i]), float(end[i]),
-                            flexure_strength(shape, fy, float(end[i] - start[i]), max(float(cb[d, i]), 1.0)))
+                            flexure_strength(shape, fy, float(segments.lb[i]), max(float(cb[d, i]), 1.0)))
                 for i in range(start.size)]
         found.append(max(each, key=lambda f: f.ratio(method)))
     return found

@@ -13,27 +13,12 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from engine.codes.aisc303_16 import camber_tolerance
+from engine.codes.aisc360_22.i3_composite import STUD_COVER_MIN
 from engine.model.inputs import BeamInput, CamberRules
 from engine.construction.pours import KIP_PER_IN3_PER_PCF, PourPlan
 from engine.construction.staging import StagedRun
 from engine.model.units import format_ft_in, format_inches
-
-COSP_BASE_TOLERANCE = 0.5  # in, members up to 50 ft (AISC 303 Section 6.4.4(a))
-COSP_BASE_LENGTH = 600.0  # in, 50 ft
-COSP_STEP_LENGTH = 120.0  # in, each 10 ft or fraction beyond 50 ft ...
-COSP_STEP_TOLERANCE = 0.125  # ... adds 1/8 in (AISC 303 Section 6.4.4(b))
-MIN_STUD_COVER = 0.5  # in, AISC 360-22 I3.2c.1(c)
-
-
-def camber_tolerance(length: float) -> float:
-    """Over-camber tolerance (in) for a member of `length` (in); under-camber tolerance is zero.
-    AISC 303 Code of Standard Practice Section 6.4.4 (as quoted in AISC Engineering FAQ 3.2.2):
-    -0/+1/2 in up to 50 ft, plus 1/8 in for each 10 ft or fraction thereof beyond 50 ft."""
-    if not (math.isfinite(length) and length > 0.0):
-        raise ValueError(f"member length {length} in must be > 0")
-    excess = length - COSP_BASE_LENGTH
-    steps = math.ceil(excess / COSP_STEP_LENGTH - 1e-9) if excess > 1e-9 else 0
-    return COSP_BASE_TOLERANCE + COSP_STEP_TOLERANCE * steps
 
 
 def round_down(value: float, increment: float) -> float:
@@ -159,7 +144,7 @@ def camber_outcome(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: 
     warnings = []
     if cover < 0.0:
         warnings.append(f"stud heads stand {format_inches(-cover)} proud of the slab at midspan")
-    elif cover < MIN_STUD_COVER - 1e-9:
+    elif cover < STUD_COVER_MIN - 1e-9:
         warnings.append(f"stud cover {format_inches(cover)} at midspan is under the 1/2\" minimum "
                         "(AISC 360-22 I3.2c.1(c))")
     return CamberOutcome(case, camber, final, top, thickness, cover, extra, tuple(warnings))

@@ -9,11 +9,12 @@ engine.construction.bare_steel (F2 with the stated bracing), engine.construction
 from __future__ import annotations
 
 from dataclasses import dataclass
-from types import MappingProxyType
 
 import numpy as np
 
+from engine.codes import asce7_22
 from engine.codes.aisc360_22.i1_materials import E_STEEL
+from engine.codes.aisc360_22.i3_composite import COMPOSITE_FC_SHARE
 from engine.codes.aisc360_22.g_shear import ShearStrength, web_shear_strength
 from engine.construction.bare_steel import BareFlexure, Bracing, bracing, governing_segments
 from engine.construction.camber import CamberDecision, CamberOutcome, decide_camber, may_camber, outcome_envelope
@@ -22,20 +23,13 @@ from engine.model.deck import psf_to_kip_per_in
 from engine.model.inputs import BeamInput
 from engine.mechanics.ponding import first_mode_ratio
 from engine.construction.pours import (
-    KIP_PER_IN3_PER_PCF, STRENGTH_FRACTION, PourPlan, bare_sections, cured_sections, earlier_strength_ratio,
+    KIP_PER_IN3_PER_PCF, PourPlan, bare_sections, cured_sections, earlier_strength_ratio,
     first_difference, pour_plan, side_widths,
 )
 from engine.construction.staging import StagedRun, blend, constant_thickness_total, run_stages_at, step_effects
 from engine.mechanics.statics import PondingInstabilityError
 from engine.model.units import format_ft_in, format_inches
 
-CONSTRUCTION_LOAD_PSF = MappingProxyType({"very-light": 20.0, "light": 25.0, "medium": 50.0, "heavy": 75.0})
-"""Uniform construction live load by operational class, psf: ASCE/SEI 37-14 Table 4-1. The light
-class (25 psf: concrete placed by hose, finished by hand) is confirmed by AISC Design Examples
-v16.0; very light 20, medium 50 and heavy 75 psf are from memory: verify against the standard."""
-
-LRFD_CONSTRUCTION = ((1.4, 0.0), (1.2, 1.6))  # (dead, construction live): ASCE/SEI 7-22 2.3.1; DE16 Ex. I.2
-ASD_CONSTRUCTION = ((1.0, 1.0),)  # ASCE/SEI 7-22 2.4.1 combination 2, as DE16 Chapter I
 PSF_PER_KIP_PER_IN2 = 144_000.0
 
 
@@ -47,7 +41,7 @@ def combinations(beam: BeamInput, method: str) -> tuple[tuple[float, float], ...
     Commentary leaves them to the project, with ASCE/SEI 37 as a guide)."""
     if beam.construction.combinations and method == beam.method:
         return beam.construction.combinations
-    return LRFD_CONSTRUCTION if method == "LRFD" else ASD_CONSTRUCTION
+    return asce7_22.combinations(method)
 
 
 @dataclass(frozen=True, slots=True)
@@ -271,7 +265,7 @@ def _flags(beam: BeamInput, plan: PourPlan, braces: Bracing, cured: bool, outcom
            summaries: tuple[StageSummary, ...]) -> list[Flag]:
     flags = [Flag("AISC 360-22 F1, I3.1b", braces.note, severity="info")]
     for st in summaries:
-        if st.earlier_fc_ratio is not None and st.earlier_fc_ratio >= STRENGTH_FRACTION:
+        if st.earlier_fc_ratio is not None and st.earlier_fc_ratio >= COMPOSITE_FC_SHARE:
             flags.append(Flag("AISC 360-22 I3.1b", f"stage '{st.name}': earlier concrete has reached "
                               f"{st.earlier_fc_ratio:.0%} of f'c (ACI 209R-92); composite strength could be "
                               "counted there, the bare steel is checked (conservative)", severity="info"))

@@ -14,15 +14,15 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from engine.codes.aci209r_92 import fc_at_age
 from engine.codes.aisc360_22.i3_composite import effective_width, transformed_inertia
-from engine.codes.aisc360_22.i1_materials import E_STEEL, ec, fc_at_age
+from engine.codes.aisc360_22.i1_materials import E_STEEL, ec, modular_ratio
+from engine.codes.practice import CURED_AFTER_DAYS
 from engine.model.deck import plf_to_kip_per_in, psf_to_kip_per_in
 from engine.model.inputs import POUR_SIDES, SCREED_MODES, BeamInput, PourStage
 from engine.mechanics.statics import Load, PointLoad, UniformLoad, stations
 from engine.model.units import format_ft_in
 
-STRENGTH_FRACTION = 0.75  # AISC 360-22 I3.1b: composite strength only once concrete reaches 0.75 f'c
-CURED_AFTER_DAYS = 1.0  # concrete younger than this is taken as wet (no stiffness): assumption of this tool
 KIP_PER_IN3_PER_PCF = 1.0 / 1_728_000.0  # 1 pcf = 1 lb/ft^3 = 1/(1000 * 1728) kip/in^3
 DEFAULT_STAGE = "whole slab"
 
@@ -222,7 +222,7 @@ def cured_sections(beam: BeamInput, plan: PourPlan) -> Sections | None:
             age = step.day - earlier.day
             if earlier.kind != "pour" or age < CURED_AFTER_DAYS:
                 continue
-            n = E_STEEL / float(ec(slab.concrete_pcf, fc_at_age(slab.fc_ksi, age)))
+            n = float(modular_ratio(ec(slab.concrete_pcf, fc_at_age(slab.fc_ksi, age))))
             width += (earlier.placed[0] * float(b_side[0]) + earlier.placed[1] * float(b_side[1])) / n
         has = width > 0.0
         if not has.any():

@@ -12,8 +12,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from engine.codes.aisc360_22.i3_composite import DECK_ANCHOR_SPACING_MAX
 from engine.model.results import Check, Flag
-from engine.studs.detailing import DECK_ANCHOR_SPACING_MAX
 from engine.finished.evaluate import BeamResult, governing_check
 from engine.studs.evaluate import evaluate_studs
 from engine.studs.layout import StudLayout

@@ -17,7 +17,8 @@ from itertools import combinations_with_replacement
 
 import numpy as np
 
-from engine.studs.detailing import DECK_ANCHOR_SPACING_MAX, spacing_checks, spacing_limits
+from engine.codes.aisc360_22.i3_composite import DECK_ANCHOR_SPACING_MAX
+from engine.studs.detailing import spacing_checks, spacing_limits
 from engine.studs.evaluate import evaluate_studs
 from engine.field.as_built import AsBuiltResult, RibState, assess, slot_strength, state_layout
 from engine.model.inputs import BeamInput, Finding

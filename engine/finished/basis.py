@@ -11,14 +11,14 @@ from functools import lru_cache
 import numpy as np
 
 from engine.codes.aisc360_22.g_shear import ShearStrength, web_shear_strength
-from engine.codes.aisc360_22.i1_materials import E_STEEL, ec
-from engine.codes.aisc360_22.i3_composite import effective_width, plastic_moment, transformed_inertia
-from engine.finished.loads import FinishedLoads, combinations, finished_loads, load_factors
+from engine.codes.aisc360_22.f_flexure import OMEGA_B, PHI_B
+from engine.codes.aisc360_22.i1_materials import ec, modular_ratio
+from engine.codes.aisc360_22.i3_composite import b_eff as total_effective_width
+from engine.codes.aisc360_22.i3_composite import cf_force, plastic_moment, stress_block_force, transformed_inertia
+from engine.codes.asce7_22 import combinations
+from engine.finished.loads import FinishedLoads, finished_loads, load_factors
 from engine.mechanics.statics import factored_max_abs_shear, factored_moment, stations
 from engine.model.inputs import BeamInput, Method
-
-PHI_B, OMEGA_B = 0.90, 1.67  # AISC 360-22 I3.2a
-
 
 @dataclass(frozen=True, slots=True)
 class Demand:
@@ -93,11 +93,10 @@ def slab_limits(beam: BeamInput) -> SlabLimits:
     force is limited to the topping (conservative; AISC 360-22 I3.2a).
     """
     slab = beam.slab
-    b_left, b_right = effective_width(beam.span, beam.slab_left, beam.slab_right)
-    b_eff = float(b_left + b_right)
+    b_eff = float(total_effective_width(beam.span, beam.slab_left, beam.slab_right))
     ac = slab.strength_concrete_area(b_eff, beam.orientation)
-    cf = min(beam.shape.area * beam.fy, 0.85 * slab.fc_ksi * ac)
-    return SlabLimits(b_eff, ac, cf, min(cf, 0.85 * slab.fc_ksi * b_eff * slab.topping))
+    cf = float(cf_force(beam.shape.area * beam.fy, slab.fc_ksi, ac))
+    return SlabLimits(b_eff, ac, cf, min(cf, float(stress_block_force(slab.fc_ksi, b_eff, slab.topping))))
 
 
 def composite_strength(beam: BeamInput, limits: SlabLimits, c: np.ndarray):
@@ -162,6 +161,6 @@ def finished_basis(beam: BeamInput) -> FinishedBasis:
         arr.flags.writeable = False
     lim = slab_limits(beam)
     e_c = float(ec(slab.concrete_pcf, slab.fc_ksi))
-    n = E_STEEL / e_c
+    n = float(modular_ratio(e_c))
     i_tr, _ = transformed_inertia(beam.shape, lim.b_eff, n, slab.topping, slab.total_thickness)
     return FinishedBasis(x, loads, dem, service, lim, e_c, n, float(i_tr), web_shear_strength(beam.shape, beam.fy))

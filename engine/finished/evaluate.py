@@ -13,16 +13,14 @@ from dataclasses import dataclass
 import numpy as np
 
 from engine.codes.aisc360_22.i1_materials import E_STEEL
-from engine.codes.aisc360_22.i3_composite import equivalent_inertia, lower_bound_inertia, pna_label
+from engine.codes.aisc360_22.i3_composite import equivalent_inertia, lower_bound_inertia, pna_label, slip_capacity_exempt
+from engine.codes.practice import MIN_COMPOSITE
 from engine.finished.basis import FinishedBasis, available_strength, composite_strength, finished_basis
 from engine.finished.slab_force import StudGroups, slab_force
 from engine.mechanics.statics import deflection_rows
 from engine.model.inputs import BeamInput, Method
 from engine.model.results import Check, Flag
 from engine.model.scope import check_scope
-
-MIN_COMPOSITE = 0.25  # Commentary I3.2a/I3.2d lower limit of the I_equiv fit (common practice minimum)
-
 
 @dataclass(frozen=True, slots=True)
 class BeamResult:
@@ -133,7 +131,7 @@ def evaluate_finished(beam: BeamInput, groups: StudGroups, detailing: tuple[Chec
     i_equiv = float(equivalent_inertia(shape.ix, i_tr, sum_qn_eff, cf)) if sum_qn_eff > 0 else shape.ix
 
     shear = basis.shear
-    phi_vn, vn_omega = shear.phi * shear.vn, shear.vn / shear.omega
+    phi_vn, vn_omega = shear.phi_vn, shear.vn_omega
 
     live_defl, after_cure_defl = _service_deflections(basis, E_STEEL * i_lb)
 
@@ -180,7 +178,7 @@ def _ductility_flags(beam: BeamInput, composite_ratio: float, groups: StudGroups
     """AISC 360-22 I3.2d slip capacity: flagged unless a Commentary exemption applies
     (span <= 30 ft, >= 50% composite, or average stud strength >= 16 kip/ft)."""
     per_ft = float(groups.strength.sum()) / (beam.span / 12.0)
-    if beam.span <= 360.0 or composite_ratio >= 0.5 or per_ft >= 16.0:
+    if slip_capacity_exempt(beam.span, composite_ratio, per_ft):
         return []
     return [Flag("AISC 360-22 I3.2d, Commentary", "slip capacity not checked: span over 30 ft, composite under "
                  f"50% and {per_ft:.1f} kip/ft of studs (< 16): the engineer of record must consider connector "

@@ -1,7 +1,7 @@
-"""Finished-stage loads on a simply supported beam and their combinations.
+"""Finished-stage loads on a simply supported beam and their factors in the combinations.
 
 Combinations per ASCE/SEI 7-22 Section 2.3.1 (LRFD: 1.4D; 1.2D + 1.6L) and 2.4.1 (ASD: D + L),
-as used with AISC 360-22 B3.1 / B3.2.
+as used with AISC 360-22 B3.1 / B3.2 (engine.codes.asce7_22).
 """
 
 from __future__ import annotations
@@ -11,9 +11,6 @@ from dataclasses import dataclass
 from engine.model.deck import plf_to_kip_per_in, psf_to_kip_per_in
 from engine.model.inputs import BeamInput
 from engine.mechanics.statics import Load, PointLoad, UniformLoad
-
-LRFD_COMBINATIONS = ((1.4, 0.0), (1.2, 1.6))  # (dead, live) factors, ASCE/SEI 7-22 2.3.1 combos 1-2
-ASD_COMBINATIONS = ((1.0, 1.0),)  # ASCE/SEI 7-22 2.4.1 combo 2
 
 
 @dataclass(frozen=True, slots=True)
@@ -45,11 +42,6 @@ def finished_loads(beam: BeamInput) -> FinishedLoads:
         post.append(PointLoad(p.dead - p.precomposite_dead, p.x))
         live.append(PointLoad(p.live, p.x))
     return FinishedLoads(_nonzero(pre), _nonzero(post), _nonzero(live))
-
-
-def combinations(method: str) -> tuple[tuple[float, float], ...]:
-    """(dead, live) factor pairs for the design method."""
-    return LRFD_COMBINATIONS if method == "LRFD" else ASD_COMBINATIONS
 
 
 def load_factors(loads: FinishedLoads, pairs: tuple[tuple[float, float], ...]) -> list[list[float]]:

@@ -9,6 +9,7 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 from enum import StrEnum
 
+from engine.codes import practice
 from engine.model.deck import Slab
 from engine.model.shapes import WShape
 
@@ -75,13 +76,14 @@ class PourStage:
 
 @dataclass(frozen=True, slots=True)
 class CamberRules:
-    """Camber decision settings (common practice defaults; "Specifying Camber", Modern Steel Construction, July 2006)."""
+    """Camber decision settings (common practice defaults: engine.codes.practice; "Specifying Camber",
+    Modern Steel Construction, July 2006)."""
 
-    fraction: float = 0.80
-    increment: float = 0.25
-    minimum: float = 0.75
-    min_length: float = 24.0 * 12.0
-    min_depth: float = 14.0
+    fraction: float = practice.CAMBER_FRACTION
+    increment: float = practice.CAMBER_INCREMENT
+    minimum: float = practice.CAMBER_MINIMUM
+    min_length: float = practice.CAMBER_MIN_LENGTH
+    min_depth: float = practice.CAMBER_MIN_DEPTH
     do_not_camber: str | None = None  # reason, e.g. "moment-connected", "spandrel", "cantilevered"
 
 
@@ -89,14 +91,14 @@ class CamberRules:
 class ConstructionSpec:
     """How the slab is placed on this beam and how the bare steel is braced meanwhile."""
 
-    live_psf: float = 25.0
+    live_psf: float = practice.CONSTRUCTION_LIVE_PSF
     screed: str = "constant-thickness"
     unbraced_length: float | None = None  # None: braced by fastened perpendicular deck, else at point loads
     pours: tuple[PourStage, ...] = ()
     camber: CamberRules = field(default_factory=CamberRules)
     combinations: tuple[tuple[float, float], ...] = ()  # (dead, live) factors; () = defaults of the method
-    dead_limit_ratio: float = 360.0  # span / ratio ...
-    dead_limit_max: float | None = 1.0  # ... and not over 1 in (AISC Design Guide 3, via DE16 I.1)
+    dead_limit_ratio: float = practice.WET_DEFLECTION_RATIO  # span / ratio ...
+    dead_limit_max: float | None = practice.WET_DEFLECTION_MAX  # ... and not over 1 in (AISC Design Guide 3, via DE16 I.1)
     live_limit_ratio: float | None = None  # construction live-load deflection limit; None: not checked
 
 
@@ -126,10 +128,10 @@ class Finding:
 
 @dataclass(frozen=True, slots=True)
 class Limits:
-    """Serviceability limits as span / ratio (common practice defaults)."""
+    """Serviceability limits as span / ratio (common practice defaults: engine.codes.practice)."""
 
-    live_ratio: float = 360.0
-    total_ratio: float = 240.0
+    live_ratio: float = practice.LIVE_DEFLECTION_RATIO
+    total_ratio: float = practice.TOTAL_DEFLECTION_RATIO
 
 
 @dataclass(frozen=True, slots=True)

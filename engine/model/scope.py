@@ -4,6 +4,7 @@ refuses to compute (AISC 360-22 I1.3, I3.2b, I3.2c.1, I3.2a)."""
 from __future__ import annotations
 
 from engine.codes.aisc360_22.i1_materials import fc_strength_range
+from engine.codes.aisc360_22.i3_composite import DECK_RIB_HEIGHT_MAX, DECK_STUD_DIAMETER_MAX
 from engine.model.errors import FieldcompError
 from engine.model.inputs import BeamInput
 
@@ -37,10 +38,10 @@ def check_scope(beam: BeamInput) -> None:
         raise OutOfScopeError("fc_ksi", f"f'c = {beam.slab.fc_ksi:g} ksi is outside {lo:g}-{hi:g} ksi for "
                          f"{kind} concrete (AISC 360-22 I1.3); not computed")
     deck = beam.slab.deck
-    if deck is not None and deck.rib_height > 3.0:
+    if deck is not None and deck.rib_height > DECK_RIB_HEIGHT_MAX:
         raise OutOfScopeError("rib_height", f"rib height {deck.rib_height:g} in exceeds 3 in "
                          "(AISC 360-22 I3.2c.1(a)); not computed")
-    if deck is not None and beam.studs.diameter > 0.75:
+    if deck is not None and beam.studs.diameter > DECK_STUD_DIAMETER_MAX:
         raise OutOfScopeError("diameter", f"stud diameter {beam.studs.diameter:g} in exceeds 3/4 in through deck "
                          "(AISC 360-22 I8.1 / I3.2c.1(c)); not computed")
     if beam.support != "simple":

@@ -4,11 +4,28 @@ from __future__ import annotations
 
 import numpy as np
 
+from engine.codes.aisc360_22.i3_composite import (
+    DECK_ANCHOR_SPACING_MAX,
+    DECK_RIB_HEIGHT_MAX,
+    DECK_RIB_WIDTH_MIN,
+    DECK_STUD_DIAMETER_MAX,
+    DECK_TOPPING_MIN,
+    PARALLEL_RIB_HEIGHT_MIN,
+    STUD_COVER_MIN,
+    STUD_PROJECTION_MIN,
+    parallel_rib_studs_across,
+)
+from engine.codes.aisc360_22.i8_anchors import (
+    stud_diameter_max_off_web,
+    stud_length_min,
+    stud_spacing_max,
+    stud_spacing_min,
+    stud_spacing_transverse,
+)
 from engine.model.results import Check, Flag
 from engine.model.inputs import BeamInput, DeckCase
 from engine.finished.slab_force import StudGroups
 
-DECK_ANCHOR_SPACING_MAX = 18.0  # in, AISC 360-22 I3.2c.1
 DECK_ANCHOR_CLAUSE = "AISC 360-22 I3.2c.1"  # deck anchored to every support at 18 in max
 
 
@@ -18,17 +35,21 @@ def deck_checks(beam: BeamInput) -> list[Check]:
     checks: list[Check] = []
     if deck is not None:
         checks += [
-            Check("deck.rib_height", "rib height", "AISC 360-22 I3.2c.1(a)", deck.rib_height, 3.0, "in", kind="detailing"),
-            Check("deck.rib_width", "average rib width (min 2 in)", "AISC 360-22 I3.2c.1(b)", 2.0, deck.rib_average_width, "in", kind="detailing"),
-            Check("deck.stud_diameter", "stud diameter through deck", "AISC 360-22 I3.2c.1(c)", spec.diameter, 0.75, "in", kind="detailing"),
+            Check("deck.rib_height", "rib height", "AISC 360-22 I3.2c.1(a)", deck.rib_height, DECK_RIB_HEIGHT_MAX, "in", kind="detailing"),
+            Check("deck.rib_width", "average rib width (min 2 in)", "AISC 360-22 I3.2c.1(b)", DECK_RIB_WIDTH_MIN, deck.rib_average_width,
+                  "in", kind="detailing"),
+            Check("deck.stud_diameter", "stud diameter through deck", "AISC 360-22 I3.2c.1(c)", spec.diameter, DECK_STUD_DIAMETER_MAX, "in",
+                  kind="detailing"),
             Check("deck.stud_projection", "stud projection above deck (min 1 1/2 in)", "AISC 360-22 I3.2c.1(c)",
-                  1.5, spec.length - deck.rib_height, "in", kind="detailing"),
-            Check("deck.topping", "slab thickness above deck (min 2 in)", "AISC 360-22 I3.2c.1(d)", 2.0, slab.topping, "in", kind="detailing"),
+                  STUD_PROJECTION_MIN, spec.length - deck.rib_height, "in", kind="detailing"),
+            Check("deck.topping", "slab thickness above deck (min 2 in)", "AISC 360-22 I3.2c.1(d)", DECK_TOPPING_MIN, slab.topping, "in",
+                  kind="detailing"),
         ]
     checks += [
         Check("studs.cover", "concrete cover over stud head (min 1/2 in)", "AISC 360-22 I3.2c.1(c)",
-              0.5, slab.total_thickness - spec.length, "in", kind="detailing"),
-        Check("studs.length", "stud length (min 4 d)", "AISC 360-22 I8.2", 4.0 * spec.diameter, spec.length, "in", kind="detailing"),
+              STUD_COVER_MIN, slab.total_thickness - spec.length, "in", kind="detailing"),
+        Check("studs.length", "stud length (min 4 d)", "AISC 360-22 I8.2", stud_length_min(spec.diameter), spec.length, "in",
+              kind="detailing"),
     ]
     return checks
 
@@ -40,18 +61,18 @@ def studs_across(beam: BeamInput) -> int:
     d = beam.studs.diameter
     deck = beam.slab.deck
     width = beam.shape.bf
-    fit = int(np.floor((width - d) / (4.0 * d) + 1e-9)) + 1
+    fit = int(np.floor((width - d) / stud_spacing_transverse(d) + 1e-9)) + 1
     if deck is not None and beam.orientation == "parallel":
-        fit = min(fit, int(np.floor((deck.rib_bottom_width - d) / (4.0 * d) + 1e-9)) + 1)
-        if deck.rib_height >= 1.5:
-            fit = min(fit, int(np.floor((deck.rib_average_width - 2.0) / (4.0 * d) + 1e-9)) + 1)
+        fit = min(fit, int(np.floor((deck.rib_bottom_width - d) / stud_spacing_transverse(d) + 1e-9)) + 1)
+        if deck.rib_height >= PARALLEL_RIB_HEIGHT_MIN:
+            fit = min(fit, parallel_rib_studs_across(deck.rib_average_width, d))
     return max(0, min(fit, beam.studs.max_per_rib))
 
 
 def off_web_allowed(beam: BeamInput) -> bool:
     """Whether studs may stand off the web: d <= 2.5 t_f (AISC 360-22 I8.1). A single stud per
     slot stands over the web."""
-    return beam.studs.diameter <= 2.5 * beam.shape.tf + 1e-9
+    return beam.studs.diameter <= stud_diameter_max_off_web(beam.shape.tf) + 1e-9
 
 
 def studs_per_slot(beam: BeamInput) -> int:
@@ -69,7 +90,7 @@ def spacing_limits(beam: BeamInput) -> tuple[float, float]:
     """
     d = beam.studs.diameter
     perpendicular = beam.slab.deck is not None and beam.orientation == "perpendicular"
-    return (4.0 * d if perpendicular else 6.0 * d), min(8.0 * beam.slab.total_thickness, 36.0)
+    return stud_spacing_min(d, perpendicular), stud_spacing_max(beam.slab.total_thickness)
 
 
 def spacing_checks(beam: BeamInput, groups: StudGroups) -> tuple[list[Check], list[Flag]]:
@@ -97,7 +118,7 @@ def spacing_checks(beam: BeamInput, groups: StudGroups) -> tuple[list[Check], li
                         most, studs_across(beam), "studs", kind="detailing"))
     if most >= 2:
         checks.append(Check("studs.diameter_off_web", "stud diameter off the web (max 2.5 tf)", "AISC 360-22 I8.1",
-                            d, 2.5 * beam.shape.tf, "in", kind="detailing"))
+                            d, stud_diameter_max_off_web(beam.shape.tf), "in", kind="detailing"))
     if perpendicular:
         longest = float(max(gaps.max() if gaps.size else 0.0, ends.max()))
         if longest > DECK_ANCHOR_SPACING_MAX + 1e-9:

@@ -8,8 +8,10 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from engine.codes.aisc360_22.i3_composite import DECK_ANCHOR_SPACING_MAX
+from engine.codes.aisc360_22.i8_anchors import stud_spacing_min
 from engine.model.results import Check, Flag
-from engine.studs.detailing import DECK_ANCHOR_SPACING_MAX, spacing_limits, studs_per_slot
+from engine.studs.detailing import spacing_limits, studs_per_slot
 from engine.model.inputs import BeamInput, DeckCase
 from engine.studs.ribs import in_keep_out, rib_stations
 from engine.finished.slab_force import StudGroups, stud_qn
@@ -92,7 +94,7 @@ class LayoutResult:
 def flute_pitch(beam: BeamInput) -> float:
     """Spacing of stud slots along a parallel flute or a solid slab: the least longitudinal
     spacing, 6 d (AISC 360-22 I8.2d), rounded up to 1/2 in so stations stay easy to tape."""
-    return math.ceil(6.0 * beam.studs.diameter * 2.0 - 1e-9) / 2.0
+    return math.ceil(stud_spacing_min(beam.studs.diameter, in_perpendicular_ribs=False) * 2.0 - 1e-9) / 2.0
 
 
 def slots_for(beam: BeamInput) -> tuple[np.ndarray, np.ndarray]:

@@ -22,9 +22,9 @@ from functools import lru_cache
 import numpy as np
 
 from engine.codes.aisc360_22.i3_composite import plastic_moment
+from engine.codes.practice import MIN_COMPOSITE
 from engine.studs.detailing import spacing_limits
 from engine.finished.basis import available_strength, composite_strength, finished_basis, method_strength, moment_envelope
-from engine.finished.evaluate import MIN_COMPOSITE
 from engine.model.inputs import BeamInput, Method
 
 _TOL = 1e-9

@@ -3,10 +3,12 @@ them) and are parsed by `engine.model.units.parse_length` when converted to engi
 
 from __future__ import annotations
 
+from fractions import Fraction
 from typing import Annotated, Literal
 
 from pydantic import AfterValidator, BaseModel, ConfigDict, Field, model_validator
 
+from engine.codes import practice
 from engine.model.units import UnitError, parse_length
 
 
@@ -16,6 +18,12 @@ def _length(text: str) -> str:
     except UnitError as exc:
         raise ValueError(str(exc)) from None
     return text
+
+
+def _written(inches: float, unit: str = "in") -> str:
+    """A default length (in) of engine.codes.practice as people write it: 0.25 -> "1/4 in",
+    288 with unit "ft" -> "24 ft"."""
+    return f"{Fraction(inches / 12.0 if unit == 'ft' else inches)} {unit}"
 
 
 Length = Annotated[
@@ -31,11 +39,11 @@ class Strict(BaseModel):
 
 
 class CamberSettings(Strict):
-    fraction: float = Field(0.80, gt=0.0, le=1.0, description="Share of the pre-composite dead-load deflection to camber out (common practice 0.80).")
-    increment: Length = Field("1/4 in", description="Camber is rounded down to this increment.")
-    minimum: Length = Field("3/4 in", description="No camber below this (common practice).")
-    min_length: Length = Field("24 ft", description="Beams shorter than this are not cambered.")
-    min_depth: Length = Field("14 in", description="Beams shallower than this are not cambered.")
+    fraction: float = Field(practice.CAMBER_FRACTION, gt=0.0, le=1.0, description="Share of the pre-composite dead-load deflection to camber out (common practice 0.80).")
+    increment: Length = Field(_written(practice.CAMBER_INCREMENT), description="Camber is rounded down to this increment.")
+    minimum: Length = Field(_written(practice.CAMBER_MINIMUM), description="No camber below this (common practice).")
+    min_length: Length = Field(_written(practice.CAMBER_MIN_LENGTH, "ft"), description="Beams shorter than this are not cambered.")
+    min_depth: Length = Field(_written(practice.CAMBER_MIN_DEPTH), description="Beams shallower than this are not cambered.")
 
 
 class Project(Strict):
@@ -66,8 +74,8 @@ class Slab(Strict):
 
 
 class Studs(Strict):
-    diameter: Length = Field("3/4 in", description="Stud shank diameter d_sa.")
-    fu_ksi: float = Field(65.0, gt=0.0, le=100.0, description="Stud tensile strength F_u, ksi.")
+    diameter: Length = Field(_written(practice.STUD_DIAMETER), description="Stud shank diameter d_sa.")
+    fu_ksi: float = Field(practice.STUD_FU_KSI, gt=0.0, le=100.0, description="Stud tensile strength F_u, ksi.")
     length: Length = Field(description="Installed stud length (after welding).")
     position: Literal["strong", "weak", "center"] = Field("weak", description="Stud position in the rib (AISC 360-22 I8.2a).")
     count: int | Literal["design"] = Field(description="Studs on the whole beam as on the drawings, or \"design\" to find the count.")
@@ -106,8 +114,8 @@ class CombinationIn(Strict):
 
 
 class ConstructionLimitsIn(Strict):
-    dead_ratio: float = Field(360.0, ge=60.0, le=2000.0, description="Pre-composite dead-load deflection less camber: limit span / ratio (AISC Design Guide 3 via AISC Design Examples v16.0 Chapter I: 360).")
-    dead_max: Length | None = Field("1 in", description="... and not over this length (Design Guide 3: 1 in); leave out for no cap.")
+    dead_ratio: float = Field(practice.WET_DEFLECTION_RATIO, ge=60.0, le=2000.0, description="Pre-composite dead-load deflection less camber: limit span / ratio (AISC Design Guide 3 via AISC Design Examples v16.0 Chapter I: 360).")
+    dead_max: Length | None = Field(_written(practice.WET_DEFLECTION_MAX), description="... and not over this length (Design Guide 3: 1 in); leave out for no cap.")
     live_ratio: float | None = Field(None, ge=60.0, le=2000.0, description="Construction live-load deflection limit, span / ratio; leave out: not checked.")
 
 
@@ -141,10 +149,10 @@ class Beam(Strict):
     load_width: Length | None = Field(None, description="Tributary width for area loads (default from spacings; 0 in for a girder loaded by beams).")
     slab: str = Field(description="Slab id.")
     deck_orientation: Literal["perpendicular", "parallel"] = Field("perpendicular", description="Deck ribs relative to the beam.")
-    fy_ksi: float = Field(50.0, gt=0.0, le=100.0, description="Steel yield stress F_y, ksi.")
+    fy_ksi: float = Field(practice.FY_KSI, gt=0.0, le=100.0, description="Steel yield stress F_y, ksi.")
     superimposed_dead_psf: float = Field(0.0, ge=0.0, le=1000.0, description="Dead load added after the slab cures, psf.")
     live_psf: float = Field(0.0, ge=0.0, le=1000.0, description="Live load, psf.")
-    construction_live_psf: float = Field(25.0, ge=0.0, le=200.0, description="Construction live load during placement, psf.")
+    construction_live_psf: float = Field(practice.CONSTRUCTION_LIVE_PSF, ge=0.0, le=200.0, description="Construction live load during placement, psf.")
     screed: Literal["constant-thickness", "level"] = Field("constant-thickness", description="How the slab is screeded.")
     unbraced_length: Length | None = Field(None, description="Unbraced length of the top flange while wet (default: braced continuously by fastened perpendicular deck, otherwise at the point loads).")
     construction_load: ConstructionLoadClass | None = Field(None, description="ASCE/SEI 37-14 Table 4-1 operational class; sets the construction live load (very-light 20, light 25, medium 50, heavy 75 psf). Give this or construction_live_psf, not both.")
@@ -160,8 +168,8 @@ class Beam(Strict):
     first_rib: Length | None = Field(None, description="Station of the first rib centreline (default half a pitch).")
     keep_out_start: Length = Field("0 in", description="No studs closer than this to the reference end.")
     keep_out_end: Length = Field("0 in", description="No studs closer than this to the far end.")
-    live_limit_ratio: float = Field(360.0, ge=100.0, le=2000.0, description="Live-load deflection limit, span / ratio.")
-    total_limit_ratio: float = Field(240.0, ge=100.0, le=2000.0, description="Total deflection limit, span / ratio.")
+    live_limit_ratio: float = Field(practice.LIVE_DEFLECTION_RATIO, ge=100.0, le=2000.0, description="Live-load deflection limit, span / ratio.")
+    total_limit_ratio: float = Field(practice.TOTAL_DEFLECTION_RATIO, ge=100.0, le=2000.0, description="Total deflection limit, span / ratio.")
     point_loads: list[PointLoadIn] = Field(default_factory=list, description="Concentrated loads.")
     studs: Studs = Field(description="Headed stud anchors.")
     pour: list[Pour] = Field(default_factory=list, description="Pour stages (default: the whole slab at once).")

@@ -4,7 +4,8 @@ from __future__ import annotations
 
 import os
 
-from engine.construction.evaluate import CONSTRUCTION_LOAD_PSF
+from engine.codes.aci318_19 import LIGHTWEIGHT_BELOW_PCF
+from engine.codes.asce37_14 import CONSTRUCTION_LOAD_PSF
 from engine.construction.pours import check_stages
 from engine.model.deck import DeckProfile, Slab
 from engine.model.inputs import (
@@ -15,8 +16,6 @@ from engine.model.units import parse_length
 from engine.model.errors import FieldcompError
 from fieldcomp.jobs.jobfile import JobFileError
 from fieldcomp.jobs.model import Beam, Job
-
-LIGHTWEIGHT_BELOW_PCF = 135.0  # ACI 318-19 2.3: lightweight concrete 90-135 pcf equilibrium density
 
 
 def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInput]:

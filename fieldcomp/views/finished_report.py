@@ -4,6 +4,7 @@ from __future__ import annotations
 
 from typing import Any
 
+from engine.codes.aisc360_22.f_flexure import OMEGA_B, PHI_B
 from engine.model.results import Check
 from engine.finished.evaluate import BeamResult
 from engine.model.units import format_ft_in, format_inches
@@ -30,8 +31,8 @@ def beam_json(r: BeamResult) -> dict[str, Any]:
         "sum_qn_kips": {"left": _num(r.sum_qn_left), "right": _num(r.sum_qn_right)},
         "composite_ratio": _num(r.composite_ratio),
         "pna": r.pna,
-        "phi_mn_kipft": _num(0.90 * r.mn[k] / 12.0, 1),
-        "mn_omega_kipft": _num(r.mn[k] / 1.67 / 12.0, 1),
+        "phi_mn_kipft": _num(PHI_B * r.mn[k] / 12.0, 1),
+        "mn_omega_kipft": _num(r.mn[k] / OMEGA_B / 12.0, 1),
         "mu_kipft": _num(r.mu[k] / 12.0, 1),
         "ma_kipft": _num(r.ma[k] / 12.0, 1),
         "vu_kips": _num(r.vu, 2),
@@ -89,8 +90,8 @@ def beam_text(r: BeamResult) -> str:
         f"sum Qn {r.sum_qn_left:.0f} / {r.sum_qn_right:.0f} kips left/right of max moment",
         f"  b_eff {format_ft_in(r.b_eff)}, composite {r.composite_ratio:.0%}, PNA in {r.pna}; "
         f"I_LB {r.i_lb:,.0f} in4, I_equiv {r.i_equiv:,.0f} in4",
-        f"  Mu {r.mu[k] / 12:,.0f} kip-ft, phi Mn {0.9 * r.mn[k] / 12:,.0f} kip-ft; "
-        f"Ma {r.ma[k] / 12:,.0f} kip-ft, Mn/Omega {r.mn[k] / 1.67 / 12:,.0f} kip-ft (at {format_ft_in(r.x[k])})",
+        f"  Mu {r.mu[k] / 12:,.0f} kip-ft, phi Mn {PHI_B * r.mn[k] / 12:,.0f} kip-ft; "
+        f"Ma {r.ma[k] / 12:,.0f} kip-ft, Mn/Omega {r.mn[k] / OMEGA_B / 12:,.0f} kip-ft (at {format_ft_in(r.x[k])})",
         "  checks (ratio = demand / capacity):",
     ]
     lines += [check_line(c) for c in sorted(r.checks, key=lambda c: -c.ratio)]

@@ -14,9 +14,10 @@ from functools import lru_cache
 
 import numpy as np
 
-E_STEEL = 29_000.0  # ksi, AISC 360-22 Symbols
-PHI_B = 0.90  # AISC 360-22 F1(a)
-OMEGA_B = 1.67  # AISC 360-22 F1(b)
+from engine.codes.aisc360_22.i1_materials import E_STEEL
+
+PHI_B = 0.90  # AISC 360-22 F1(a); the same phi_b for composite flexure, I3.2a
+OMEGA_B = 1.67  # AISC 360-22 F1(b); the same Omega_b for composite flexure, I3.2a
 
 YIELDING = "yielding"
 LTB = "lateral-torsional buckling"
@@ -49,7 +50,8 @@ class FlexureStrength:
 
 @dataclass(frozen=True, slots=True)
 class UnbracedSegments:
-    """Unbraced segments between consecutive brace points, one entry per segment."""
+    """Unbraced segments between consecutive brace points, one entry per segment (`cb` and
+    `m_max` one row per moment diagram when the diagrams were given as rows)."""
 
     start: np.ndarray
     end: np.ndarray
@@ -183,8 +185,9 @@ def cb_from_moments(m_max, m_a, m_b, m_c):
 def _check_diagram(x, moment) -> tuple[np.ndarray, np.ndarray]:
     x = np.asarray(x, dtype=float)
     moment = np.asarray(moment, dtype=float)
-    if x.ndim != 1 or x.shape != moment.shape or x.size < 2:
-        raise ValueError(f"x and moment must be 1-D of equal length >= 2, got {x.shape} and {moment.shape}")
+    if x.ndim != 1 or moment.ndim not in (1, 2) or moment.shape[-1] != x.size or x.size < 2:
+        raise ValueError(f"x must be 1-D of length >= 2 and moment one diagram or rows of diagrams along it, "
+                         f"got {x.shape} and {moment.shape}")
     if not (np.all(np.isfinite(x)) and np.all(np.isfinite(moment))):
         raise ValueError("x and moment must be finite")
     if np.any(np.diff(x) <= 0.0):
@@ -193,18 +196,29 @@ def _check_diagram(x, moment) -> tuple[np.ndarray, np.ndarray]:
 
 
 def _segment_moments(x, moment, start, end):
-    """Max |M| and |M| at the quarter points of segments [start, end] (arrays)."""
+    """Mmax and |M| at the quarter points (M_A, M_B, M_C) of segments [start, end] (arrays), for
+    one diagram `moment` (n,) or rows of diagrams (r, n) at stations x; each result is shaped
+    moment.shape[:-1] + start.shape.
+    AISC 360-22 Eq. F1-1 terms: quarter-point moments interpolated linearly (then |M|), Mmax the
+    largest |M| at the stations within the segment and at its ends."""
+    lead, rows = moment.shape[:-1], moment.reshape(-1, x.size)
+
+    def size_at(points: np.ndarray) -> np.ndarray:  # |M| of every diagram at `points`
+        return np.abs(np.array([np.interp(points, x, m) for m in rows])).reshape(lead + points.shape)
+
     quarters = start[..., None] + (end - start)[..., None] * np.array([0.25, 0.5, 0.75])
-    m_a, m_b, m_c = np.moveaxis(np.abs(np.interp(quarters, x, moment)), -1, 0)
+    m_a, m_b, m_c = np.moveaxis(size_at(quarters), -1, 0)
     inside = (x >= start[..., None]) & (x <= end[..., None])
-    m_stations = np.where(inside, np.abs(moment), 0.0).max(axis=-1)
-    m_ends = np.maximum(np.abs(np.interp(start, x, moment)), np.abs(np.interp(end, x, moment)))
+    size = np.abs(moment).reshape(lead + (1,) * start.ndim + (x.size,))
+    m_stations = np.where(inside, size, 0.0).max(axis=-1)
+    m_ends = np.maximum(size_at(start), size_at(end))
     m_max = np.maximum(m_stations, m_ends)
     return m_max, m_a, m_b, m_c
 
 
 def cb_for_segment(x, moment, start, end):
-    """Cb of the unbraced segment(s) [start, end] from a moment diagram sampled at stations x.
+    """Cb of the unbraced segment(s) [start, end] from a moment diagram sampled at stations x
+    (or rows of diagrams: one row of Cb each).
     AISC 360-22 Eq. F1-1; quarter-point moments interpolated linearly, Mmax over the segment."""
     x, moment = _check_diagram(x, moment)
     start, end = np.broadcast_arrays(np.asarray(start, dtype=float), np.asarray(end, dtype=float))
@@ -216,6 +230,7 @@ def cb_for_segment(x, moment, start, end):
 
 def unbraced_segments(x, moment, brace_points) -> UnbracedSegments:
     """Lb, Cb and Mmax of every segment between brace points; the beam ends x[0], x[-1] count as braced.
+    `moment` is one diagram at stations x or rows of diagrams (Cb and Mmax then per row).
     AISC 360-22 F1 (Lb, Eq. F1-1)."""
     x, moment = _check_diagram(x, moment)
     braces = np.asarray(brace_points, dtype=float).ravel()

@@ -9,7 +9,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-from engine.codes.aisc360_22.f_flexure import E_STEEL
+from engine.codes.aisc360_22.i1_materials import E_STEEL
 
 KV_UNSTIFFENED = 5.34  # AISC 360-22 G2.1(b)(2): webs without transverse stiffeners
 

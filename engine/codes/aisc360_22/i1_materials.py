@@ -1,6 +1,6 @@
-"""Concrete properties for composite design: E_c, modular ratio, strength gain with age.
+"""Material properties for composite design: E_s, E_c, modular ratio, f'c range.
 
-Units: ksi, pcf (unit weight only), days.
+Units: ksi, pcf (unit weight only). Strength gain with age: engine.codes.aci209r_92.
 """
 
 from __future__ import annotations
@@ -9,10 +9,6 @@ import numpy as np
 
 E_STEEL = 29000.0
 """Modulus of elasticity of steel, ksi (AISC 360-22 Section B2, E = 29,000 ksi)."""
-
-# ACI 209R-92 Eq. 2-1 constants for moist-cured concrete with Type I cement.
-_ACI209_A_DAYS = 4.0
-_ACI209_BETA = 0.85
 
 # AISC 360-22 I1.3: specified strength limits for strength calculations, ksi.
 _FC_RANGE_NORMAL = (3.0, 10.0)
@@ -40,17 +36,6 @@ def modular_ratio(ec, es=E_STEEL):
     if (e_c <= 0.0).any():
         raise ValueError(f"E_c {ec} ksi must be > 0")
     return es / e_c
-
-
-def fc_at_age(fc28, days):
-    """Compressive strength at age t days: f'c(t) = f'c * t / (4.0 + 0.85 t); t = 0 gives 0.
-
-    ACI 209R-92 Eq. 2-1 (moist-cured, Type I cement: a = 4.0 days, beta = 0.85).
-    """
-    t = np.asarray(days, dtype=float)
-    if (t < 0.0).any():
-        raise ValueError(f"age {days} days must be >= 0")
-    return np.asarray(fc28, dtype=float) * t / (_ACI209_A_DAYS + _ACI209_BETA * t)
 
 
 def fc_strength_range(lightweight: bool) -> tuple[float, float]:

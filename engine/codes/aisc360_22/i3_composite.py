@@ -1,8 +1,10 @@
-"""Composite beam section: effective width, plastic strength for any slab force, stiffness.
+"""Composite beam section: effective width, plastic strength for any slab force, stiffness;
+the formed-deck limits and the rules for when composite action counts.
 
 Units: kip, in, ksi, kip-in. `shape` is any object with the W-shape attributes `area`, `d`,
 `bf`, `tf`, `ix` (e.g. `engine.model.shapes.WShape`). `y_con` is the distance from the top of the
-steel to the top of the slab. Functions broadcast over numpy arrays.
+steel to the top of the slab. Section functions broadcast over numpy arrays; the deck and slip
+rules take scalars.
 """
 
 from __future__ import annotations
@@ -13,6 +15,23 @@ import numpy as np
 
 PNA_LABELS = ("slab", "flange", "web")
 PNA_SLAB, PNA_FLANGE, PNA_WEB = 0, 1, 2
+
+# AISC 360-22 I3.1b: the steel alone carries the loads applied before the concrete reaches
+# this share of f'c.
+COMPOSITE_FC_SHARE = 0.75
+
+# AISC 360-22 I3.2c.1: composite beams with formed steel deck, in.
+DECK_RIB_HEIGHT_MAX = 3.0  # nominal rib height h_r
+DECK_RIB_WIDTH_MIN = 2.0  # average width of the concrete rib w_r
+DECK_STUD_DIAMETER_MAX = 0.75  # studs welded through the deck or to the steel
+STUD_PROJECTION_MIN = 1.5  # studs extend above the top of the deck after installation
+STUD_COVER_MIN = 0.5  # specified concrete cover above the top of the studs
+DECK_TOPPING_MIN = 2.0  # slab thickness above the steel deck
+DECK_ANCHOR_SPACING_MAX = 18.0  # deck anchored to every supporting member at this spacing or less
+
+# AISC 360-22 I3.2c.3: deck ribs parallel to the beam at least this high (in) need w_r of 2 in
+# for the first stud of a transverse row plus 4 d for each added stud.
+PARALLEL_RIB_HEIGHT_MIN = 1.5
 
 
 def effective_width(span, left, right):
@@ -42,6 +61,34 @@ def cf_force(as_fy, fc, ac):
     AISC 360-22 I3.2d.1 (V'); Commentary Eq. C-I3-3 (C_f).
     """
     return np.minimum(np.asarray(as_fy, dtype=float), 0.85 * np.asarray(fc, dtype=float) * np.asarray(ac, dtype=float))
+
+
+def stress_block_force(fc, width, depth):
+    """Force of a concrete stress block of 0.85 f'c over `width` x `depth`, kip.
+
+    AISC 360-22 I1.2a (0.85 f'c uniform over the compression zone), for the plastic stress
+    distribution of I3.2a.
+    """
+    return 0.85 * np.asarray(fc, dtype=float) * np.asarray(width, dtype=float) * np.asarray(depth, dtype=float)
+
+
+def slip_capacity_exempt(span, composite_ratio, studs_per_ft) -> bool:
+    """Whether the studs' slip capacity needs no further consideration: span (in) of 30 ft or
+    less, composite ratio sum Q_n / C_f of 0.5 or more, or studs_per_ft (sum Q_n per foot of
+    span, kip/ft) of 16 or more.
+
+    AISC 360-22 I3.2d, Commentary (connector ductility).
+    """
+    return span <= 360.0 or composite_ratio >= 0.5 or studs_per_ft >= 16.0
+
+
+def parallel_rib_studs_across(w_r: float, d: float) -> int:
+    """Most studs of diameter d (in) in one transverse row of a deck rib parallel to the beam of
+    average width w_r (in), ribs 1 1/2 in or higher: w_r >= 2 in for the first + 4 d per added stud.
+
+    AISC 360-22 I3.2c.3.
+    """
+    return int(np.floor((w_r - 2.0) / (4.0 * d) + 1e-9)) + 1
 
 
 @dataclass(frozen=True, slots=True)

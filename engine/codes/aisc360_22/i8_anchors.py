@@ -1,6 +1,8 @@
-"""Steel headed stud anchors: area, e_mid-ht, group and position factors, nominal strength.
+"""Steel headed stud anchors: area, e_mid-ht, group and position factors, nominal strength,
+length, diameter and spacing limits.
 
-Units: in, in^2, ksi, kip. Functions broadcast over numpy arrays (one value per rib or stud).
+Units: in, in^2, ksi, kip. Strength functions broadcast over numpy arrays (one value per rib or
+stud); the length, diameter and spacing limits take scalars.
 """
 
 from __future__ import annotations
@@ -103,3 +105,44 @@ def qn_stud(asa, fc, ec, fu, rg, rp):
     """
     steel = np.asarray(rg, dtype=float) * np.asarray(rp, dtype=float) * np.asarray(asa, dtype=float) * fu
     return np.minimum(qn_concrete_limit(asa, fc, ec), steel)
+
+
+def stud_length_min(d: float) -> float:
+    """Least stud length after installation, 4 d, in.
+
+    AISC 360-22 I8.2 (length of 4 d_sa or more from the base to the top of the head).
+    """
+    return 4.0 * d
+
+
+def stud_diameter_max_off_web(tf: float) -> float:
+    """Largest stud diameter not placed over the web, 2.5 t_f, in.
+
+    AISC 360-22 I8.1.
+    """
+    return 2.5 * tf
+
+
+def stud_spacing_min(d: float, in_perpendicular_ribs: bool) -> float:
+    """Least centre-to-centre stud spacing along the beam, in: 4 d within the ribs of deck
+    perpendicular to the beam, 6 d otherwise.
+
+    AISC 360-22 I8.2d.
+    """
+    return 4.0 * d if in_perpendicular_ribs else 6.0 * d
+
+
+def stud_spacing_transverse(d: float) -> float:
+    """Least centre-to-centre spacing of studs across the beam, 4 d, in.
+
+    AISC 360-22 I8.2d.
+    """
+    return 4.0 * d
+
+
+def stud_spacing_max(slab_thickness: float) -> float:
+    """Greatest centre-to-centre stud spacing, min(8 x total slab thickness, 36 in), in.
+
+    AISC 360-22 I8.2d.
+    """
+    return min(8.0 * slab_thickness, 36.0)
