@@ -11,7 +11,7 @@ import pytest
 from fieldcomp.cli.main import main
 from fieldcomp.jobs.inspection_log import CsvImportError, parse_findings_csv
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[3]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
 
 

@@ -9,7 +9,7 @@ import pytest
 
 from fieldcomp.cli.main import main
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[3]
 DEMO = str(ROOT / "jobs" / "harbor_row_level3.toml")
 
 CHECK_KEYS = {

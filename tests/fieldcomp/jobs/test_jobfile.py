@@ -9,7 +9,7 @@ from fieldcomp.jobs.jobfile import ChangedOnDisk, JobFileError, dump_job, load_j
 from fieldcomp.jobs.schema import job_schema
 from fieldcomp.jobs.to_engine import to_engine
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[3]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
 
 MINIMAL = """
