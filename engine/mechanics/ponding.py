@@ -82,7 +82,7 @@ def level_deflection(
     A is the simple-span flexibility with EI(x); solved by engine.mechanics.statics.ponded_deflection.
     `known` (kip/in at stations) enters it as uniform pieces of equal resultant; the
     remainder (known less pieces) is added through its own deflection without ponding
-    amplification: about 1e-4 of the deflection with 8 pieces (tests/test_construction_ponding.py).
+    amplification: about 1e-4 of the deflection with 8 pieces (tests/engine/construction/test_construction_ponding.py).
     """
     return level_deflections(x, span, loads, np.asarray(known, dtype=float)[None, :], k, ei)[0]
 

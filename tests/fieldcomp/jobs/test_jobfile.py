@@ -9,7 +9,7 @@ from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError, dump_job, l
 from fieldcomp.jobs.schema import job_schema
 from fieldcomp.jobs.to_engine import to_engine
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[3]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
 
 MINIMAL = """

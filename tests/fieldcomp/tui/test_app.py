@@ -21,7 +21,7 @@ from fieldcomp.tui.screens.help import HelpScreen
 from fieldcomp.tui.session import JobSession, read_recovery, recovery_path
 from fieldcomp.jobs.to_engine import to_engine
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[3]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
 SIZE = (170, 48)
 

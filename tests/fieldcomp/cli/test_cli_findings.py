@@ -14,7 +14,7 @@ import pytest
 
 from fieldcomp.cli.main import main
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[3]
 DEMO = str(ROOT / "jobs" / "harbor_row_level3.toml")
 KEYS = {"mark", "sum_qn_kips_left", "sum_qn_kips_right", "min_strength_ratio", "min_ratio_station_in",
         "composite_ratio", "live_deflection_in", "verdict", "repair", "repair_studs_total", "caution",

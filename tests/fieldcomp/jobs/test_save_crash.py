@@ -10,7 +10,7 @@ import pytest
 
 from fieldcomp.jobs.jobfile import load_job
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[3]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
 
 CHILD = r"""

@@ -15,7 +15,7 @@ from hypothesis import strategies as st
 from fieldcomp.cli.main import main
 from fieldcomp.cli import parallel
 
-sys.path.insert(0, str(Path(__file__).resolve().parents[1] / "tools"))
+sys.path.insert(0, str(Path(__file__).resolve().parents[3] / "tools"))
 
 from bench import generated_job as many_beams  # noqa: E402  (the benchmark's generated floor)
 

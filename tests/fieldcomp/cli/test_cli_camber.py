@@ -11,7 +11,7 @@ from fieldcomp.cli.main import main
 from fieldcomp.jobs.jobfile import JobFileError, parse_job
 from fieldcomp.jobs.to_engine import to_engine
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[3]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
 
 CAMBER_KEYS = {

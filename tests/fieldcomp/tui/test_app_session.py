@@ -13,7 +13,7 @@ from hypothesis import strategies as st
 from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError, load_job, parse_job
 from fieldcomp.tui.session import EditRejectedError, JobSession, read_recovery, recovery_path, write_recovery
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[3]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
 DEMO_SESSION = JobSession.open(DEMO)
 

@@ -21,7 +21,7 @@ from engine.studs.design import design_layout
 from fieldcomp.jobs.jobfile import JobFileError, parse_job
 from fieldcomp.jobs.to_engine import to_engine
 
-DEMO = Path(__file__).resolve().parents[1] / "jobs" / "harbor_row_level3.toml"
+DEMO = Path(__file__).resolve().parents[3] / "jobs" / "harbor_row_level3.toml"
 BASE = tomllib.loads(DEMO.read_text())
 PATH = "fuzz/level3.toml"
 

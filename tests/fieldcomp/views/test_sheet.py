@@ -20,7 +20,7 @@ from fieldcomp.views.marks_sheet import CSV_COLUMNS, marks_csv, marks_text
 from fieldcomp.views.marks_svg import marks_svg
 from fieldcomp.views.marks_svg import X0, X1
 from engine.model.units import format_ft_in
-from test_layout import beam
+from tests.engine.studs.test_layout import beam
 
 NS = {"s": "http://www.w3.org/2000/svg"}
 CAUTION = "Results support, and do not replace, the engineer of record."

@@ -11,7 +11,7 @@ from engine.model.units import parse_length
 from fieldcomp.jobs.jobfile import parse_job
 from fieldcomp.jobs.to_engine import to_engine
 
-DEMO = (Path(__file__).resolve().parents[1] / "jobs" / "harbor_row_level3.toml").read_text()
+DEMO = (Path(__file__).resolve().parents[3] / "jobs" / "harbor_row_level3.toml").read_text()
 
 
 def beam_with(origin: str, setback: str, finding: str = ""):

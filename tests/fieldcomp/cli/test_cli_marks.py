@@ -12,7 +12,7 @@ import pytest
 from fieldcomp.cli.main import main
 from fieldcomp.jobs.output_names import inside, safe_name, unique_names
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[3]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
 SVG_G = "{http://www.w3.org/2000/svg}g"
 

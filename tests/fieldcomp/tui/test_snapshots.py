@@ -1,7 +1,7 @@
 """Snapshots of every workbench pane on the demo job (pytest-textual-snapshot, fixed size).
 
-Update after a deliberate change with `pytest tests/test_snapshots.py --snapshot-update`, then
-read the SVG diffs (tests/__snapshots__/) before accepting them.
+Update after a deliberate change with `pytest tests/fieldcomp/tui/test_snapshots.py --snapshot-update`,
+then read the SVG diffs (tests/fieldcomp/tui/__snapshots__/) before accepting them.
 """
 
 from __future__ import annotations
@@ -13,7 +13,7 @@ import pytest
 from fieldcomp.tui.app import FieldcompApp
 from fieldcomp.tui.session import JobSession
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[3]
 SIZE = (170, 48)  # wide enough for the caution line in full
 DATE = "2025-06-02"  # printed on marks sheets; fixed so the snapshot does not change with the day
 
