@@ -102,7 +102,7 @@ def test_end_to_end_every_shape_no_nan():
             assert np.all(np.isfinite(arr)), shape.name
         for c in r.checks:
             assert np.isfinite(c.demand) and np.isfinite(c.capacity), (shape.name, c)
-        assert r.verdict in ("pass", "fail")
+        assert r.verdict in ("pass", "review", "fail")
 
 
 def test_more_studs_never_lower_strength_end_to_end():

@@ -18,7 +18,7 @@ from engine.codes.aisc360_22.i3_composite import COMPOSITE_FC_SHARE
 from engine.codes.aisc360_22.g_shear import ShearStrength, web_shear_strength
 from engine.construction.bare_steel import BareFlexure, Bracing, bracing, governing_segments
 from engine.construction.camber import CamberDecision, CamberOutcome, decide_camber, may_camber, outcome_envelope
-from engine.model.results import Check, Flag
+from engine.model.results import Authority, Check, Flag, Level, verdict_of
 from engine.model.deck import psf_to_kip_per_in
 from engine.model.inputs import BeamInput
 from engine.mechanics.ponding import first_mode_ratio
@@ -142,8 +142,9 @@ class ConstructionResult:
         return self.ponded_weight / nominal if nominal > 0.0 else 0.0
 
     @property
-    def verdict(self) -> str:
-        return "pass" if all(c.passed for c in self.checks) else "fail"
+    def verdict(self) -> Level:
+        """pass / review / fail: the worst level of the checks."""
+        return verdict_of(self.checks)
 
 
 def evaluate_construction(beam: BeamInput) -> ConstructionResult:
@@ -244,20 +245,22 @@ def _checks(beam: BeamInput, plan: PourPlan, run: StagedRun, decision: CamberDec
         limit = min(limit, con.dead_limit_max)
     cap = f", max {format_inches(con.dead_limit_max)}" if con.dead_limit_max is not None else ""
     checks.append(Check("construction.deflection.dead_less_camber", f"pre-composite dead-load deflection less camber (span/{con.dead_limit_ratio:g}{cap})",
-                        "AISC Design Guide 3 limit as used in AISC Design Examples v16.0 Chapter I; net of camber",
+                        ("limit set by the job (project); net of camber" if con.dead_limit_authority == Authority.PROJECT
+                         else "AISC Design Guide 3 limit as used in AISC Design Examples v16.0 Chapter I; net of camber"),
                         max(decision.predicted - decision.camber, 0.0), limit, "in", station=plan.span / 2,
-                        kind="serviceability"))
+                        kind="serviceability", authority=con.dead_limit_authority))
     if con.live_limit_ratio is not None:
         checks.append(Check("construction.deflection.live", f"construction live-load deflection (span/{con.live_limit_ratio:g})", "limit set by the job",
                             float(run.live[:, plan.midspan].max()), beam.span / con.live_limit_ratio, "in",
-                            station=plan.span / 2, kind="serviceability"))
+                            station=plan.span / 2, kind="serviceability", authority=Authority.PROJECT))
     if level or not stable:
         k_max = max(float(step.k.max()) for step in plan.steps)
         cc = first_mode_ratio(k_max, beam.span, E_STEEL * beam.shape.ix)
         checks.append(Check("construction.ponding_stability", "level-screed ponding stability (C_c < 1)",
                             "closed form after Ruddy, AISC Engineering Journal 1986; AISC 360-22 Commentary I3.1b",
                             cc if stable else max(cc, 1.0 + 1e-6), 1.0, "ratio",
-                            note="" if stable else "the exact solution has no stable equilibrium"))
+                            note="" if stable else "the exact solution has no stable equilibrium: level screeding "
+                            "cannot be used as planned", authority=Authority.COMMENTARY))
     return checks
 
 

@@ -13,7 +13,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from engine.codes.aisc360_22.i3_composite import DECK_ANCHOR_SPACING_MAX
-from engine.model.results import Check, Flag
+from engine.model.results import Check, Flag, Level, verdict_of
 from engine.finished.evaluate import BeamResult, governing_check
 from engine.studs.evaluate import evaluate_studs
 from engine.studs.layout import StudLayout
@@ -190,8 +190,9 @@ class AsBuiltResult:
     designed_anchor_gap: float
 
     @property
-    def verdict(self) -> str:
-        return "pass" if all(c.passed for c in self.checks) else "fail"
+    def verdict(self) -> Level:
+        """pass / review / fail: the worst level of the checks."""
+        return verdict_of(self.checks)
 
     @property
     def governing(self) -> Check:

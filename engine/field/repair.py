@@ -22,6 +22,7 @@ from engine.studs.detailing import spacing_checks, spacing_limits
 from engine.studs.evaluate import evaluate_studs
 from engine.field.as_built import AsBuiltResult, RibState, assess, slot_strength, state_layout
 from engine.model.inputs import BeamInput, Finding
+from engine.model.results import Level
 from engine.finished.slab_force import StudGroups, slab_force
 
 _TOL = 1e-9
@@ -189,15 +190,21 @@ def cover_gaps(r: AsBuiltResult, state: RibState) -> np.ndarray | None:
 
 
 def find_repair(before: AsBuiltResult, max_studs: int = 200) -> Repair:
-    """The fewest added studs the search finds (see the module note) that make every check pass,
-    placed where the envelope falls short."""
+    """The fewest added studs the search finds (see the module note) that restore the beam: every
+    check that passes as designed passes again (a review the design itself carries stays the
+    engineer of record's), placed where the envelope falls short."""
     beam, designed = before.beam, before.designed
     zero = np.zeros(designed.x.size, dtype=int)
-    if before.verdict == "pass":
-        return Repair(zero, before, 0, True, ())
     as_designed = assess(beam, designed, RibState(designed.count, designed.count, zero, zero))
-    if as_designed.verdict == "fail":
+    if as_designed.verdict == Level.FAIL:
         return Repair(zero, before, 0, False, _alternatives(as_designed, "design-fails"))
+    passing = frozenset(c.id for c in as_designed.checks if c.passed)
+
+    def restored(r: AsBuiltResult) -> bool:
+        return all(c.passed for c in r.checks if c.id in passing) and r.verdict != Level.FAIL
+
+    if restored(before):
+        return Repair(zero, before, 0, True, ())
     deficient = before.strength_ratio < 1.0
     deficient[before.result.critical] = True
     need = slab_force_needed(before, deficient)
@@ -220,7 +227,7 @@ def find_repair(before: AsBuiltResult, max_studs: int = 200) -> Repair:
         return bool(np.all((c > need) | (need < 0.0))) and gaps is not None and gaps.sum() == 0
 
     added, current = cover, trial(cover)
-    while current.verdict == "fail" and added.sum() < max_studs:
+    while not restored(current) and added.sum() < max_studs:
         room = _room(before, before.state.with_added(added))
         scored = []
         for k in np.flatnonzero(room > 0):
@@ -233,29 +240,29 @@ def find_repair(before: AsBuiltResult, max_studs: int = 200) -> Repair:
         _, _, _, k, current = min(scored, key=lambda s: s[:4])
         added = added.copy()
         added[k] += 1
-    added = _prune(trial, added, near)
-    added = _trade(trial, may_pass, before, added, bound, near)
+    added = _prune(trial, restored, added, near)
+    added = _trade(trial, restored, may_pass, before, added, bound, near)
     after = trial(added)
     notes = ()
     if cover.sum() and np.isfinite(gap_limits(beam, before.designed_anchor_gap)[1]):
         notes = ("studs added to close deck-anchorage gaps (AISC 360-22 I3.2c.1, 18 in) may be replaced by "
                  "puddle welds or other anchors the project specifies, if the engineer of record accepts",)
-    return Repair(added, after, bound, after.verdict == "pass", (), notes)
+    return Repair(added, after, bound, restored(after), (), notes)
 
 
-def _prune(trial, added: np.ndarray, near: np.ndarray) -> np.ndarray:
+def _prune(trial, restored, added: np.ndarray, near: np.ndarray) -> np.ndarray:
     """Take out, farthest from the deficit first, every added stud the beam passes without."""
     added = added.copy()
     for k in sorted(np.flatnonzero(added), key=lambda k: -near[k]):
         while added[k] > 0:
             added[k] -= 1
-            if trial(added).verdict != "pass":
+            if not restored(trial(added)):
                 added[k] += 1
                 break
     return added
 
 
-def _trade(trial, may_pass, before: AsBuiltResult, added: np.ndarray, bound: int, near: np.ndarray) -> np.ndarray:
+def _trade(trial, restored, may_pass, before: AsBuiltResult, added: np.ndarray, bound: int, near: np.ndarray) -> np.ndarray:
     """Replace two added studs by one, nearest the deficit first, while the beam still passes."""
     improved = True
     while improved and int(added.sum()) > bound:
@@ -270,7 +277,7 @@ def _trade(trial, may_pass, before: AsBuiltResult, added: np.ndarray, bound: int
             for k in sorted(np.flatnonzero(room > 0), key=lambda k: near[k]):
                 one = fewer.copy()
                 one[k] += 1
-                if may_pass(one) and trial(one).verdict == "pass":
+                if may_pass(one) and restored(trial(one)):
                     added, improved = one, True
                     break
             if improved:

@@ -19,7 +19,7 @@ from engine.finished.basis import FinishedBasis, available_strength, composite_s
 from engine.finished.slab_force import StudGroups, slab_force
 from engine.mechanics.statics import deflection_rows
 from engine.model.inputs import BeamInput, Method
-from engine.model.results import Check, Flag
+from engine.model.results import Authority, Check, Flag, Level, verdict_of
 from engine.model.scope import check_scope
 
 @dataclass(frozen=True, slots=True)
@@ -71,8 +71,9 @@ class BeamResult:
         return governing_check(self.checks)
 
     @property
-    def verdict(self) -> str:
-        return "pass" if all(c.passed for c in self.checks) else "fail"
+    def verdict(self) -> Level:
+        """pass / review / fail: the worst level of the beam's checks."""
+        return verdict_of(self.checks)
 
     def check(self, check_id: str) -> Check:
         """The check with this stable id (KeyError if the beam has none)."""
@@ -93,8 +94,12 @@ def find_check(checks: tuple[Check, ...], check_id: str) -> Check:
 
 
 def governing_check(checks: tuple[Check, ...] | list[Check]) -> Check:
-    failing = [c for c in checks if not c.passed]
-    pool = failing or [c for c in checks if c.kind != "detailing"] or list(checks)
+    """The check that decides the verdict: the highest-ratio failing check, else the highest-ratio
+    one asking for review, else the highest-ratio strength or serviceability check (detailing
+    limits are often met exactly)."""
+    failing = [c for c in checks if c.level == Level.FAIL]
+    review = [c for c in checks if c.level == Level.REVIEW]
+    pool = failing or review or [c for c in checks if c.kind != "detailing"] or list(checks)
     return max(pool, key=lambda c: c.ratio)
 
 
@@ -127,7 +132,8 @@ def evaluate_finished(beam: BeamInput, groups: StudGroups, detailing: tuple[Chec
     sum_qn_eff = min(sum_qn, cf)
     composite_ratio = sum_qn_eff / cf
     a_k = float(plastic.a[k])
-    i_lb = float(lower_bound_inertia(shape, sum_qn_eff, beam.fy, y_con, a_k)) if sum_qn_eff > 0 else shape.ix
+    c_k = float(plastic.c[k])  # the concrete force the strength assumes (limited to the topping, I3.2a)
+    i_lb = float(lower_bound_inertia(shape, c_k, beam.fy, y_con, a_k)) if c_k > 0 else shape.ix
     i_equiv = float(equivalent_inertia(shape.ix, i_tr, sum_qn_eff, cf)) if sum_qn_eff > 0 else shape.ix
 
     shear = basis.shear
@@ -141,13 +147,18 @@ def evaluate_finished(beam: BeamInput, groups: StudGroups, detailing: tuple[Chec
               float(demand[g]), float(capacity[g]), "kip-in", station=float(x[g])),
         Check("shear.web", "shear, steel web", "AISC 360-22 I4.3, G2.1",
               vu if beam.method == Method.LRFD else va, phi_vn if beam.method == Method.LRFD else vn_omega, "kip"),
-        Check("deflection.live", f"live-load deflection (span/{beam.limits.live_ratio:g})", "AISC 360-22 Commentary I3.2 (I_LB); "
-              "limit common practice", live_defl, beam.span / beam.limits.live_ratio, "in", kind="serviceability"),
+        Check("deflection.live", f"live-load deflection (span/{beam.limits.live_ratio:g})",
+              "AISC 360-22 Commentary I3.2 (I_LB); " + _limit_source(beam.limits.live_authority, "IBC Table 1604.3, floor members"),
+              live_defl, beam.span / beam.limits.live_ratio, "in", kind="serviceability",
+              authority=beam.limits.live_authority),
         Check("deflection.superimposed_live", f"superimposed dead + live deflection (span/{beam.limits.total_ratio:g})",
-              "AISC 360-22 Commentary I3.2 (I_LB); limit common practice",
-              after_cure_defl, beam.span / beam.limits.total_ratio, "in", kind="serviceability"),
-        Check("composite.degree_min", "degree of composite (min 25%)", "AISC 360-22 Commentary I3.2d (common practice)",
-              MIN_COMPOSITE, composite_ratio, "ratio", kind="detailing"),
+              "AISC 360-22 Commentary I3.2 (I_LB); " + _limit_source(
+                  beam.limits.total_authority, "common practice (IBC Table 1604.3 takes the dead load of steel members as zero)"),
+              after_cure_defl, beam.span / beam.limits.total_ratio, "in", kind="serviceability",
+              authority=beam.limits.total_authority),
+        Check("composite.degree_min", "degree of composite (min 25%)",
+              "AISC 360-22 Commentary I3.2 (Eq. C-I3-3 not used below 25 %)",
+              MIN_COMPOSITE, composite_ratio, "ratio", kind="detailing", authority=Authority.COMMENTARY),
     ]
     checks += detailing
     flags = list(detailing_flags)
@@ -162,6 +173,11 @@ def evaluate_finished(beam: BeamInput, groups: StudGroups, detailing: tuple[Chec
         i_lb=i_lb, i_equiv=i_equiv, vu=vu, va=va, phi_vn=phi_vn, vn_omega=vn_omega,
         live_deflection=live_defl, after_cure_deflection=after_cure_defl, checks=tuple(checks), flags=tuple(flags),
     )
+
+
+def _limit_source(authority: Authority, default: str) -> str:
+    """Where a serviceability limit comes from, as printed beside its check."""
+    return "limit set by the job (project)" if authority == Authority.PROJECT else f"limit {default}"
 
 
 def _service_deflections(basis: FinishedBasis, ei: float) -> tuple[float, float]:

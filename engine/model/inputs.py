@@ -11,6 +11,7 @@ from enum import StrEnum
 
 from engine.codes import practice
 from engine.model.deck import Slab
+from engine.model.results import Authority
 from engine.model.shapes import WShape
 
 class Method(StrEnum):
@@ -47,6 +48,8 @@ class StudSpec:
     position: str
     count: int | None
     max_per_rib: int = 3
+    design_sum_qn: float | None = None  # the design's sum Qn each side of the maximum moment (kip), if stated
+    design_composite: float | None = None  # or the design's degree of composite, sum Qn / C_f
 
 
 @dataclass(frozen=True, slots=True)
@@ -99,6 +102,7 @@ class ConstructionSpec:
     combinations: tuple[tuple[float, float], ...] = ()  # (dead, live) factors; () = defaults of the method
     dead_limit_ratio: float = practice.WET_DEFLECTION_RATIO  # span / ratio ...
     dead_limit_max: float | None = practice.WET_DEFLECTION_MAX  # ... and not over 1 in (AISC Design Guide 3, via DE16 I.1)
+    dead_limit_authority: Authority = Authority.DESIGN_GUIDE  # PROJECT when the job sets the limit
     live_limit_ratio: float | None = None  # construction live-load deflection limit; None: not checked
 
 
@@ -128,10 +132,15 @@ class Finding:
 
 @dataclass(frozen=True, slots=True)
 class Limits:
-    """Serviceability limits as span / ratio (common practice defaults: engine.codes.practice)."""
+    """Serviceability limits as span / ratio and whose rule each is: the defaults are the floor-member
+    limits of IBC Table 1604.3 (live L/360 binding; its D + L limit takes the dead load of steel
+    members as zero (footnote), so the superimposed dead + live L/240 check is common practice);
+    a limit typed into the job is the project's."""
 
     live_ratio: float = practice.LIVE_DEFLECTION_RATIO
     total_ratio: float = practice.TOTAL_DEFLECTION_RATIO
+    live_authority: Authority = Authority.BUILDING_CODE
+    total_authority: Authority = Authority.COMMON_PRACTICE
 
 
 @dataclass(frozen=True, slots=True)

@@ -9,7 +9,8 @@ from functools import lru_cache
 
 import numpy as np
 
-from engine.model.results import Check, Flag
+from engine.finished.basis import finished_basis
+from engine.model.results import Authority, Check, Flag
 from engine.studs.detailing import spacing_checks, spacing_limits, studs_across
 from engine.studs.layout import LayoutResult, StudLayout, layout_qn, slots_for
 from engine.model.inputs import BeamInput, DeckCase
@@ -52,17 +53,19 @@ def design_layout(beam: BeamInput, suggest: bool = True) -> LayoutResult:
     _, left, right = slab_force(np.array([need.x_max]), groups, math.inf)
     provided = (float(left[0]), float(right[0]))
     checks, flags = spacing_checks(beam, groups)
+    required = float(need.c_req.max())  # what phi Mn >= Mu needs each side (I8.2c: V' the design uses)
     if total is None:
-        required = float(need.c_req.max())
         checks.append(Check("studs.slab_force", "studs develop the slab force phi Mn >= Mu needs, each side", "AISC 360-22 I3.2d.1, I8.2c",
                             required, min(provided), "kip", station=need.x_max, kind="detailing"))
     else:
-        required = 0.5 * total * float(slots.per_slot[1])
-        checks.append(Check("studs.count_placed", "studs placed vs count on the drawings", "AISC 360-22 I8.2c, I8.2d",
-                            float(total), float(layout.total), "studs", kind="detailing"))
-        checks.append(Check("studs.sum_qn_drawings", "sum Qn each side vs the drawings' count at one stud per rib",
-                            "AISC 360-22 I8.2a, I8.2c", required, min(provided), "kip", station=need.x_max,
-                            kind="detailing"))
+        checks.append(Check("studs.count_placed", "studs placed vs count on the drawings", "the drawings (project); AISC 360-22 I8.2d",
+                            float(total), float(layout.total), "studs", kind="detailing", authority=Authority.PROJECT))
+    intent = design_intent(beam)
+    if intent is not None:
+        checks.append(Check("studs.design_intent", "sum Qn each side vs the design's stated intent",
+                            "the job's design_sum_qn / design_composite (project intent; strength is checked by AISC 360-22 I3.2a)",
+                            intent, min(provided), "kip", station=need.x_max, kind="detailing",
+                            authority=Authority.PROJECT, advisory=True))
     text = shortfall(beam, need, slots, arr, layout, required, provided, suggest)
     if text is not None:
         flags.append(Flag(SHORTFALL_CLAUSE, f"stud layout short: {text}"))
@@ -70,6 +73,17 @@ def design_layout(beam: BeamInput, suggest: bool = True) -> LayoutResult:
         values.flags.writeable = False
     return LayoutResult(layout, required, provided[0], provided[1], text, tuple(checks), tuple(flags),
                         "design" if total is None else "drawings")
+
+
+def design_intent(beam: BeamInput) -> float | None:
+    """The sum Qn each side the design states it relies on (kip): `design_sum_qn`, or
+    `design_composite` x C_f (AISC 360-22 I3.2d.1); None when the job states neither."""
+    spec = beam.studs
+    if spec.design_sum_qn is not None:
+        return spec.design_sum_qn
+    if spec.design_composite is not None:
+        return spec.design_composite * finished_basis(beam).limits.cf
+    return None
 
 
 def envelope_misses(need: Need, layout: StudLayout) -> np.ndarray:
@@ -111,7 +125,7 @@ def _problems(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, layou
         problems.append(f"a {format_inches(gap)} spacing from {format_ft_in(start)} has no usable slot to split it "
                         f"(max {format_inches(spacing_limits(beam)[1])}, AISC 360-22 I8.2d)")
     if beam.studs.count is not None:
-        problems += _drawing_problems(beam, layout, beam.studs.count, required, provided)
+        problems += _drawing_problems(beam, layout, beam.studs.count)
     misses = envelope_misses(need, layout)
     if misses.size and (beam.studs.count is not None or not problems):
         problems.append(f"the studs develop less slab force than phi Mn >= Mu needs (at least 25 % of C_f at the "
@@ -120,15 +134,10 @@ def _problems(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, layou
     return problems
 
 
-def _drawing_problems(beam: BeamInput, layout: StudLayout, total: int, required: float,
-                      provided: tuple[float, float]) -> list[str]:
+def _drawing_problems(beam: BeamInput, layout: StudLayout, total: int) -> list[str]:
     out: list[str] = []
     if layout.total < total:
         out.append(f"only {layout.total} of the {total} studs on the drawings fit the usable slots")
-    if min(provided) < required * (1.0 - _TOL):
-        out.append(f"the studs develop {provided[0]:.0f} / {provided[1]:.0f} kips ({beam.ribs.reference_end} / "
-                   f"{beam.ribs.far_end} side), below the {required:.0f} kips the drawings' count gives at one stud "
-                   "per rib (R_g falls in ribs with more studs, AISC 360-22 I8.2a)")
     occupied = layout.x[layout.count > 0]
     smax = spacing_limits(beam)[1]
     if occupied.size > 1 and float(np.diff(occupied).max()) > smax + 1e-9:

@@ -8,7 +8,7 @@ import sys
 from functools import partial
 
 from fieldcomp import CAUTION, __version__
-from fieldcomp.cli.common import EXIT_FAIL, EXIT_INPUT, EXIT_PASS, fail_input, load_inputs
+from fieldcomp.cli.common import EXIT_INPUT, exit_code, fail_input, load_inputs, tally
 
 
 def register(sub) -> None:
@@ -32,13 +32,13 @@ def camber_beam(beam, as_json: bool) -> tuple[str | None, bool, str, list, str]:
     try:
         r = evaluate_construction(beam)
     except (JobFileError, ValueError) as exc:
-        return str(exc), False, "", [], ""
+        return str(exc), "fail", "", [], ""
     line = schedule_text([r]).split("\n", 2)[2]  # below the table head
     rows = csv_rows([r])[2:]  # below the caution and header rows
     if as_json:
-        return None, r.verdict == "fail", line, rows, json_item(construction_json(r))
+        return None, str(r.verdict), line, rows, json_item(construction_json(r))
     text = f"Beam {r.beam.mark}: {r.beam.shape.name}, span {format_ft_in(r.beam.span)}, {r.beam.method}\n"
-    return None, r.verdict == "fail", line, rows, text + construction_text(r)
+    return None, str(r.verdict), line, rows, text + construction_text(r)
 
 
 def run(args: argparse.Namespace) -> int:
@@ -57,7 +57,7 @@ def run(args: argparse.Namespace) -> int:
     error = next((d[0] for d in done if d[0] is not None), None)
     if error is not None:
         return fail_input(ValueError(error))
-    failed = [b.mark for b, d in zip(beams, done) if d[1]]
+    verdicts = [d[1] for d in done]
     if args.csv:
         try:
             with open(args.csv, "w", newline="", encoding="utf-8") as fh:
@@ -76,9 +76,8 @@ def run(args: argparse.Namespace) -> int:
             print()
             print(d[4])
         print()
-        print(f"{len(done)} beam(s): construction stage {len(done) - len(failed)} pass, {len(failed)} fail"
-              + (f" ({', '.join(failed)})" if failed else ""))
+        print("construction stage, " + tally([b.mark for b in beams], verdicts))
         if args.csv:
             print(f"wrote {args.csv}")
         print(caution_block())
-    return EXIT_FAIL if failed else EXIT_PASS
+    return exit_code(verdicts)

@@ -6,7 +6,7 @@ import argparse
 from functools import partial
 
 from fieldcomp import CAUTION, __version__
-from fieldcomp.cli.common import EXIT_FAIL, EXIT_PASS, fail_input, load_inputs
+from fieldcomp.cli.common import exit_code, fail_input, load_inputs, tally
 
 
 def register(sub) -> None:
@@ -16,10 +16,11 @@ def register(sub) -> None:
     c.add_argument("--json", action="store_true", help="print one JSON object")
 
 
-def check_beam(beam, as_json: bool) -> tuple[str | None, bool, str]:
-    """(input error or None, whether the beam fails, its report: a JSON list item or text) for
-    one beam; run in worker processes for large jobs."""
+def check_beam(beam, as_json: bool) -> tuple[str | None, str, str]:
+    """(input error or None, the beam's verdict over the finished beam and the construction stage,
+    its report: a JSON list item or text) for one beam; run in worker processes for large jobs."""
     from engine.construction.evaluate import evaluate_construction
+    from engine.model.results import worst
     from engine.pipeline import evaluate_beam
     from fieldcomp.cli.parallel import json_item
     from fieldcomp.jobs.jobfile import JobFileError
@@ -29,12 +30,12 @@ def check_beam(beam, as_json: bool) -> tuple[str | None, bool, str]:
     try:
         c = evaluate_construction(beam)
     except (JobFileError, ValueError) as exc:
-        return str(exc), False, ""
+        return str(exc), "fail", ""
     r = evaluate_beam(beam)
-    failed = "fail" in (r.verdict, c.verdict)
+    verdict = str(worst((r.verdict, c.verdict)))
     if as_json:
-        return None, failed, json_item(merge_into_check(beam_json(r), c, r.checks))
-    return None, failed, beam_text(r) + "\n" + construction_text(c)
+        return None, verdict, json_item(merge_into_check(beam_json(r), c, r.checks))
+    return None, verdict, beam_text(r) + "\n" + construction_text(c)
 
 
 def run(args: argparse.Namespace) -> int:
@@ -50,7 +51,7 @@ def run(args: argparse.Namespace) -> int:
     error = next((e for e, _, _ in done if e is not None), None)
     if error is not None:
         return fail_input(ValueError(error))
-    failed = [b.mark for b, (_, fails, _) in zip(beams, done) if fails]
+    verdicts = [v for _, v, _ in done]
     if args.json:
         head = {"job": job.project.name, "caution": CAUTION, "not_checked": not_checked_json()}
         print(json_with_list(head, "beams", [report for _, _, report in done]))
@@ -61,8 +62,7 @@ def run(args: argparse.Namespace) -> int:
             print()
             print(report)
         print()
-        print(f"{len(done)} beam(s): {len(done) - len(failed)} pass, {len(failed)} fail"
-              + (f" ({', '.join(failed)})" if failed else ""))
+        print(tally([b.mark for b in beams], verdicts))
         print(scope_block())
         print(caution_block())
-    return EXIT_FAIL if failed else EXIT_PASS
+    return exit_code(verdicts)

@@ -4,7 +4,23 @@ from __future__ import annotations
 
 import sys
 
-EXIT_PASS, EXIT_FAIL, EXIT_INPUT = 0, 1, 2
+EXIT_PASS, EXIT_FAIL, EXIT_INPUT, EXIT_REVIEW = 0, 1, 2, 3
+
+
+def exit_code(verdicts: list[str]) -> int:
+    """0 all pass, 1 some beam fails, 3 none fails but some need the engineer of record's review."""
+    if "fail" in verdicts:
+        return EXIT_FAIL
+    return EXIT_REVIEW if "review" in verdicts else EXIT_PASS
+
+
+def tally(marks: list[str], verdicts: list[str]) -> str:
+    """'N beam(s): a pass, b review (marks), c fail (marks)'."""
+    parts = []
+    for word in ("pass", "review", "fail"):
+        which = [m for m, v in zip(marks, verdicts) if v == word]
+        parts.append(f"{len(which)} {word}" + (f" ({', '.join(which)})" if which and word != "pass" else ""))
+    return f"{len(marks)} beam(s): " + ", ".join(parts)
 
 
 def load_inputs(path: str, only: str | None = None):

@@ -12,7 +12,7 @@ import sys
 from pathlib import Path
 
 from fieldcomp import CAUTION
-from fieldcomp.cli.common import EXIT_FAIL, EXIT_PASS, fail_input
+from fieldcomp.cli.common import exit_code, fail_input
 
 def register(sub) -> None:
     f = sub.add_parser("findings", help="check one beam against its stud inspection findings; propose a repair")
@@ -60,7 +60,7 @@ def run(args: argparse.Namespace) -> int:
         print(json.dumps(findings_json(job.project.name, before, repair), indent=2))
     else:
         print(findings_text(job.project.name, args.job, before, repair))
-    return EXIT_PASS if before.verdict == "pass" else EXIT_FAIL
+    return exit_code([str(before.verdict)])
 
 
 def import_log(job_path: str, mark: str, csv_path: str) -> str:

@@ -54,7 +54,7 @@ def run(args: argparse.Namespace) -> int:
     for sheet, _, _ in sheets:
         print()
         print(marks_text(sheet))
-    short = [s.beam.mark for s, p, f in sheets if p.shortfall is not None or not f.passed]
+    short = [s.beam.mark for s, p, f in sheets if p.shortfall is not None or f.level == "fail"]
     print()
     print(f"{len(sheets)} beam(s): {len(sheets) - len(short)} laid out in full"
           + (f", {len(short)} short ({', '.join(short)})" if short else ""))

@@ -80,6 +80,8 @@ class Studs(Strict):
     position: Literal["strong", "weak", "center"] = Field("weak", description="Stud position in the rib (AISC 360-22 I8.2a).")
     count: int | Literal["design"] = Field(description="Studs on the whole beam as on the drawings, or \"design\" to find the count.")
     max_per_rib: int = Field(3, ge=1, le=3, description="Most studs the job allows in one rib.")
+    design_sum_qn: float | None = Field(None, gt=0.0, le=20000.0, description="The design's intent: sum Qn each side of the maximum moment, kips (from the calculations). A layout that develops less is flagged for review.")
+    design_composite: float | None = Field(None, gt=0.0, le=1.0, description="Or the design's degree of composite, sum Qn / C_f. A layout that develops less is flagged for review.")
 
     @model_validator(mode="after")
     def _count_range(self) -> "Studs":

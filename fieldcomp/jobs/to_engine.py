@@ -11,6 +11,7 @@ from engine.model.deck import DeckProfile, Slab
 from engine.model.inputs import (
     BeamInput, CamberRules, ConstructionSpec, Finding, Limits, Method, PointLoad, PourStage, RibSettings, StudSpec,
 )
+from engine.model.results import Authority
 from engine.model.shapes import ShapeNotFoundError, get_shape
 from engine.model.units import parse_length
 from engine.model.errors import FieldcompError
@@ -107,6 +108,8 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         pours=tuple(pours), camber=camber, combinations=tuple((f.dead, f.live) for f in b.construction_factors),
         dead_limit_ratio=limits.dead_ratio,
         dead_limit_max=None if limits.dead_max is None else parse_length(limits.dead_max),
+        dead_limit_authority=Authority.PROJECT if limits.model_fields_set & {"dead_ratio", "dead_max"}
+        else Authority.DESIGN_GUIDE,
         live_limit_ratio=limits.live_ratio)
     keep_start, keep_end = parse_length(b.keep_out_start), parse_length(b.keep_out_end)
     if keep_start + keep_end >= span:
@@ -124,15 +127,24 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
     if not 0.25 <= diameter <= 1.0:
         raise _FieldProblemError("studs.diameter", f"{b.studs.diameter} is outside 1/4 in to 1 in")
     studs = StudSpec(diameter, b.studs.fu_ksi, parse_length(b.studs.length), b.studs.position,
-                     None if b.studs.count == "design" else b.studs.count, b.studs.max_per_rib)
+                     None if b.studs.count == "design" else b.studs.count, b.studs.max_per_rib,
+                     b.studs.design_sum_qn, b.studs.design_composite)
     return BeamInput(
         mark=b.mark, shape=shape, span=span, fy=b.fy_ksi, slab=slab, orientation=b.deck_orientation,
         slab_left=sides[0], slab_right=sides[1], superimposed_dead_psf=b.superimposed_dead_psf,
         live_psf=b.live_psf, studs=studs, method=Method(job.project.method), point_loads=tuple(point_loads),
         load_width=None if b.load_width is None else parse_length(b.load_width),
         construction=construction, ribs=ribs, findings=findings,
-        limits=Limits(b.live_limit_ratio, b.total_limit_ratio), support=b.support, web_openings=b.web_openings,
+        limits=_limits(b), support=b.support, web_openings=b.web_openings,
     )
+
+
+def _limits(b: Beam) -> Limits:
+    """The beam's deflection limits; one the job states is the project's (engine.model.inputs.Limits)."""
+    typed = b.model_fields_set
+    return Limits(b.live_limit_ratio, b.total_limit_ratio,
+                  Authority.PROJECT if "live_limit_ratio" in typed else Authority.BUILDING_CODE,
+                  Authority.PROJECT if "total_limit_ratio" in typed else Authority.COMMON_PRACTICE)
 
 
 def require_in_scope(beams: list[BeamInput], path: str | os.PathLike[str] = "<job>") -> None:

@@ -10,10 +10,11 @@ import numpy as np
 from engine.construction.camber import CamberOutcome
 from engine.construction.evaluate import ConstructionResult, StageSummary
 from engine.finished.evaluate import governing_check
+from engine.model.results import verdict_of
 from engine.model.units import format_ft_in, format_inches
 from fieldcomp import CAUTION
 from fieldcomp.views.csv_safety import csv_cell
-from fieldcomp.views.finished_report import check_json, check_line
+from fieldcomp.views.finished_report import check_json, check_lines, governing_json, verdict_line
 
 IN3_PER_FT3 = 1728.0
 PROFILE_POINTS = 21  # JSON profiles at the twentieth-points of the span
@@ -83,7 +84,8 @@ def construction_json(cr: ConstructionResult) -> dict[str, Any]:
         "deflection_profile": _profile(cr),
         "construction_checks": [check_json(c) for c in cr.checks],
         "construction_flags": [{"clause": f.clause, "message": f.message, "severity": f.severity} for f in cr.flags],
-        "construction_verdict": cr.verdict,
+        "construction_verdict": str(cr.verdict),
+        "construction_governing": governing_json(governing_check(cr.checks)),
     }
 
 
@@ -91,12 +93,12 @@ def merge_into_check(record: dict[str, Any], cr: ConstructionResult, finished_ch
     """Add the construction keys to a `check --json` beam record; `verdict` and `governing` then
     cover the finished beam and the construction stage together (`finished_verdict` keeps the former)."""
     record["finished_verdict"] = record["verdict"]
+    record["finished_governing"] = record["governing"]
     for key, value in construction_json(cr).items():
         record.setdefault(key, value)
     both = tuple(finished_checks) + cr.checks
-    gov = governing_check(both)
-    record["verdict"] = "pass" if all(c.passed for c in both) else "fail"
-    record["governing"] = {"check": gov.name, "clause": gov.clause, "ratio": _num(gov.ratio)}
+    record["verdict"] = str(verdict_of(both))
+    record["governing"] = governing_json(governing_check(both))
     return record
 
 
@@ -144,10 +146,9 @@ def construction_text(cr: ConstructionResult) -> str:
     if pours > 1 or b.construction.screed == "level":
         lines += _stage_rows(cr)
     lines.append(f"  {cr.bracing.note}")
-    lines += [check_line(c) for c in sorted(cr.checks, key=lambda c: -c.ratio)]
+    lines += check_lines(cr.checks)
     lines += [f"  note  [{f.clause}] {f.message}" for f in cr.flags if f.message != cr.bracing.note]
-    gov = governing_check(cr.checks)
-    lines.append(f"  construction verdict: {cr.verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f})")
+    lines.append(verdict_line("construction verdict", cr.verdict, governing_check(cr.checks)))
     return "\n".join(lines)
 
 

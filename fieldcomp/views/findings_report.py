@@ -47,7 +47,8 @@ def _governing_station(r) -> float:
 
 def _governing(r) -> dict[str, Any]:
     gov = r.governing
-    return {"check": gov.name, "clause": gov.clause, "ratio": _num(gov.ratio), "station_in": _at(r.beam, _governing_station(r))}
+    return {"id": gov.id, "check": gov.name, "clause": gov.clause, "authority": str(gov.authority), "level": str(gov.level),
+            "ratio": _num(gov.ratio), "station_in": _at(r.beam, _governing_station(r))}
 
 
 def findings_json(job_name: str, before, repair) -> dict[str, Any]:
@@ -110,7 +111,7 @@ def findings_text(job_name: str, job_path: str, before, repair) -> str:
     from engine.studs.ribs import printed_station
     from engine.studs.sheet_data import station_origin_text
     from engine.model.units import format_ft_in, format_inches
-    from fieldcomp.views.finished_report import check_line
+    from fieldcomp.views.finished_report import check_lines
 
     def at(x: float) -> str:
         return format_ft_in(float(printed_station(b, x)))
@@ -140,11 +141,11 @@ def findings_text(job_name: str, job_path: str, before, repair) -> str:
         f"longest gap between working studs {before.anchor_gap:.1f} in",
         "  checks as built (ratio = demand / capacity):",
     ]
-    lines += [check_line(c) for c in sorted(before.checks, key=lambda c: -c.ratio)]
+    lines += check_lines(before.checks)
     lines += [f"  note  [{f.clause}] {f.message}" for f in before.flags]
     gov = before.governing
-    lines.append(f"  verdict: {before.verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f} "
-                 f"at {at(_governing_station(before))})")
+    lines.append(f"  verdict (as built): {before.verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f} "
+                 f"at {at(_governing_station(before))}; {gov.clause}; {gov.authority})")
     lines.append("")
     if before.verdict == "pass":
         lines.append("Repair: none needed.")

@@ -5,7 +5,9 @@ from __future__ import annotations
 from typing import Any
 
 from engine.codes.aisc360_22.f_flexure import OMEGA_B, PHI_B
-from engine.model.results import Check
+import numpy as np
+
+from engine.model.results import Check, Level
 from engine.finished.evaluate import BeamResult
 from engine.model.units import format_ft_in, format_inches
 from fieldcomp import CAUTION
@@ -44,17 +46,23 @@ def beam_json(r: BeamResult) -> dict[str, Any]:
         "i_equiv_in4": _num(r.i_equiv, 0),
         "live_deflection_in": _num(r.live_deflection),
         "sdl_live_deflection_in": _num(r.after_cure_deflection),
-        "verdict": r.verdict,
-        "governing": {"check": gov.name, "clause": gov.clause, "ratio": _num(gov.ratio)},
+        "verdict": str(r.verdict),
+        "governing": governing_json(gov),
         "checks": [check_json(c) for c in r.checks],
         "flags": [{"clause": f.clause, "message": f.message, "severity": f.severity} for f in r.flags],
     }
 
 
 def check_json(c: Check) -> dict[str, Any]:
-    return {"id": c.id, "name": c.name, "clause": c.clause, "demand": _num(c.demand), "capacity": _num(c.capacity),
-            "unit": c.unit, "ratio": _num(c.ratio), "passed": c.passed,
-            "station_in": None if c.station is None else _num(c.station, 2)}
+    return {"id": c.id, "name": c.name, "clause": c.clause, "authority": str(c.authority), "level": str(c.level),
+            "demand": _num(c.demand), "capacity": _num(c.capacity), "unit": c.unit, "ratio": _num(c.ratio),
+            "passed": c.passed, "station_in": None if c.station is None else _num(c.station, 2)}
+
+
+def governing_json(c: Check) -> dict[str, Any]:
+    """The check that decides a verdict, for JSON records."""
+    return {"id": c.id, "check": c.name, "clause": c.clause, "authority": str(c.authority), "level": str(c.level),
+            "ratio": _num(c.ratio), "station_in": None if c.station is None else _num(c.station, 2)}
 
 
 def _value(v: float, unit: str) -> str:
@@ -67,11 +75,34 @@ def _value(v: float, unit: str) -> str:
     return f"{v:,.1f} {unit}"
 
 
+_WORD = {Level.PASS: "pass", Level.REVIEW: "REVIEW", Level.FAIL: "FAIL"}
+
+
 def check_line(c: Check) -> str:
+    """One check: level, ratio, name, demand vs capacity, [clause; authority]."""
     where = f" @ {format_ft_in(c.station)}" if c.station is not None else ""
-    word = "pass" if c.passed else "FAIL"
-    return (f"  {word:4}  {c.ratio:5.2f}  {c.name}{where}: {_value(c.demand, c.unit)} vs "
-            f"{_value(c.capacity, c.unit)}   [{c.clause}]")
+    return (f"  {_WORD[c.level]:6}  {c.ratio:5.2f}  {c.name}{where}: {_value(c.demand, c.unit)} vs "
+            f"{_value(c.capacity, c.unit)}   [{c.clause}; {c.authority}]")
+
+
+def check_lines(checks: tuple[Check, ...] | list[Check]) -> list[str]:
+    """Failures, then reviews, then the rest by ratio; detailing limits that are met come last,
+    grouped under their own heading (many are met exactly by design)."""
+    rank = {Level.FAIL: 0, Level.REVIEW: 1, Level.PASS: 2}
+    ordered = sorted(checks, key=lambda c: (rank[c.level], -c.ratio))
+    met_detailing = [c for c in ordered if c.level == Level.PASS and c.kind == "detailing"]
+    lines = [check_line(c) for c in ordered if c not in met_detailing]
+    if met_detailing:
+        lines.append("  detailing limits met:")
+        lines += [check_line(c) for c in met_detailing]
+    return lines
+
+
+def verdict_line(label: str, verdict: Level, gov: Check) -> str:
+    """The verdict with the check that decides it."""
+    where = f" at {format_ft_in(gov.station)}" if gov.station is not None else ""
+    return (f"  {label}: {verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f}{where}; "
+            f"{gov.clause}; {gov.authority})")
 
 
 def beam_text(r: BeamResult) -> str:
@@ -80,6 +111,8 @@ def beam_text(r: BeamResult) -> str:
     deck = "solid slab" if s.deck is None else (
         f"{format_inches(s.deck.rib_height)} deck '{s.deck.name}' {b.orientation}")
     k = r.critical
+    flex = r.check("flexure.composite")
+    g = int(np.argmin(np.abs(r.x - (flex.station if flex.station is not None else r.x[k]))))
     lines = [
         f"Beam {b.mark}: {b.shape.name}, span {format_ft_in(b.span)}, Fy {b.fy:g} ksi, {b.method}",
         f"  slab '{s.name}': {deck}, {format_inches(s.topping)} concrete above deck, "
@@ -90,15 +123,14 @@ def beam_text(r: BeamResult) -> str:
         f"sum Qn {r.sum_qn_left:.0f} / {r.sum_qn_right:.0f} kips left/right of max moment",
         f"  b_eff {format_ft_in(r.b_eff)}, composite {r.composite_ratio:.0%}, PNA in {r.pna}; "
         f"I_LB {r.i_lb:,.0f} in4, I_equiv {r.i_equiv:,.0f} in4",
-        f"  Mu {r.mu[k] / 12:,.0f} kip-ft, phi Mn {PHI_B * r.mn[k] / 12:,.0f} kip-ft; "
-        f"Ma {r.ma[k] / 12:,.0f} kip-ft, Mn/Omega {r.mn[k] / OMEGA_B / 12:,.0f} kip-ft (at {format_ft_in(r.x[k])})",
+        f"  governing flexure at {format_ft_in(r.x[g])}: Mu {r.mu[g] / 12:,.0f} kip-ft, phi Mn {PHI_B * r.mn[g] / 12:,.0f} "
+        f"kip-ft; Ma {r.ma[g] / 12:,.0f} kip-ft, Mn/Omega {r.mn[g] / OMEGA_B / 12:,.0f} kip-ft",
         "  checks (ratio = demand / capacity):",
     ]
-    lines += [check_line(c) for c in sorted(r.checks, key=lambda c: -c.ratio)]
+    lines += check_lines(r.checks)
     for f in r.flags:
         lines.append(f"  note  [{f.clause}] {f.message}")
-    gov = r.governing
-    lines.append(f"  verdict: {r.verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f})")
+    lines.append(verdict_line("verdict (as designed)", r.verdict, r.governing))
     return "\n".join(lines)
 
 

@@ -33,7 +33,7 @@ def assert_restores_and_minimal(beam, designed, findings, repair):
         fewer = repair.added.copy()
         fewer[k] -= 1
         less = tuple(Finding("added", rib=int(j) + 1, count=int(n)) for j, n in enumerate(fewer) if n)
-        assert evaluate_as_built(beam, designed, findings + less).verdict == "fail", f"rib {k + 1} not needed"
+        assert evaluate_as_built(beam, designed, findings + less).verdict != "pass", f"rib {k + 1} not needed"
 
 
 def test_composite_shortfall_repaired_with_the_fewest_studs():
