@@ -13,10 +13,11 @@ from dataclasses import dataclass
 import numpy as np
 
 from engine.codes.aisc360_22.i1_materials import E_STEEL
-from engine.codes.aisc360_22.i3_composite import equivalent_inertia, lower_bound_inertia, pna_label, slip_capacity_exempt
+from engine.codes.aisc360_22.i3_composite import equivalent_inertia, lower_bound_inertia, pna_label
 from engine.codes.practice import MIN_COMPOSITE
 from engine.finished.basis import FinishedBasis, available_strength, composite_strength, finished_basis
 from engine.finished.slab_force import StudGroups, slab_force
+from engine.finished.slip import slip_results, slip_sides
 from engine.mechanics.statics import deflection_rows
 from engine.model.inputs import BeamInput, Method
 from engine.model.results import Authority, Check, Flag, Level, verdict_of
@@ -160,9 +161,11 @@ def evaluate_finished(beam: BeamInput, groups: StudGroups, detailing: tuple[Chec
               "AISC 360-22 Commentary I3.2 (Eq. C-I3-3 not used below 25 %)",
               MIN_COMPOSITE, composite_ratio, "ratio", kind="detailing", authority=Authority.COMMENTARY),
     ]
+    sides = slip_sides(beam, basis, k, demand, (float(left[k]), float(right[k])))
+    slip_checks, slip_flags = slip_results(beam, sides, float(demand[k]), float(x[k]))
+    checks += slip_checks
     checks += detailing
-    flags = list(detailing_flags)
-    flags += _ductility_flags(beam, composite_ratio, groups)
+    flags = list(detailing_flags) + slip_flags
     if beam.web_openings:
         flags.append(Flag("AISC Design Guide 2", "web openings are not checked: strength and deflection here assume "
                           "a solid web", severity="not-checked"))
@@ -188,14 +191,3 @@ def _service_deflections(basis: FinishedBasis, ei: float) -> tuple[float, float]
         return 0.0, 0.0
     y = deflection_rows(basis.x, basis.service / ei).max(axis=1)
     return (float(y[0]) if basis.loads.live else 0.0), float(y[1])
-
-
-def _ductility_flags(beam: BeamInput, composite_ratio: float, groups: StudGroups) -> list[Flag]:
-    """AISC 360-22 I3.2d slip capacity: flagged unless a Commentary exemption applies
-    (span <= 30 ft, >= 50% composite, or average stud strength >= 16 kip/ft)."""
-    per_ft = float(groups.strength.sum()) / (beam.span / 12.0)
-    if slip_capacity_exempt(beam.span, composite_ratio, per_ft):
-        return []
-    return [Flag("AISC 360-22 I3.2d, Commentary", "slip capacity not checked: span over 30 ft, composite under "
-                 f"50% and {per_ft:.1f} kip/ft of studs (< 16): the engineer of record must consider connector "
-                 "ductility", severity="not-checked")]

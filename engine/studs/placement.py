@@ -25,6 +25,7 @@ from engine.codes.aisc360_22.i3_composite import plastic_moment
 from engine.codes.practice import MIN_COMPOSITE
 from engine.studs.detailing import spacing_limits
 from engine.finished.basis import available_strength, composite_strength, finished_basis, method_strength, moment_envelope
+from engine.finished.slip import slip_floor
 from engine.model.inputs import BeamInput, Method
 
 _TOL = 1e-9
@@ -73,7 +74,10 @@ def slab_force_needed(beam: BeamInput) -> Need:
     short = demand > cap[-1] * (1.0 + _TOL)
     peak = np.flatnonzero(demand >= top * (1.0 - _TOL)) if top > 0.0 else np.array([x.size // 2])
     x_max = 0.5 * float(x[peak[0]] + x[peak[-1]])
-    c_req[peak] = np.maximum(c_req[peak], MIN_COMPOSITE * lim.cf)
+    floor = MIN_COMPOSITE * lim.cf
+    if beam.studs.count is None:  # a design layout also meets the slip-capacity rules (I3.2d.1)
+        floor = max(floor, slip_floor(beam, basis, basis.demand.mu if beam.method == Method.LRFD else basis.demand.ma))
+    c_req[peak] = np.maximum(c_req[peak], floor)
     return Need(x, demand, c_req, short, x_max)
 
 

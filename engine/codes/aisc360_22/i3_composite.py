@@ -72,14 +72,50 @@ def stress_block_force(fc, width, depth):
     return 0.85 * np.asarray(fc, dtype=float) * np.asarray(width, dtype=float) * np.asarray(depth, dtype=float)
 
 
-def slip_capacity_exempt(span, composite_ratio, studs_per_ft) -> bool:
-    """Whether the studs' slip capacity needs no further consideration: span (in) of 30 ft or
-    less, composite ratio sum Q_n / C_f of 0.5 or more, or studs_per_ft (sum Q_n per foot of
-    span, kip/ft) of 16 or more.
+SLIP_CAPACITY = 0.25  # in, S_u of headed studs, AISC 360-22 Commentary I3.2d (as in AISC Design Examples v16.0 Ex. I.1)
+SLIP_EXEMPT_SPAN = 360.0  # in (30 ft)
+SLIP_EXEMPT_COMPOSITE = 0.5
+SLIP_EXEMPT_KIP_PER_FT = 16.0
 
-    AISC 360-22 I3.2d, Commentary (connector ductility).
+
+def slip_exemption(span: float, side_ratio: float, side_kip_per_ft: float) -> str | None:
+    """Which Commentary condition spares one shear span a slip-capacity evaluation, or None:
+    span (in) of 30 ft or less; sum Q_n / C_f of that shear span 0.5 or more; or its average
+    stud strength, sum Q_n over the shear span length, 16 kip/ft or more. The Commentary states
+    them for uniformly loaded beams (or equally spaced equal point loads): the caller decides that.
+
+    AISC 360-22 I3.2d.1 ("the slip capacity ... shall be considered"), Commentary I3.2d.
     """
-    return span <= 360.0 or composite_ratio >= 0.5 or studs_per_ft >= 16.0
+    if span <= SLIP_EXEMPT_SPAN:
+        return "span 30 ft or less"
+    if side_ratio >= SLIP_EXEMPT_COMPOSITE:
+        return f"{side_ratio:.0%} composite (50 % or more)"
+    if side_kip_per_ft >= SLIP_EXEMPT_KIP_PER_FT:
+        return f"{side_kip_per_ft:.1f} kip/ft of studs over the shear span (16 or more)"
+    return None
+
+
+def slip_coefficients(es_is: float, es_as: float, ec_ic: float, ec_ac: float, e: float) -> tuple[float, float]:
+    """K1 (1/kip-in) and K2 (1/kip) of the interface slip strain K1 M - K2 C of a partially
+    composite section: steel (E_s I_s, E_s A_s) and concrete (E_c I_c, E_c A_c) bending together,
+    their centroids `e` (in) apart: K1 = e / (E_s I_s + E_c I_c); K2 = e^2 / (E_s I_s + E_c I_c)
+    + 1 / (E_s A_s) + 1 / (E_c A_c).
+
+    AISC 360-22 Commentary I3.2d (analytical slip demand; DE16 Ex. I.1: K1 = 493e-9, K2 = 10.6e-6).
+    """
+    stiffness = es_is + ec_ic
+    return e / stiffness, e * e / stiffness + 1.0 / es_as + 1.0 / ec_ac
+
+
+def slip_limited_moment(k1: float, k2: float, force_integral: float, shape_integral: float,
+                        su: float = SLIP_CAPACITY) -> float:
+    """Nominal moment Mn,sc (kip-in) at which the slip at the support reaches S_u: the slip strain
+    K1 M(x) - K2 C(x) integrated over the shear span equals S_u, with M(x) = Mn,sc m(x):
+    Mn,sc = (S_u + K2 integral C dx) / (K1 integral m dx) (kip-in^2 and in).
+
+    AISC 360-22 Commentary I3.2d (analytical method).
+    """
+    return (su + k2 * force_integral) / (k1 * shape_integral)
 
 
 def parallel_rib_studs_across(w_r: float, d: float) -> int:

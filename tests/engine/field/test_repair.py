@@ -55,7 +55,9 @@ def test_composite_shortfall_repaired_with_the_fewest_studs():
     assert_restores_and_minimal(beam, designed, REPORT, repair)
 
 
-@pytest.mark.parametrize("shape, live", [("W16X31", 100.0), ("W18X35", 120.0)])
+# W16X31 at 95 psf (not 100): at 100 psf the 32 ft beam at 45 % composite falls 2 % short of the
+# AISC 360-22 Commentary I3.2d slip-capacity check as designed, and this test needs a beam that passes as designed
+@pytest.mark.parametrize("shape, live", [("W16X31", 95.0), ("W18X35", 120.0)])
 def test_flexure_shortfall_repaired_where_the_envelope_falls_short(shape, live):
     beam = make_beam(live, shape)
     designed = make_layout(beam, PATTERN)
