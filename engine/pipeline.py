@@ -3,12 +3,15 @@
 
 from __future__ import annotations
 
+from dataclasses import replace
+
 import numpy as np
 
+from engine.construction.evaluate import ConstructionResult, evaluate_construction
 from engine.field.as_built import AsBuiltResult
 from engine.field.repair import Repair
 from engine.finished.evaluate import BeamResult, evaluate_finished
-from engine.model.inputs import BeamInput
+from engine.model.inputs import BeamInput, PondedConcrete
 from engine.model.results import Check
 from engine.model.scope import check_scope
 from engine.studs.design import SHORTFALL_CLAUSE, design_layout
@@ -16,6 +19,19 @@ from engine.studs.detailing import DECK_ANCHOR_CLAUSE, deck_checks
 from engine.studs.evaluate import evaluate_studs
 from engine.studs.layout import LayoutResult, StudLayout
 from engine.studs.sheet_data import Envelope, SheetData
+
+
+def as_poured(beam: BeamInput) -> tuple[BeamInput, ConstructionResult]:
+    """The beam as its slab is placed, and the construction stage: where a level screed ponds
+    concrete into the sag, that concrete (its distribution at the ordered camber) joins the
+    pre-composite dead load of the finished beam, its studs and its as-built evaluation.
+    Construction stage per engine.construction.evaluate (AISC 360-22 I3.1b)."""
+    construction = evaluate_construction(beam)
+    if construction.ponded_weight <= 0.0:
+        return beam, construction
+    q = construction.ponded_line_load
+    ponded = PondedConcrete(tuple(float(v) for v in construction.x), tuple(float(v) for v in q))
+    return replace(beam, ponded=ponded), construction
 
 
 def evaluate_beam(beam: BeamInput) -> BeamResult:
@@ -29,7 +45,9 @@ def evaluate_beam(beam: BeamInput) -> BeamResult:
 def marks_sheet(job_name: str, beam: BeamInput, date: str, caution: str) -> tuple[SheetData, LayoutResult, Check]:
     """(sheet data, layout, composite flexure check) of one beam's stud marks: the layout of
     engine.studs.design evaluated with its own studs (AISC 360-22 I3.2a, I8.2c). The sheet lists
-    deck anchors and the shortfall itself, so those flags are not repeated in its notes."""
+    deck anchors and the shortfall itself, so those flags are not repeated in its notes. A level
+    screed's ponded concrete is part of the dead load the studs are laid out for (`as_poured`)."""
+    beam = as_poured(beam)[0]
     placed = design_layout(beam)
     result = evaluate_studs(beam, placed.layout.groups())
     flexure = result.check("flexure.composite")

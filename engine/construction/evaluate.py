@@ -125,6 +125,11 @@ class ConstructionResult:
         return float(self.run.ponded.sum())
 
     @property
+    def ponded_line_load(self) -> np.ndarray:
+        """Ponded concrete at the ordered camber as a line load along the span (kip/in at `x`)."""
+        return self.run.ponded_load.sum(axis=0)
+
+    @property
     def ponded_volume(self) -> float:
         """Its volume (in^3)."""
         return self.ponded_weight / (self.beam.slab.concrete_pcf * KIP_PER_IN3_PER_PCF)

@@ -24,7 +24,8 @@ class StagedRun:
     live: deflection under the step's construction live load while it acts (in);
     dead_moment, live_moment: their moments (kip-in); dead_shear, live_shear: V at x = 0 and
     x = span (kip), columns 0 and 1; stress: bottom-flange stress added by the lasting loads
-    (ksi, tension +); ponded: weight of concrete ponded beyond the nominal thickness (kip).
+    (ksi, tension +); ponded: weight of concrete ponded beyond the nominal thickness (kip);
+    ponded_load: that concrete as a line load along the span (kip/in at the stations).
     """
 
     dead: np.ndarray
@@ -35,6 +36,7 @@ class StagedRun:
     live_shear: np.ndarray
     stress: np.ndarray
     ponded: np.ndarray
+    ponded_load: np.ndarray
 
     @property
     def cumulative(self) -> np.ndarray:
@@ -99,13 +101,15 @@ def run_stages_at(plan: PourPlan, sections: Sections, cambers: tuple[float, ...]
     count, n, runs = len(plan.steps), x.size, len(cambers)
     dead, dead_moment, stress = np.zeros((runs, count, n)), np.zeros((runs, count, n)), np.zeros((runs, count, n))
     dead_shear, ponded = np.zeros((runs, count, 2)), np.zeros((runs, count))
+    ponded_load = np.zeros((runs, count, n))
     live, live_moment, live_shear = np.zeros((count, n)), np.zeros((count, n)), np.zeros((count, 2))
     shape = camber_shape(x, span)
     lift = np.asarray(cambers, dtype=float)[:, None] * shape
     so_far = np.zeros((runs, n))
     if earlier is not None and start > 0:
         for mine, theirs in ((dead, earlier.dead), (dead_moment, earlier.dead_moment), (stress, earlier.stress),
-                             (dead_shear, earlier.dead_shear), (ponded, earlier.ponded)):
+                             (dead_shear, earlier.dead_shear), (ponded, earlier.ponded),
+                             (ponded_load, earlier.ponded_load)):
             mine[:, :start] = theirs[:start]
         for mine, theirs in ((live, earlier.live), (live_moment, earlier.live_moment),
                              (live_shear, earlier.live_shear)):
@@ -132,6 +136,7 @@ def run_stages_at(plan: PourPlan, sections: Sections, cambers: tuple[float, ...]
             extra_shear, extra_moment = line_load_effects(x, extra)
             shear, moment = effects.dead_shear[s] + extra_shear, effects.dead_moment[s] + extra_moment
             ponded[:, s] = np.sum(0.5 * np.diff(x) * (extra[:, :-1] + extra[:, 1:]), axis=1)
+            ponded_load[:, s] = extra
             dead_moment[:, s] = moment
             dead_shear[:, s, 0], dead_shear[:, s, 1] = shear[:, 0], shear[:, -1]
         else:
@@ -140,7 +145,8 @@ def run_stages_at(plan: PourPlan, sections: Sections, cambers: tuple[float, ...]
         so_far = so_far + y
     stress[:, first:] = dead_moment[:, first:] * sections.stress_per_moment[first:]
     return tuple(StagedRun(dead=dead[i], live=live, dead_moment=dead_moment[i], live_moment=live_moment,
-                           dead_shear=dead_shear[i], live_shear=live_shear, stress=stress[i], ponded=ponded[i])
+                           dead_shear=dead_shear[i], live_shear=live_shear, stress=stress[i], ponded=ponded[i],
+                           ponded_load=ponded_load[i])
                  for i in range(runs))
 
 

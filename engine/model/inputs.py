@@ -131,6 +131,20 @@ class Finding:
 
 
 @dataclass(frozen=True, slots=True)
+class PondedConcrete:
+    """Concrete a level screed ponds into the sag of the bare steel, beyond the nominal slab:
+    a line load q (kip/in) at stations x (in), found by the construction stage."""
+
+    x: tuple[float, ...]
+    q: tuple[float, ...]
+
+    @property
+    def weight(self) -> float:
+        """Its total weight (kip), trapezoid rule."""
+        return sum(0.5 * (self.q[i] + self.q[i + 1]) * (self.x[i + 1] - self.x[i]) for i in range(len(self.x) - 1))
+
+
+@dataclass(frozen=True, slots=True)
 class Limits:
     """Serviceability limits as span / ratio and whose rule each is: the defaults are the floor-member
     limits of IBC Table 1604.3 (live L/360 binding; its D + L limit takes the dead load of steel
@@ -171,6 +185,7 @@ class BeamInput:
     ribs: RibSettings = field(default_factory=RibSettings)
     findings: tuple[Finding, ...] = ()
     limits: Limits = field(default_factory=Limits)
+    ponded: PondedConcrete | None = None  # set by engine.pipeline for level-screeded beams
     n_stations: int = 401
     support: str = "simple"  # engine.model.scope.SUPPORTS; only "simple" is computed
     web_openings: bool = False

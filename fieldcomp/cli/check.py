@@ -19,16 +19,15 @@ def register(sub) -> None:
 def check_beam(beam, as_json: bool) -> tuple[str | None, str, str]:
     """(input error or None, the beam's verdict over the finished beam and the construction stage,
     its report: a JSON list item or text) for one beam; run in worker processes for large jobs."""
-    from engine.construction.evaluate import evaluate_construction
     from engine.model.results import worst
-    from engine.pipeline import evaluate_beam
+    from engine.pipeline import as_poured, evaluate_beam
     from fieldcomp.cli.parallel import json_item
     from fieldcomp.jobs.jobfile import JobFileError
     from fieldcomp.views.finished_report import beam_json, beam_text
     from fieldcomp.views.construction_report import construction_text, merge_into_check
 
     try:
-        c = evaluate_construction(beam)
+        beam, c = as_poured(beam)
     except (JobFileError, ValueError) as exc:
         return str(exc), "fail", ""
     r = evaluate_beam(beam)

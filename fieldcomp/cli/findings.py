@@ -28,6 +28,7 @@ def run(args: argparse.Namespace) -> int:
     from engine.field.as_built import FindingError, evaluate_as_built
     from engine.studs.design import design_layout
     from engine.field.repair import find_repair
+    from engine.pipeline import as_poured
     from fieldcomp.cli.common import load_inputs
     from fieldcomp.jobs.inspection_log import CsvImportError
     from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError
@@ -42,7 +43,7 @@ def run(args: argparse.Namespace) -> int:
         return fail_input(f"cannot save {args.job}: {exc.strerror or exc}")
     try:
         job, beams = load_inputs(args.job, args.beam)
-        beam = beams[0]
+        beam = as_poured(beams[0])[0]
         designed = design_layout(beam).layout
         try:
             before = evaluate_as_built(beam, designed)
@@ -74,8 +75,11 @@ def import_log(job_path: str, mark: str, csv_path: str) -> str:
     from fieldcomp.jobs.jobfile import load_job, save_job
     from fieldcomp.jobs.to_engine import to_engine
 
+    from engine.pipeline import as_poured
+
     loaded = load_job(job_path)
     _, (beam,) = load_inputs(job_path, mark)
+    beam = as_poured(beam)[0]
     rows = read_findings_csv(csv_path)
     job = loaded.job
     updated = job.model_copy(update={"beam": [

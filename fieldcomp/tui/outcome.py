@@ -90,14 +90,18 @@ def _part(fn: Callable[[], Any]) -> Part:
 
 
 def compute_outcome(beam: BeamInput, job_name: str = "", date: str = "") -> BeamOutcome:
-    """The first pass for one beam: finished beam, construction stage, layout, as built."""
-    from engine.construction.evaluate import evaluate_construction
+    """The first pass for one beam: construction stage, finished beam (with any ponded concrete
+    in its dead load, engine.pipeline.as_poured), layout, as built."""
     from engine.field.as_built import evaluate_as_built, finding_slot
+    from engine.pipeline import as_poured
     from engine.studs.design import design_layout
     from engine.studs.layout import deck_anchor_slots
 
+    poured = _part(lambda: as_poured(beam))
+    construction = Part(poured.value[1]) if poured.value is not None else poured
+    if poured.value is not None:
+        beam = poured.value[0]
     finished = _part(lambda: evaluate_beam(beam))
-    construction = _part(lambda: evaluate_construction(beam))
     layout = _part(lambda: design_layout(beam))
     anchors = deck_anchor_slots(beam, layout.value.layout) if layout.value is not None else None
     as_built, slots = NONE, ()

@@ -27,6 +27,7 @@ def beam_json(r: BeamResult) -> dict[str, Any]:
         "shape": b.shape.name,
         "span_in": _num(b.span),
         "method": b.method,
+        "ponded_dead_kips": _num(b.ponded.weight if b.ponded is not None else 0.0),
         "b_eff_in": _num(r.b_eff),
         "qn_per_stud_kips": _num(r.qn_per_stud),
         "studs": r.groups.total,
@@ -118,7 +119,9 @@ def beam_text(r: BeamResult) -> str:
         f"  slab '{s.name}': {deck}, {format_inches(s.topping)} concrete above deck, "
         f"{s.concrete_pcf:g} pcf, f'c {s.fc_ksi:g} ksi{' (lightweight)' if s.lightweight else ''}",
         f"  loads: SDL {b.superimposed_dead_psf:g} psf, live {b.live_psf:g} psf over "
-        f"{format_ft_in(b.tributary_width)}; {len(b.point_loads)} point load(s)",
+        f"{format_ft_in(b.tributary_width)}; {len(b.point_loads)} point load(s)"
+        + (f"; ponded concrete (level screed) {b.ponded.weight:.2f} kips in the pre-composite dead load"
+           if b.ponded is not None else ""),
         f"  studs: {r.groups.total} x {format_inches(b.studs.diameter)} dia, Qn {r.qn_per_stud:.1f} kips (weakest); "
         f"sum Qn {r.sum_qn_left:.0f} / {r.sum_qn_right:.0f} kips left/right of max moment",
         f"  b_eff {format_ft_in(r.b_eff)}, composite {r.composite_ratio:.0%}, PNA in {r.pna}; "
