@@ -141,6 +141,15 @@ class FinishedBasis:
     shear: ShearStrength
 
 
+def demand_stations(beam: BeamInput) -> np.ndarray:
+    """The evaluation grid: equal stations along the span plus every point-load position, so the
+    demand under each load is evaluated exactly (the moment peaks there). Statics of a simple span."""
+    x = stations(beam.span, beam.n_stations)
+    if not beam.point_loads:
+        return x
+    return np.union1d(x, [min(max(p.x, 0.0), beam.span) for p in beam.point_loads])
+
+
 @lru_cache(maxsize=64)
 def finished_basis(beam: BeamInput) -> FinishedBasis:
     """The stud-independent part of `evaluate_beam`, computed once per beam input (layout, as-built
@@ -148,7 +157,7 @@ def finished_basis(beam: BeamInput) -> FinishedBasis:
     ASCE/SEI 7-22 2.3.1 / 2.4.1 (demand); AISC 360-22 I3.1a, I3.2d.1 (limits), I2.1b (E_c),
     Commentary I3.2 (I_tr), G2.1 (shear)."""
     slab = beam.slab
-    x = stations(beam.span, beam.n_stations)
+    x = demand_stations(beam)
     loads = finished_loads(beam)
     rows, lrfd = _factors(loads)
     pre, post, live = len(loads.precomposite_dead), len(loads.postcomposite_dead), len(loads.live)

@@ -24,7 +24,7 @@ import numpy as np
 from engine.codes.aisc360_22.i3_composite import plastic_moment
 from engine.codes.practice import MIN_COMPOSITE
 from engine.studs.detailing import spacing_limits
-from engine.finished.basis import available_strength, composite_strength, finished_basis, method_strength, moment_envelope
+from engine.finished.basis import available_strength, composite_strength, finished_basis, method_strength
 from engine.finished.slip import slip_floor
 from engine.model.inputs import BeamInput, Method
 
@@ -50,20 +50,13 @@ def slab_force_needed(beam: BeamInput) -> Need:
 
     AISC 360-22 I3.2a (phi Mn of the plastic distribution for C), I3.2d.1; Mn grows with C, so
     C is found by inverting a table of phi Mn(C) (linear inverse; then raised where short).
-    The demand is the beam's `moment_demand` at its stations (`finished_basis`); the stations
-    of the point loads are added, so the force each needs is taken at the load itself (I8.2c).
+    The demand is the beam's `moment_demand` at its stations (`finished_basis`), which include
+    the point loads' stations, so the force each needs is taken at the load itself (I8.2c).
     """
     basis = finished_basis(beam)
     x, mu, ma = basis.x, basis.demand.mu, basis.demand.ma
     demand = mu if beam.method == Method.LRFD else ma
-    top = float(demand.max())  # the maximum on the evaluation grid (evaluate_beam's critical station)
-    if beam.point_loads:
-        px = np.array([p.x for p in beam.point_loads])
-        mu, ma = moment_envelope(beam, px, basis.loads)
-        x = np.concatenate((x, px))
-        demand = np.concatenate((demand, mu if beam.method == Method.LRFD else ma))
-        order = np.argsort(x, kind="stable")
-        x, demand = x[order], demand[order]
+    top = float(demand.max())  # the maximum on the evaluation grid (point-load stations included)
     lim = basis.limits
     grid, cap = _capacity_table(beam.shape, beam.fy, beam.slab.fc_ksi, lim.b_eff, beam.slab.total_thickness,
                                 lim.c_block, beam.method)
