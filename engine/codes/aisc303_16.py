@@ -12,6 +12,17 @@ COSP_BASE_TOLERANCE = 0.5  # in, members up to 50 ft (AISC 303 Section 6.4.4(a))
 COSP_BASE_LENGTH = 600.0  # in, 50 ft
 COSP_STEP_LENGTH = 120.0  # in, each 10 ft or fraction beyond 50 ft ...
 COSP_STEP_TOLERANCE = 0.125  # ... adds 1/8 in (AISC 303 Section 6.4.4(b))
+# A member received with at least 75 % of the specified camber needs no further cambering (AISC 303 Section 6.4.4).
+COSP_ACCEPTED_FRACTION = 0.75
+
+
+def delivered_band(camber: float, length: float) -> tuple[float, float]:
+    """Least and greatest camber (in) a member of `length` (in) ordered with `camber` may arrive
+    with: 75 % of the order (no further cambering is required above it) to the order plus the
+    over-camber tolerance. AISC 303 Code of Standard Practice Section 6.4.4."""
+    if camber <= 0.0:
+        return 0.0, 0.0
+    return COSP_ACCEPTED_FRACTION * camber, camber + camber_tolerance(length)
 
 
 def camber_tolerance(length: float) -> float:

@@ -21,6 +21,8 @@ CAMBER_MINIMUM = 0.75  # in
 # ("Specifying Camber", Modern Steel Construction, July 2006).
 CAMBER_MIN_LENGTH = 24.0 * 12.0  # in
 CAMBER_MIN_DEPTH = 14.0  # in
+# Webs 1/4 in or thinner are not cambered (they may cripple in the cambering press): common practice (from memory).
+CAMBER_MAX_THIN_WEB = 0.25  # in
 
 # Finished beam (engine.finished.evaluate, engine.studs.placement).
 # Least degree of composite sum Q_n / C_f: common practice, the lower limit of the I_equiv fit

@@ -1,19 +1,20 @@
 """The camber decision and what the floor looks like if the shop delivers it at either end of
-its tolerance.
+its delivered band, and the neighbouring cambers the engineer may choose instead.
 
 Camber is ordered as a share of the predicted pre-composite dead-load deflection, rounded down
 (common practice; AISC Design Examples v16.0 Chapter I orders 80%, rounded down to 1/4 in),
-within the job's thresholds. The shop may deliver up to the AISC 303 tolerance more (never less).
+within the job's thresholds. A beam may arrive with 75 % of the order (it needs no further
+cambering) up to the order plus the tolerance (AISC 303 Section 6.4.4).
 """
 
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 import numpy as np
 
-from engine.codes.aisc303_16 import camber_tolerance
+from engine.codes.aisc303_16 import camber_tolerance, delivered_band
 from engine.codes.aisc360_22.i3_composite import STUD_COVER_MIN
 from engine.model.inputs import BeamInput, CamberRules
 from engine.construction.pours import KIP_PER_IN3_PER_PCF, PourPlan
@@ -55,6 +56,8 @@ def _ruled_out(beam: BeamInput) -> str | None:
         return f"span {format_ft_in(beam.span)} under {format_ft_in(rules.min_length)}"
     if nominal_depth(beam) < rules.min_depth - 1e-9:
         return f"{nominal_depth(beam):g} in nominal depth under {format_inches(rules.min_depth)}"
+    if beam.shape.tw <= rules.thin_web + 1e-9:
+        return f"web {format_inches(beam.shape.tw)} thick, {format_inches(rules.thin_web)} or thinner (common practice)"
     return None
 
 
@@ -110,12 +113,13 @@ class CamberOutcome:
     stud_cover: float
     extra_concrete: float
     warnings: tuple[str, ...]
+    stiffness: str = "bare steel"
 
 
 def camber_outcome(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: StagedRun,
                    camber: float, case: str) -> CamberOutcome:
     """Outcome at midspan for a delivered camber.
-    Definitions of this tool; stud cover minimum AISC 360-22 I3.2c.1(c).
+    Definitions of this tool; stud cover minimum AISC 360-22 I3.2c.1(b).
 
     Constant thickness: the slab keeps its nominal thickness and its top follows the steel, so
     top = camber - deflection at midspan. Level: the concrete is struck off level with the
@@ -146,17 +150,69 @@ def camber_outcome(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: 
         warnings.append(f"stud heads stand {format_inches(-cover)} proud of the slab at midspan")
     elif cover < STUD_COVER_MIN - 1e-9:
         warnings.append(f"stud cover {format_inches(cover)} at midspan is under the 1/2\" minimum "
-                        "(AISC 360-22 I3.2c.1(c))")
+                        "(AISC 360-22 I3.2c.1(b))")
     return CamberOutcome(case, camber, final, top, thickness, cover, extra, tuple(warnings))
 
 
-def outcome_envelope(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: StagedRun,
-                     decision: CamberDecision) -> tuple[CamberOutcome, ...]:
-    """Outcomes at the camber as ordered (the -0 end of the tolerance) and at the + end;
-    a single outcome when no camber is ordered. AISC 303 Section 6.4.4."""
-    if decision.camber <= 0.0:
-        return (camber_outcome(beam, plan, at_zero, at_one, 0.0, "not cambered"),)
-    high = decision.camber + decision.tolerance
-    return (camber_outcome(beam, plan, at_zero, at_one, decision.camber, "as ordered (-0)"),
-            camber_outcome(beam, plan, at_zero, at_one, high, f"at +{format_inches(decision.tolerance)} tolerance"))
+Runs = tuple[StagedRun, StagedRun]  # the construction stage at cambers 0 and 1 (fields are linear in camber)
+BARE, CURED = "bare steel", "earlier concrete acting"
 
+
+def outcome_envelope(beam: BeamInput, plan: PourPlan, bare: Runs, cured: Runs | None,
+                     decision: CamberDecision) -> tuple[CamberOutcome, ...]:
+    """Outcomes at both ends of the delivered band, 75 % of the order to the order plus the
+    tolerance (AISC 303 Section 6.4.4), each on the bare steel and, where earlier pours can act,
+    with their concrete at its age (the two stiffness bounds); a single case when no camber is
+    ordered; and at the beam's measured camber when the job gives one."""
+    cases: list[tuple[float, str]]
+    if decision.camber <= 0.0:
+        cases = [(0.0, "not cambered")]
+    else:
+        low, high = delivered_band(decision.camber, beam.span)
+        cases = [(low, f"delivered at 75 % ({format_inches(low)})"),
+                 (high, f"delivered at +{format_inches(high - decision.camber)} ({format_inches(high)})")]
+    measured = beam.construction.measured_camber
+    if measured is not None:
+        cases.append((measured, f"measured {format_inches(measured)}"))
+    bounds = [(bare, BARE)] + ([(cured, CURED)] if cured is not None else [])
+    return tuple(replace(camber_outcome(beam, plan, runs[0], runs[1], camber, case), stiffness=label)
+                 for camber, case in cases for runs, label in bounds)
+
+
+@dataclass(frozen=True, slots=True)
+class CamberOption:
+    """A camber the engineer may order instead, and the floor it gives over its delivered band
+    and both stiffness bounds: least stud cover and slab thickness, top of slab range (in), most
+    extra concrete (in^3)."""
+
+    camber: float
+    label: str
+    least_cover: float
+    least_thickness: float
+    lowest_top: float
+    highest_top: float
+    most_extra_concrete: float
+
+
+def camber_options(beam: BeamInput, plan: PourPlan, bare: Runs, cured: Runs | None,
+                   decision: CamberDecision) -> tuple[CamberOption, ...]:
+    """The recommended camber beside one increment less, one more and none, each judged over its
+    delivered band (AISC 303 Section 6.4.4) on both stiffness bounds, so the engineer chooses."""
+    step = beam.construction.camber.increment
+    picks = [(decision.camber, "recommended"), (decision.camber - step, "one increment less"),
+             (decision.camber + step, "one increment more"), (0.0, "none")]
+    seen: set[float] = set()
+    out = []
+    for camber, label in picks:
+        camber = round(camber, 6)
+        if camber < 0.0 or camber in seen:
+            continue
+        seen.add(camber)
+        tol = camber_tolerance(beam.span) if camber > 0.0 else 0.0
+        trial = replace(decision, camber=camber, tolerance=tol)
+        results = outcome_envelope(replace(beam, construction=replace(beam.construction, measured_camber=None)),
+                                   plan, bare, cured, trial)
+        out.append(CamberOption(camber, label, min(o.stud_cover for o in results), min(o.thickness for o in results),
+                                min(o.top_of_slab for o in results), max(o.top_of_slab for o in results),
+                                max(o.extra_concrete for o in results)))
+    return tuple(out)

@@ -14,17 +14,25 @@ import numpy as np
 
 from engine.codes import asce7_22
 from engine.codes.aisc360_22.i1_materials import E_STEEL
-from engine.codes.aisc360_22.i3_composite import COMPOSITE_FC_SHARE
+from engine.codes.aisc360_22.i3_composite import COMPOSITE_FC_SHARE, STUD_COVER_MIN
 from engine.codes.aisc360_22.g_shear import ShearStrength, web_shear_strength
 from engine.construction.bare_steel import BareFlexure, Bracing, bracing, governing_segments
-from engine.construction.camber import CamberDecision, CamberOutcome, decide_camber, may_camber, outcome_envelope
+from engine.construction.camber import (
+    CamberDecision,
+    CamberOption,
+    CamberOutcome,
+    camber_options,
+    decide_camber,
+    may_camber,
+    outcome_envelope,
+)
 from engine.model.results import Authority, Check, Flag, Level, verdict_of
 from engine.model.deck import psf_to_kip_per_in
 from engine.model.inputs import BeamInput
 from engine.mechanics.ponding import first_mode_ratio
 from engine.construction.pours import (
     KIP_PER_IN3_PER_PCF, PourPlan, bare_sections, cured_sections, earlier_strength_ratio,
-    first_difference, pour_plan, side_widths,
+    pour_plan, side_widths,
 )
 from engine.construction.staging import StagedRun, blend, constant_thickness_total, run_stages_at, step_effects
 from engine.mechanics.statics import PondingInstabilityError
@@ -84,6 +92,7 @@ class ConstructionResult:
     no_ponding: np.ndarray  # pre-composite dead-load deflection placed at constant thickness
     camber: CamberDecision
     outcomes: tuple[CamberOutcome, ...]
+    options: tuple[CamberOption, ...]
     stages: tuple[StageSummary, ...]
     bracing: Bracing
     flexure: BareFlexure  # governing segment, job's method
@@ -182,10 +191,14 @@ def evaluate_construction(beam: BeamInput) -> ConstructionResult:
     decision = decide_camber(beam, delta0, max(delta0 - float(at_one.total[mid]), 0.0))
     run = blend(at_zero, at_one, decision.camber)
     stiff = cured_sections(beam, plan)
-    cured = run if stiff is None else run_stages_at(plan, stiff, (decision.camber,), stable, run,
-                                                    first_difference(bare, stiff), effects)[0]
+    cured_runs = None
+    if stiff is not None:  # earlier pours acting at their age: the stiff bound, at cambers 0 and 1
+        pair = run_stages_at(plan, stiff, (0.0, 1.0) if level and stable else (0.0,), stable, effects=effects)
+        cured_runs = (pair[0], pair[-1])
+    cured = run if cured_runs is None else blend(cured_runs[0], cured_runs[1], decision.camber)
     no_ponding = constant_thickness_total(plan, bare, effects) if level and stable else run.total
-    outcomes = outcome_envelope(beam, plan, at_zero, at_one, decision)
+    outcomes = outcome_envelope(beam, plan, (at_zero, at_one), cured_runs, decision)
+    options = camber_options(beam, plan, (at_zero, at_one), cured_runs, decision)
 
     braces = bracing(beam)
     method = beam.method
@@ -208,9 +221,10 @@ def evaluate_construction(beam: BeamInput) -> ConstructionResult:
 
     summaries = _summaries(beam, plan, run, cured, per_step)
     checks = _checks(beam, plan, run, decision, per_step[gov], plan.steps[gov].name, shear, vu, va, level, stable)
+    checks += _cover_checks(beam, outcomes, decision, level)
     flags += _flags(beam, plan, braces, stiff is not None, outcomes, summaries)
     return ConstructionResult(
-        beam=beam, plan=plan, run=run, cured=cured, no_ponding=no_ponding, camber=decision, outcomes=outcomes,
+        beam=beam, plan=plan, run=run, cured=cured, no_ponding=no_ponding, camber=decision, outcomes=outcomes, options=options,
         stages=summaries, bracing=braces, flexure=per_step[gov], flexure_step=gov, mu=mu, ma=ma, vu=vu, va=va,
         shear=shear, ponding_stable=stable, checks=tuple(checks), flags=tuple(flags),
     )
@@ -269,6 +283,29 @@ def _checks(beam: BeamInput, plan: PourPlan, run: StagedRun, decision: CamberDec
     return checks
 
 
+def _cover_checks(beam: BeamInput, outcomes: tuple[CamberOutcome, ...], decision: CamberDecision,
+                  level: bool) -> list[Check]:
+    """Stud cover and stud heads at midspan over the delivered band and both stiffness bounds (or
+    at the measured camber, when the job gives one: a go / no-go before the pour). Cover under the
+    1/2 in specified is a possible outcome for review; a stud head above the slab fails.
+    AISC 360-22 I3.2c.1(b); AISC 303 Section 6.4.4."""
+    if decision.camber <= 0.0 and not level and beam.construction.measured_camber is None:
+        return []  # the slab keeps its nominal thickness: the deck checks of the finished beam cover it
+    measured = [o for o in outcomes if o.case.startswith("measured")]
+    judged = measured or list(outcomes)
+    worst = min(judged, key=lambda o: o.thickness)
+    where = f"{worst.case}, {worst.stiffness}"
+    length = beam.studs.length
+    clause = "AISC 360-22 I3.2c.1(b); AISC 303 6.4.4 delivered camber"
+    return [
+        Check("construction.camber.stud_cover", f"slab over the studs at midspan, 1/2 in cover ({where})", clause,
+              length + STUD_COVER_MIN, worst.thickness, "in", station=beam.span / 2, kind="serviceability",
+              note="specified cover not met at this end of the band", advisory=True),
+        Check("construction.camber.stud_heads", f"stud heads inside the slab at midspan ({where})", clause,
+              length, worst.thickness, "in", station=beam.span / 2, kind="serviceability"),
+    ]
+
+
 def _flags(beam: BeamInput, plan: PourPlan, braces: Bracing, cured: bool, outcomes: tuple[CamberOutcome, ...],
            summaries: tuple[StageSummary, ...]) -> list[Flag]:
     flags = [Flag("AISC 360-22 F1, I3.1b", braces.note, severity="info")]
@@ -281,7 +318,11 @@ def _flags(beam: BeamInput, plan: PourPlan, braces: Bracing, cured: bool, outcom
         flags.append(Flag("ACI 209R-92 Eq. 2-1; AISC 360-22 I2.1b", "'cured' deflections let concrete of earlier "
                           "stages (1 day or older) act fully composite at its age: the stiff end of the range",
                           severity="info"))
-    for out in outcomes:
+    said: set[str] = set()
+    for out in outcomes:  # each case once, whichever stiffness bound showed it
         for text in out.warnings:
-            flags.append(Flag("AISC 303 6.4.4; AISC 360-22 I3.2c.1(c)", f"camber {out.case}: {text}"))
+            message = f"camber {out.case}: {text}"
+            if message not in said:
+                said.add(message)
+                flags.append(Flag("AISC 303 6.4.4; AISC 360-22 I3.2c.1(b)", message))
     return flags

@@ -33,7 +33,7 @@ FINDING_EFFECTS: dict[str, tuple[str, str]] = {
     "off-rib": ("not welded to the flange in a rib: no strength; R_g of the rib recounted without it",
                 "AISC 360-22 I8.2a, I3.2c.1 (studs welded through the deck in the ribs)"),
     "short": ("installed too short to qualify: no strength; kept in the rib's R_g count (conservative)",
-              "AISC 360-22 I3.2c.1(c) (1 1/2 in above the deck, 1/2 in cover) and I8.2 (length >= 4 d_sa)"),
+              "AISC 360-22 I3.2c.1(b) (1 1/2 in above the deck, 1/2 in cover) and I8.2 (length >= 4 d_sa)"),
     "weak-side": ("R_p = 0.6 (e_mid-ht < 2 in) for the studs concerned", "AISC 360-22 I8.2a"),
     "added": ("counts, with R_g of the rib's new stud count", "AISC 360-22 I8.2a"),
 }
@@ -228,10 +228,10 @@ def assess(beam: BeamInput, designed: StudLayout, state: RibState, designed_gap:
     flags = list(result.flags)
     if beam.slab.deck is not None and beam.orientation == "perpendicular":
         if designed_gap <= DECK_ANCHOR_SPACING_MAX + 1e-9:
-            checks.append(Check("deck.anchorage", "deck anchorage by studs as built (max 18 in)", "AISC 360-22 I3.2c.1",
+            checks.append(Check("deck.anchorage", "deck anchorage by studs as built (max 18 in)", "AISC 360-22 I3.2c.1(d)",
                                 gap, DECK_ANCHOR_SPACING_MAX, "in", station=start, kind="detailing"))
         elif gap > designed_gap + 1e-9:
-            flags.append(Flag("AISC 360-22 I3.2c.1", f"losses open a {gap:.1f} in gap between working studs from "
+            flags.append(Flag("AISC 360-22 I3.2c.1(d)", f"losses open a {gap:.1f} in gap between working studs from "
                               f"{format_ft_in(start)} (the design already relied on other deck anchors beyond "
                               f"{designed_gap:.1f} in): confirm the deck is anchored there"))
     return AsBuiltResult(beam, designed, state, layout, result, tuple(checks), tuple(flags), gap, designed_gap)

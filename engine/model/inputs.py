@@ -87,6 +87,7 @@ class CamberRules:
     minimum: float = practice.CAMBER_MINIMUM
     min_length: float = practice.CAMBER_MIN_LENGTH
     min_depth: float = practice.CAMBER_MIN_DEPTH
+    thin_web: float = practice.CAMBER_MAX_THIN_WEB  # webs this thin or thinner are not cambered
     do_not_camber: str | None = None  # reason, e.g. "moment-connected", "spandrel", "cantilevered"
 
 
@@ -104,6 +105,7 @@ class ConstructionSpec:
     dead_limit_max: float | None = practice.WET_DEFLECTION_MAX  # ... and not over 1 in (AISC Design Guide 3, via DE16 I.1)
     dead_limit_authority: Authority = Authority.DESIGN_GUIDE  # PROJECT when the job sets the limit
     live_limit_ratio: float | None = None  # construction live-load deflection limit; None: not checked
+    measured_camber: float | None = None  # camber measured in the shop or on site before the pour (in)
 
 
 @dataclass(frozen=True, slots=True)

@@ -43,7 +43,7 @@ def check_scope(beam: BeamInput) -> None:
                          "(AISC 360-22 I3.2c.1(a)); not computed")
     if deck is not None and beam.studs.diameter > DECK_STUD_DIAMETER_MAX:
         raise OutOfScopeError("diameter", f"stud diameter {beam.studs.diameter:g} in exceeds 3/4 in through deck "
-                         "(AISC 360-22 I8.1 / I3.2c.1(c)); not computed")
+                         "(AISC 360-22 I8.1 / I3.2c.1(b)); not computed")
     if beam.support != "simple":
         raise OutOfScopeError("support", f"a {beam.support} beam has negative moment over its supports (AISC 360-22 I3.2b); "
                          "fieldcomp computes simply supported beams only; not computed")

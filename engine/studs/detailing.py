@@ -26,7 +26,7 @@ from engine.model.results import Check, Flag
 from engine.model.inputs import BeamInput, DeckCase
 from engine.finished.slab_force import StudGroups
 
-DECK_ANCHOR_CLAUSE = "AISC 360-22 I3.2c.1"  # deck anchored to every support at 18 in max
+DECK_ANCHOR_CLAUSE = "AISC 360-22 I3.2c.1(d)"  # deck anchored to every support at 18 in max
 
 
 def deck_checks(beam: BeamInput) -> list[Check]:
@@ -36,17 +36,17 @@ def deck_checks(beam: BeamInput) -> list[Check]:
     if deck is not None:
         checks += [
             Check("deck.rib_height", "rib height", "AISC 360-22 I3.2c.1(a)", deck.rib_height, DECK_RIB_HEIGHT_MAX, "in", kind="detailing"),
-            Check("deck.rib_width", "average rib width (min 2 in)", "AISC 360-22 I3.2c.1(b)", DECK_RIB_WIDTH_MIN, deck.rib_average_width,
+            Check("deck.rib_width", "average rib width (min 2 in)", "AISC 360-22 I3.2c.1(a)", DECK_RIB_WIDTH_MIN, deck.rib_average_width,
                   "in", kind="detailing"),
-            Check("deck.stud_diameter", "stud diameter through deck", "AISC 360-22 I3.2c.1(c)", spec.diameter, DECK_STUD_DIAMETER_MAX, "in",
+            Check("deck.stud_diameter", "stud diameter through deck", "AISC 360-22 I3.2c.1(b), I8.1", spec.diameter, DECK_STUD_DIAMETER_MAX, "in",
                   kind="detailing"),
-            Check("deck.stud_projection", "stud projection above deck (min 1 1/2 in)", "AISC 360-22 I3.2c.1(c)",
+            Check("deck.stud_projection", "stud projection above deck (min 1 1/2 in)", "AISC 360-22 I3.2c.1(b)",
                   STUD_PROJECTION_MIN, spec.length - deck.rib_height, "in", kind="detailing"),
-            Check("deck.topping", "slab thickness above deck (min 2 in)", "AISC 360-22 I3.2c.1(d)", DECK_TOPPING_MIN, slab.topping, "in",
+            Check("deck.topping", "slab thickness above deck (min 2 in)", "AISC 360-22 I3.2c.1(c)", DECK_TOPPING_MIN, slab.topping, "in",
                   kind="detailing"),
         ]
     checks += [
-        Check("studs.cover", "concrete cover over stud head (min 1/2 in)", "AISC 360-22 I3.2c.1(c)",
+        Check("studs.cover", "concrete cover over stud head (min 1/2 in)", "AISC 360-22 I3.2c.1(b)",
               STUD_COVER_MIN, slab.total_thickness - spec.length, "in", kind="detailing"),
         Check("studs.length", "stud length (min 4 d)", "AISC 360-22 I8.2", stud_length_min(spec.diameter), spec.length, "in",
               kind="detailing"),

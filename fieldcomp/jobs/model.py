@@ -44,6 +44,7 @@ class CamberSettings(Strict):
     minimum: Length = Field(_written(practice.CAMBER_MINIMUM), description="No camber below this (common practice).")
     min_length: Length = Field(_written(practice.CAMBER_MIN_LENGTH, "ft"), description="Beams shorter than this are not cambered.")
     min_depth: Length = Field(_written(practice.CAMBER_MIN_DEPTH), description="Beams shallower than this are not cambered.")
+    thin_web: Length = Field(_written(practice.CAMBER_MAX_THIN_WEB), description="Beams whose web is this thin or thinner are not cambered (common practice 1/4 in).")
 
 
 class Project(Strict):
@@ -162,6 +163,7 @@ class Beam(Strict):
     construction_limits: ConstructionLimitsIn = Field(default_factory=ConstructionLimitsIn, description="Construction-stage deflection limits.")
     camber: Literal["auto", "none"] = Field("auto", description="\"none\" for beams that must not be cambered.")
     no_camber_reason: str | None = Field(None, max_length=80, description="Why not to camber (moment-connected, spandrel, cantilevered ...).")
+    measured_camber: Length | None = Field(None, description="Camber measured on the delivered beam (shop or field survey): the report gives cover and slab thickness at it, a go / no-go before the pour.")
     support: Literal["simple", "continuous", "cantilever"] = Field("simple", description="Support condition; only simple spans are computed, the others are refused (AISC 360-22 I3.2b).")
     web_openings: bool = Field(False, description="The beam has web openings (not checked: AISC Design Guide 2); reports flag it.")
     reference_end: str = Field("left end", max_length=40, description="Name of the end stations are measured from (e.g. \"west\", \"grid 3\").")

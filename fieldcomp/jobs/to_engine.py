@@ -42,7 +42,7 @@ def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInpu
             problems.append((f"slab '{s.id}' #{i + 1}, field 'topping'", "must be greater than zero"))
     cam = job.project.camber
     rules = CamberRules(cam.fraction, parse_length(cam.increment), parse_length(cam.minimum),
-                        parse_length(cam.min_length), parse_length(cam.min_depth))
+                        parse_length(cam.min_length), parse_length(cam.min_depth), parse_length(cam.thin_web))
     beams: list[BeamInput] = []
     for i, b in enumerate(job.beam):
         here = f"beam '{b.mark}' #{i + 1}"
@@ -99,7 +99,7 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         except ValueError as exc:
             raise _FieldProblemError("pour", str(exc)) from None
     camber = rules if b.camber == "auto" else CamberRules(
-        rules.fraction, rules.increment, rules.minimum, rules.min_length, rules.min_depth,
+        rules.fraction, rules.increment, rules.minimum, rules.min_length, rules.min_depth, rules.thin_web,
         do_not_camber=b.no_camber_reason or "marked not to be cambered")
     limits = b.construction_limits
     construction = ConstructionSpec(
@@ -110,7 +110,8 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         dead_limit_max=None if limits.dead_max is None else parse_length(limits.dead_max),
         dead_limit_authority=Authority.PROJECT if limits.model_fields_set & {"dead_ratio", "dead_max"}
         else Authority.DESIGN_GUIDE,
-        live_limit_ratio=limits.live_ratio)
+        live_limit_ratio=limits.live_ratio,
+        measured_camber=None if b.measured_camber is None else parse_length(b.measured_camber))
     keep_start, keep_end = parse_length(b.keep_out_start), parse_length(b.keep_out_end)
     if keep_start + keep_end >= span:
         raise _FieldProblemError("keep_out_start", "keep-out zones cover the whole span")

@@ -7,7 +7,7 @@ from typing import Any
 
 import numpy as np
 
-from engine.construction.camber import CamberOutcome
+from engine.construction.camber import CamberOption, CamberOutcome
 from engine.construction.evaluate import ConstructionResult, StageSummary
 from engine.finished.evaluate import governing_check
 from engine.model.results import verdict_of
@@ -44,10 +44,16 @@ def _stage_json(st: StageSummary) -> dict[str, Any]:
 
 
 def _outcome_json(o: CamberOutcome) -> dict[str, Any]:
-    return {"case": o.case, "camber_in": _num(o.camber), "wet_deflection_in": _num(o.deflection, 4),
+    return {"case": o.case, "stiffness": o.stiffness, "camber_in": _num(o.camber), "wet_deflection_in": _num(o.deflection, 4),
             "top_of_slab_in": _num(o.top_of_slab), "slab_thickness_in": _num(o.thickness),
             "stud_cover_in": _num(o.stud_cover), "extra_concrete_ft3": _num(o.extra_concrete / IN3_PER_FT3, 2),
             "warnings": list(o.warnings)}
+
+
+def _option_json(o: CamberOption) -> dict[str, Any]:
+    return {"choice": o.label, "camber_in": _num(o.camber), "least_stud_cover_in": _num(o.least_cover),
+            "least_slab_thickness_in": _num(o.least_thickness), "top_of_slab_low_in": _num(o.lowest_top),
+            "top_of_slab_high_in": _num(o.highest_top), "most_extra_concrete_ft3": _num(o.most_extra_concrete / IN3_PER_FT3, 2)}
 
 
 def _profile(cr: ConstructionResult) -> dict[str, list[float]]:
@@ -74,6 +80,7 @@ def construction_json(cr: ConstructionResult) -> dict[str, Any]:
         "camber_in": _num(cr.camber.camber), "camber_reason": cr.camber.reason,
         "camber_target_in": _num(cr.camber.target), "camber_tolerance_in": _num(cr.camber.tolerance),
         "camber_outcomes": [_outcome_json(o) for o in cr.outcomes],
+        "camber_options": [_option_json(o) for o in cr.options],
         "bracing": cr.bracing.note, "bare_lb_in": _num(s.lb, 2), "bare_cb": _num(s.cb),
         "bare_limit_state": s.limit_state,
         "bare_phi_mn_kipft": _num(s.phi_mn / 12.0, 1), "bare_mn_omega_kipft": _num(s.mn_omega / 12.0, 1),
@@ -103,12 +110,18 @@ def merge_into_check(record: dict[str, Any], cr: ConstructionResult, finished_ch
 
 
 def _outcome_rows(cr: ConstructionResult) -> list[str]:
-    rows = [f"    {'delivered camber':28} {'defl.':>8} {'top of slab':>12} {'slab':>8} {'stud cover':>11} "
-            f"{'extra concrete':>15}"]
+    rows = [f"    {'delivered camber (AISC 303 6.4.4)':34} {'stiffness':24} {'defl.':>8} {'top of slab':>12} "
+            f"{'slab':>8} {'stud cover':>11} {'extra concrete':>15}"]
     for o in cr.outcomes:
-        label = f"{_in(o.camber)} {o.case}" if o.camber > 0 else o.case
-        rows.append(f"    {label:28} {_in(o.deflection):>8} {_in(o.top_of_slab):>12} {_in(o.thickness):>8} "
-                    f"{_in(o.stud_cover):>11} {o.extra_concrete / IN3_PER_FT3:>11.1f} ft3")
+        rows.append(f"    {o.case:34} {o.stiffness:24} {_in(o.deflection):>8} {_in(o.top_of_slab):>12} "
+                    f"{_in(o.thickness):>8} {_in(o.stud_cover):>11} {o.extra_concrete / IN3_PER_FT3:>11.1f} ft3")
+    if len(cr.options) > 1:
+        rows.append(f"    {'camber choices (worst over band and stiffness)':58} {'top of slab':>21} {'slab':>8} "
+                    f"{'stud cover':>11} {'extra concrete':>15}")
+        for o in cr.options:
+            label = f"{_in(o.camber) if o.camber > 0 else 'no camber'} ({o.label})"
+            rows.append(f"    {label:58} {_in(o.lowest_top) + ' to ' + _in(o.highest_top):>21} "
+                        f"{_in(o.least_thickness):>8} {_in(o.least_cover):>11} {o.most_extra_concrete / IN3_PER_FT3:>11.1f} ft3")
     return rows
 
 
@@ -139,7 +152,7 @@ def construction_text(cr: ConstructionResult) -> str:
     if cr.ponded_weight != 0.0:
         lines.append(f"  level screed ponds {cr.ponded_volume / IN3_PER_FT3:.1f} ft3 beyond nominal: "
                      f"{cr.ponding_extra_psf:.1f} psf average, {cr.ponded_share:.1%} of the slab weight")
-    tol = f"; shop tolerance -0/+{_in(cr.camber.tolerance)} (AISC 303 6.4.4)" if cr.camber.camber > 0 else ""
+    tol = (f"; delivered from 75 % to +{_in(cr.camber.tolerance)} (AISC 303 6.4.4)" if cr.camber.camber > 0 else "")
     order = f"order {_in(cr.camber.camber)}" if cr.camber.camber > 0 else "none"
     lines.append(f"  camber: {order} ({cr.camber.reason}){tol}")
     lines += _outcome_rows(cr)
@@ -155,12 +168,13 @@ def construction_text(cr: ConstructionResult) -> str:
 def schedule_text(results: list[ConstructionResult]) -> str:
     """The camber schedule: one line per beam."""
     head = (f"{'mark':10} {'shape':9} {'span':>10} {'screed':9} {'wet':>8} {'no pond':>8} {'live':>7} "
-            f"{'camber':>7} {'tol.':>6} {'cover -0/+tol':>15}  reason")
+            f"{'camber':>7} {'tol.':>6} {'cover 75%/+tol':>15}  reason")
     rows = [head, "-" * len(head)]
     for cr in results:
         b, mid = cr.beam, cr.at_midspan
         c = cr.camber
-        covers = " / ".join(_in(o.stud_cover) for o in cr.outcomes)
+        bare = [o for o in cr.outcomes if o.stiffness == "bare steel" and not o.case.startswith("measured")]
+        covers = " / ".join(_in(o.stud_cover) for o in bare)
         rows.append(f"{b.mark:10} {b.shape.name:9} {format_ft_in(b.span):>10} "
                     f"{'level' if b.construction.screed == 'level' else 'constant':9} {_in(mid(cr.wet_deflection)):>8} "
                     f"{_in(mid(cr.no_ponding)):>8} {_in(mid(cr.live_deflection)):>7} "
@@ -181,7 +195,8 @@ def csv_rows(results: list[ConstructionResult]) -> list[list[Any]]:
     rows: list[list[Any]] = [["caution", CAUTION], list(CSV_HEADER)]
     for cr in results:
         j = construction_json(cr)
-        low, high = cr.outcomes[0], cr.outcomes[-1]
+        bare = [o for o in cr.outcomes if o.stiffness == "bare steel" and not o.case.startswith("measured")]
+        low, high = bare[0], bare[-1]
         warnings = "; ".join(f"{o.case}: {w}" for o in cr.outcomes for w in o.warnings)
         rows.append([
             csv_cell(j["mark"]), j["shape"], j["span_in"], csv_cell(format_ft_in(cr.beam.span)), j["screed"],

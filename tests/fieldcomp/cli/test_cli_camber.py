@@ -28,7 +28,7 @@ def camber_json(capsys, *args):
 
 def test_camber_json_has_every_key_for_every_beam(capsys):
     code, out = camber_json(capsys)
-    assert code == 0 and "engineer of record" in out["caution"]
+    assert code == 3 and "engineer of record" in out["caution"]  # 3B-102 needs review
     marks = [b.mark for b in parse_job(DEMO.read_text()).beam]
     assert [b["mark"] for b in out["beams"]] == marks
     for beam in out["beams"]:
@@ -53,17 +53,18 @@ def test_demo_stages_add_up_to_the_final_deflection(capsys):
 
 
 def test_camber_text_carries_caution_and_sources(capsys):
-    assert main(["camber", str(DEMO), "--beam", "3B-102"]) == 0
+    assert main(["camber", str(DEMO), "--beam", "3B-102"]) == 3  # 3: none fails, 3B-102 needs review (stud cover at the band's +1/2 in end)
     text = capsys.readouterr().out
     assert text.count("engineer of record") >= 2 and "AISC 303 6.4.4" in text and "3B-102" in text
     assert "3B-101" not in text
 
 
 def test_check_json_gains_the_construction_keys(capsys):
-    assert main(["check", str(DEMO), "--json"]) == 0
+    assert main(["check", str(DEMO), "--json"]) == 3  # 3: none fails, 3B-102 needs review (stud cover at the band's +1/2 in end)
     for beam in json.loads(capsys.readouterr().out)["beams"]:
         assert CAMBER_KEYS <= beam.keys()
-        assert beam["verdict"] == "pass" and beam["finished_verdict"] == "pass"
+        assert beam["finished_verdict"] == "pass"
+        assert beam["verdict"] == ("review" if beam["mark"] == "3B-102" else "pass")
         assert beam["checks"] and beam["construction_checks"]
 
 
@@ -83,7 +84,7 @@ def risky_job(tmp_path: Path) -> Path:
 
 def test_csv_escapes_user_text_and_keeps_numbers(tmp_path, capsys):
     out = tmp_path / "camber.csv"
-    assert main(["camber", str(risky_job(tmp_path)), "--csv", str(out)]) == 0
+    assert main(["camber", str(risky_job(tmp_path)), "--csv", str(out)]) in (0, 3)  # no beam fails
     assert "wrote" in capsys.readouterr().out
     rows = list(csv.reader(out.open(newline="")))
     assert rows[0][0] == "caution" and "engineer of record" in rows[0][1]
