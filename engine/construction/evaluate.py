@@ -9,6 +9,7 @@ engine.construction.bare_steel (F2 with the stated bracing), engine.construction
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import cast
 
 import numpy as np
 
@@ -109,12 +110,12 @@ class ConstructionResult:
     @property
     def live_deflection(self) -> np.ndarray:
         """Construction live-load deflection while it acts, largest over the steps (in)."""
-        return self.run.live.max(axis=0)
+        return cast(np.ndarray, self.run.live.max(axis=0))  # cast: ndarray.max is Any in numpy's stubs
 
     @property
     def total_deflection(self) -> np.ndarray:
         """Dead load so far plus construction live load, largest over the steps (in)."""
-        return (self.run.cumulative + self.run.live).max(axis=0)
+        return cast(np.ndarray, (self.run.cumulative + self.run.live).max(axis=0))  # cast: ndarray.max is Any in numpy's stubs
 
     def at_midspan(self, profile: np.ndarray) -> float:
         return float(profile[self.plan.midspan])

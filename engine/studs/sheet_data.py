@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from typing import cast
 
 import numpy as np
 
@@ -144,4 +145,5 @@ def anchor_ribs(sheet: SheetData) -> list[int]:
     lay = sheet.layout
     working = lay.count - _per_slot(sheet.lost, lay.x.size) + _per_slot(sheet.added, lay.x.size)
     shown = StudLayout(lay.x, working, lay.position, lay.qn, lay.max_count, lay.x_flip)
-    return lay.number[deck_anchor_slots(sheet.beam, shown)].tolist()
+    # cast: ndarray.tolist is Any in numpy's stubs
+    return cast(list[int], lay.number[deck_anchor_slots(sheet.beam, shown)].tolist())
