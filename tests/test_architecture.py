@@ -19,7 +19,7 @@ ROOT = Path(__file__).resolve().parents[1]
 
 def test_import_contracts_hold():
     out = subprocess.run([str(Path(sys.executable).with_name("lint-imports")), "--no-cache"], cwd=ROOT,
-                         capture_output=True, text=True)
+                         capture_output=True, text=True, check=False)
     assert out.returncode == 0, out.stdout + out.stderr
     assert "BROKEN" not in out.stdout
 

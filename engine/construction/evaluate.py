@@ -234,7 +234,8 @@ def _checks(beam: BeamInput, plan: PourPlan, run: StagedRun, decision: CamberDec
     s = flex.strength
     lb = "continuous" if s.lb == 0.0 else format_ft_in(s.lb)
     checks = [
-        Check("construction.flexure", f"bare steel flexure while wet ({'phi Mn' if lrfd else 'Mn/Omega'}, Lb {lb}, Cb {s.cb:.2f})",
+        Check("construction.flexure",
+              f"bare steel flexure while wet ({'phi Mn' if lrfd else 'Mn/Omega'}, Lb {lb}, Cb {s.cb:.2f})",
               f"{s.clause}; AISC 360-22 I3.1b", flex.demand, flex.available(beam.method), "kip-in",
               station=flex.station, note=f"step '{step_name}', {s.limit_state}"),
         Check("construction.shear", "bare steel web shear while wet", f"{shear.clause}; AISC 360-22 I3.1b",
@@ -244,12 +245,14 @@ def _checks(beam: BeamInput, plan: PourPlan, run: StagedRun, decision: CamberDec
     if con.dead_limit_max is not None:
         limit = min(limit, con.dead_limit_max)
     cap = f", max {format_inches(con.dead_limit_max)}" if con.dead_limit_max is not None else ""
-    checks.append(Check("construction.deflection.dead_less_camber", f"pre-composite dead-load deflection less camber (span/{con.dead_limit_ratio:g}{cap})",
+    checks.append(Check("construction.deflection.dead_less_camber",
+                        f"pre-composite dead-load deflection less camber (span/{con.dead_limit_ratio:g}{cap})",
                         "AISC Design Guide 3 limit as used in AISC Design Examples v16.0 Chapter I; net of camber",
                         max(decision.predicted - decision.camber, 0.0), limit, "in", station=plan.span / 2,
                         kind="serviceability"))
     if con.live_limit_ratio is not None:
-        checks.append(Check("construction.deflection.live", f"construction live-load deflection (span/{con.live_limit_ratio:g})", "limit set by the job",
+        checks.append(Check("construction.deflection.live", f"construction live-load deflection (span/{con.live_limit_ratio:g})",
+                            "limit set by the job",
                             float(run.live[:, plan.midspan].max()), beam.span / con.live_limit_ratio, "in",
                             station=plan.span / 2, kind="serviceability"))
     if level or not stable:

@@ -59,7 +59,7 @@ class RibState:
     weak: np.ndarray
     added: np.ndarray
 
-    def with_added(self, studs: np.ndarray) -> "RibState":
+    def with_added(self, studs: np.ndarray) -> RibState:
         """The same state with `studs` more working studs per slot (on the side as designed)."""
         return RibState(self.in_rib + studs, self.effective + studs, self.weak, self.added + studs)
 
@@ -150,7 +150,8 @@ def slot_strength(beam: BeamInput, designed: StudLayout, state: RibState) -> np.
     q_weak = stud_qn(beam, state.in_rib, "weak")
     strength = (state.effective - state.weak) * q_side + state.weak * q_weak
     untouched = (state.in_rib == designed.count) & (state.effective == designed.count) & (state.weak == 0)
-    return cast(np.ndarray, np.where(untouched, designed.count * designed.qn, strength))  # cast: numpy's stubs type arithmetic on np.ndarray as Any
+    # cast: numpy's stubs type arithmetic on np.ndarray as Any
+    return cast(np.ndarray, np.where(untouched, designed.count * designed.qn, strength))
 
 
 def state_layout(beam: BeamInput, designed: StudLayout, state: RibState) -> StudLayout:

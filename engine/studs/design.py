@@ -54,8 +54,8 @@ def design_layout(beam: BeamInput, suggest: bool = True) -> LayoutResult:
     checks, flags = spacing_checks(beam, groups)
     if total is None:
         required = float(need.c_req.max())
-        checks.append(Check("studs.slab_force", "studs develop the slab force phi Mn >= Mu needs, each side", "AISC 360-22 I3.2d.1, I8.2c",
-                            required, min(provided), "kip", station=need.x_max, kind="detailing"))
+        checks.append(Check("studs.slab_force", "studs develop the slab force phi Mn >= Mu needs, each side",
+                            "AISC 360-22 I3.2d.1, I8.2c", required, min(provided), "kip", station=need.x_max, kind="detailing"))
     else:
         required = 0.5 * total * float(slots.per_slot[1])
         checks.append(Check("studs.count_placed", "studs placed vs count on the drawings", "AISC 360-22 I8.2c, I8.2d",

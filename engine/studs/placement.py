@@ -121,8 +121,8 @@ def level_arrangement(cap: np.ndarray, per_slot: np.ndarray, need: np.ndarray) -
         low, high = np.minimum(level, cap), np.minimum(level + 1, cap)
 
         def arrangement(u: int) -> np.ndarray:
-            # cast: np.minimum (low, high) is Any in numpy's stubs
-            return cast(np.ndarray, np.where(order < u, high, low))
+            # cast: np.minimum (low, high) is Any in numpy's stubs; B023: it is called only within this iteration
+            return cast(np.ndarray, np.where(order < u, high, low))  # noqa: B023
 
         if _meets(per_slot[arrangement(0)], need):
             return arrangement(0)

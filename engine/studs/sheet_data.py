@@ -110,8 +110,8 @@ def mark_rows(sheet: SheetData) -> list[MarkRow]:
     rows = []
     for i in np.flatnonzero((lay.count > 0) | (added > 0)):
         qn = float(lay.qn[i]) if lay.count[i] > 0 else float(layout_qn(sheet.beam, added[i:i + 1], lay.position[i])[0])
-        rows.append(MarkRow(int(lay.number[i]), float(lay.x[i]), format_ft_in(float(printed_station(sheet.beam, lay.x[i]))), int(lay.count[i]),
-                            int(lost[i]), int(added[i]), side_text(sheet.beam, str(sides[i])), qn))
+        rows.append(MarkRow(int(lay.number[i]), float(lay.x[i]), format_ft_in(float(printed_station(sheet.beam, lay.x[i]))),
+                            int(lay.count[i]), int(lost[i]), int(added[i]), side_text(sheet.beam, str(sides[i])), qn))
     return rows
 
 

@@ -47,10 +47,7 @@ def emid_ht(w_mid: npt.ArrayLike, offset: npt.ArrayLike, d: npt.ArrayLike, posit
     unknown = ({words.item()} if words.ndim == 0 else set(np.unique(words).tolist())) - set(POSITION_SIGN)
     if unknown:
         raise ValueError(f"stud position {sorted(unknown)} must be one of {sorted(POSITION_SIGN)}")
-    if words.ndim == 0:
-        sign = POSITION_SIGN[words.item()]
-    else:
-        sign = np.vectorize(POSITION_SIGN.__getitem__, otypes=[float])(words)
+    sign = POSITION_SIGN[words.item()] if words.ndim == 0 else np.vectorize(POSITION_SIGN.__getitem__, otypes=[float])(words)
     e = np.asarray(w_mid, dtype=float) / 2.0 + sign * np.asarray(offset, dtype=float) - np.asarray(d, dtype=float) / 2.0
     if (e < 0.0).any():
         raise ValueError(
