@@ -1,6 +1,7 @@
 """The house rules that a tool can hold: layer contracts (import-linter, configured in
-pyproject.toml), no import cycles between modules (imports inside functions count), and an engine
-that loads none of the edge packages."""
+pyproject.toml), no import cycles between modules (imports inside functions count), an engine
+that loads none of the edge packages, and clean `ruff check` and strict `mypy` runs (both
+configured in pyproject.toml)."""
 
 from __future__ import annotations
 
@@ -19,9 +20,27 @@ ROOT = Path(__file__).resolve().parents[1]
 
 def test_import_contracts_hold():
     out = subprocess.run([str(Path(sys.executable).with_name("lint-imports")), "--no-cache"], cwd=ROOT,
-                         capture_output=True, text=True)
+                         capture_output=True, text=True, check=False)
     assert out.returncode == 0, out.stdout + out.stderr
     assert "BROKEN" not in out.stdout
+
+
+def _run_tool(name: str, *args: str) -> subprocess.CompletedProcess:
+    """Run a console script of this interpreter's environment from the repository root."""
+    return subprocess.run([str(Path(sys.executable).with_name(name)), *args], cwd=ROOT, capture_output=True, text=True,
+                          check=False)
+
+
+def test_ruff_check_is_clean():
+    """`ruff check engine tests tools` finds nothing (rules in pyproject.toml [tool.ruff]; fieldcomp/ is linted later)."""
+    out = _run_tool("ruff", "check", "engine", "tests", "tools")
+    assert out.returncode == 0, out.stdout + out.stderr
+
+
+def test_mypy_strict_is_clean():
+    """`mypy` over engine/ finds nothing (strict; files and options in pyproject.toml [tool.mypy])."""
+    out = _run_tool("mypy")
+    assert out.returncode == 0, out.stdout + out.stderr
 
 
 def _cycles(graph) -> list[list[str]]:

@@ -203,8 +203,8 @@ def camber_options(beam: BeamInput, plan: PourPlan, bare: Runs, cured: Runs | No
              (decision.camber + step, "one increment more"), (0.0, "none")]
     seen: set[float] = set()
     out = []
-    for camber, label in picks:
-        camber = round(camber, 6)
+    for pick, label in picks:
+        camber = round(pick, 6)
         if camber < 0.0 or camber in seen:
             continue
         seen.add(camber)

@@ -9,6 +9,7 @@ engine.construction.bare_steel (F2 with the stated bracing), engine.construction
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import cast
 
 import numpy as np
 
@@ -118,12 +119,12 @@ class ConstructionResult:
     @property
     def live_deflection(self) -> np.ndarray:
         """Construction live-load deflection while it acts, largest over the steps (in)."""
-        return self.run.live.max(axis=0)
+        return cast(np.ndarray, self.run.live.max(axis=0))  # cast: ndarray.max is Any in numpy's stubs
 
     @property
     def total_deflection(self) -> np.ndarray:
         """Dead load so far plus construction live load, largest over the steps (in)."""
-        return (self.run.cumulative + self.run.live).max(axis=0)
+        return cast(np.ndarray, (self.run.cumulative + self.run.live).max(axis=0))  # cast: ndarray.max is Any in numpy's stubs
 
     def at_midspan(self, profile: np.ndarray) -> float:
         return float(profile[self.plan.midspan])
@@ -136,7 +137,7 @@ class ConstructionResult:
     @property
     def ponded_line_load(self) -> np.ndarray:
         """Ponded concrete at the ordered camber as a line load along the span (kip/in at `x`)."""
-        return self.run.ponded_load.sum(axis=0)
+        return cast(np.ndarray, self.run.ponded_load.sum(axis=0))  # cast: numpy's stubs type .sum as Any
 
     @property
     def ponded_volume(self) -> float:
@@ -253,7 +254,8 @@ def _checks(beam: BeamInput, plan: PourPlan, run: StagedRun, decision: CamberDec
     s = flex.strength
     lb = "continuous" if s.lb == 0.0 else format_ft_in(s.lb)
     checks = [
-        Check("construction.flexure", f"bare steel flexure while wet ({'phi Mn' if lrfd else 'Mn/Omega'}, Lb {lb}, Cb {s.cb:.2f})",
+        Check("construction.flexure",
+              f"bare steel flexure while wet ({'phi Mn' if lrfd else 'Mn/Omega'}, Lb {lb}, Cb {s.cb:.2f})",
               f"{s.clause}; AISC 360-22 I3.1b", flex.demand, flex.available(beam.method), "kip-in",
               station=flex.station, note=f"step '{step_name}', {s.limit_state}"),
         Check("construction.shear", "bare steel web shear while wet", f"{shear.clause}; AISC 360-22 I3.1b",
@@ -263,13 +265,15 @@ def _checks(beam: BeamInput, plan: PourPlan, run: StagedRun, decision: CamberDec
     if con.dead_limit_max is not None:
         limit = min(limit, con.dead_limit_max)
     cap = f", max {format_inches(con.dead_limit_max)}" if con.dead_limit_max is not None else ""
-    checks.append(Check("construction.deflection.dead_less_camber", f"pre-composite dead-load deflection less camber (span/{con.dead_limit_ratio:g}{cap})",
+    checks.append(Check("construction.deflection.dead_less_camber",
+                        f"pre-composite dead-load deflection less camber (span/{con.dead_limit_ratio:g}{cap})",
                         ("limit set by the job (project); net of camber" if con.dead_limit_authority == Authority.PROJECT
                          else "AISC Design Guide 3 limit as used in AISC Design Examples v16.0 Chapter I; net of camber"),
                         max(decision.predicted - decision.camber, 0.0), limit, "in", station=plan.span / 2,
                         kind="serviceability", authority=con.dead_limit_authority))
     if con.live_limit_ratio is not None:
-        checks.append(Check("construction.deflection.live", f"construction live-load deflection (span/{con.live_limit_ratio:g})", "limit set by the job",
+        checks.append(Check("construction.deflection.live", f"construction live-load deflection (span/{con.live_limit_ratio:g})",
+                            "limit set by the job",
                             float(run.live[:, plan.midspan].max()), beam.span / con.live_limit_ratio, "in",
                             station=plan.span / 2, kind="serviceability", authority=Authority.PROJECT))
     if level or not stable:

@@ -11,6 +11,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from typing import cast
 
 import numpy as np
 
@@ -103,7 +104,7 @@ def _cell_share(x: np.ndarray, start: float, end: float) -> np.ndarray:
     station array of shares integrates (linear between stations) to the length end - start."""
     edges = np.concatenate(([x[0]], 0.5 * (x[:-1] + x[1:]), [x[-1]]))
     inside = np.clip(np.minimum(end, edges[1:]) - np.maximum(start, edges[:-1]), 0.0, None)
-    return inside / np.diff(edges)
+    return cast(np.ndarray, inside / np.diff(edges))  # cast: numpy's stubs type np.clip results as Any
 
 
 def check_stages(stages: tuple[PourStage, ...], span: float) -> None:

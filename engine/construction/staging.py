@@ -8,6 +8,7 @@ screeding ponds), so a run at camber c is `blend(run_at_0, run_at_1, c)`.
 from __future__ import annotations
 
 from dataclasses import dataclass, fields
+from typing import cast
 
 import numpy as np
 
@@ -46,7 +47,7 @@ class StagedRun:
     @property
     def total(self) -> np.ndarray:
         """Pre-composite dead-load deflection once every step is placed (in)."""
-        return self.dead.sum(axis=0)
+        return cast(np.ndarray, self.dead.sum(axis=0))  # cast: ndarray.sum is Any in numpy's stubs
 
 
 def blend(at_zero: StagedRun, at_one: StagedRun, t: float) -> StagedRun:
@@ -154,4 +155,5 @@ def constant_thickness_total(plan: PourPlan, sections: Sections, effects: StepEf
     """`run_stages(plan, sections, ponding=False).total`: every step at constant thickness.
     Deflection by double integration of M/EI(x) (engine.mechanics.statics); statics of a simple span."""
     effects = step_effects(plan) if effects is None else effects
-    return deflection_rows(plan.x, effects.dead_moment / sections.ei).sum(axis=0)
+    # cast: ndarray.sum is Any in numpy's stubs
+    return cast(np.ndarray, deflection_rows(plan.x, effects.dead_moment / sections.ei).sum(axis=0))

@@ -9,6 +9,7 @@ I8.2c; I_LB deflection; degree of composite; spacing), plus deck anchorage by st
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import cast
 
 import numpy as np
 
@@ -58,7 +59,7 @@ class RibState:
     weak: np.ndarray
     added: np.ndarray
 
-    def with_added(self, studs: np.ndarray) -> "RibState":
+    def with_added(self, studs: np.ndarray) -> RibState:
         """The same state with `studs` more working studs per slot (on the side as designed)."""
         return RibState(self.in_rib + studs, self.effective + studs, self.weak, self.added + studs)
 
@@ -149,7 +150,8 @@ def slot_strength(beam: BeamInput, designed: StudLayout, state: RibState) -> np.
     q_weak = stud_qn(beam, state.in_rib, "weak")
     strength = (state.effective - state.weak) * q_side + state.weak * q_weak
     untouched = (state.in_rib == designed.count) & (state.effective == designed.count) & (state.weak == 0)
-    return np.where(untouched, designed.count * designed.qn, strength)
+    # cast: numpy's stubs type arithmetic on np.ndarray as Any
+    return cast(np.ndarray, np.where(untouched, designed.count * designed.qn, strength))
 
 
 def state_layout(beam: BeamInput, designed: StudLayout, state: RibState) -> StudLayout:
@@ -202,7 +204,8 @@ class AsBuiltResult:
     def strength_ratio(self) -> np.ndarray:
         """Capacity over demand at every station (inf where there is no demand)."""
         cap, dem = self.result.capacity, self.result.demand
-        return np.divide(cap, dem, out=np.full(dem.size, np.inf), where=dem > 0.0)
+        # cast: numpy's stubs type ufunc results as Any
+        return cast(np.ndarray, np.divide(cap, dem, out=np.full(dem.size, np.inf), where=dem > 0.0))
 
     @property
     def min_strength_ratio(self) -> tuple[float, float]:
@@ -214,7 +217,8 @@ class AsBuiltResult:
     @property
     def lost(self) -> np.ndarray:
         """Studs per slot that no longer work: as designed plus added, less those working."""
-        return self.designed.count + self.state.added - self.state.effective
+        # cast: numpy's stubs type arithmetic on np.ndarray as Any
+        return cast(np.ndarray, self.designed.count + self.state.added - self.state.effective)
 
 
 def assess(beam: BeamInput, designed: StudLayout, state: RibState, designed_gap: float | None = None) -> AsBuiltResult:

@@ -12,8 +12,10 @@ the repair meets the bound it is proven the fewest possible.
 
 from __future__ import annotations
 
+from collections.abc import Callable
 from dataclasses import dataclass
 from itertools import combinations_with_replacement
+from typing import cast
 
 import numpy as np
 
@@ -73,7 +75,7 @@ def deficit_station(r: AsBuiltResult) -> float:
 
 
 def _room(r: AsBuiltResult, state: RibState) -> np.ndarray:
-    return np.maximum(r.designed.max_count - state.in_rib, 0)
+    return cast(np.ndarray, np.maximum(r.designed.max_count - state.in_rib, 0))  # cast: numpy's stubs type ufunc results as Any
 
 
 def _gains(r: AsBuiltResult, state: RibState) -> list[np.ndarray]:
@@ -224,8 +226,10 @@ def find_repair(before: AsBuiltResult, max_studs: int = 200) -> Repair:
         state = before.state.with_added(added)
         c, _, _ = slab_force(before.result.x, state_layout(beam, designed, state).groups(), before.result.cf)
         gaps = cover_gaps(before, state)
-        return bool(np.all((c > need) | (need < 0.0))) and gaps is not None and gaps.sum() == 0
+        # cast: need is not None here (it is None only when bound is, and then find_repair returned)
+        return bool(np.all((c > need) | (cast(np.ndarray, need) < 0.0))) and gaps is not None and gaps.sum() == 0
 
+    k: int | np.intp  # a slot index, from np.flatnonzero and then from `scored`
     added, current = cover, trial(cover)
     while not restored(current) and added.sum() < max_studs:
         room = _room(before, before.state.with_added(added))
@@ -243,14 +247,15 @@ def find_repair(before: AsBuiltResult, max_studs: int = 200) -> Repair:
     added = _prune(trial, restored, added, near)
     added = _trade(trial, restored, may_pass, before, added, bound, near)
     after = trial(added)
-    notes = ()
+    notes: tuple[str, ...] = ()
     if cover.sum() and np.isfinite(gap_limits(beam, before.designed_anchor_gap)[1]):
         notes = ("studs added to close deck-anchorage gaps (AISC 360-22 I3.2c.1, 18 in) may be replaced by "
                  "puddle welds or other anchors the project specifies, if the engineer of record accepts",)
     return Repair(added, after, bound, restored(after), (), notes)
 
 
-def _prune(trial, restored, added: np.ndarray, near: np.ndarray) -> np.ndarray:
+def _prune(trial: Callable[[np.ndarray], AsBuiltResult], restored: Callable[[AsBuiltResult], bool],
+           added: np.ndarray, near: np.ndarray) -> np.ndarray:
     """Take out, farthest from the deficit first, every added stud the beam passes without."""
     added = added.copy()
     for k in sorted(np.flatnonzero(added), key=lambda k: -near[k]):
@@ -262,7 +267,9 @@ def _prune(trial, restored, added: np.ndarray, near: np.ndarray) -> np.ndarray:
     return added
 
 
-def _trade(trial, restored, may_pass, before: AsBuiltResult, added: np.ndarray, bound: int, near: np.ndarray) -> np.ndarray:
+def _trade(trial: Callable[[np.ndarray], AsBuiltResult], restored: Callable[[AsBuiltResult], bool],
+           may_pass: Callable[[np.ndarray], bool], before: AsBuiltResult, added: np.ndarray, bound: int,
+           near: np.ndarray) -> np.ndarray:
     """Replace two added studs by one, nearest the deficit first, while the beam still passes."""
     improved = True
     while improved and int(added.sum()) > bound:

@@ -14,7 +14,7 @@ from engine.codes.aisc360_22.g_shear import ShearStrength, web_shear_strength
 from engine.codes.aisc360_22.f_flexure import OMEGA_B, PHI_B
 from engine.codes.aisc360_22.i1_materials import ec, modular_ratio
 from engine.codes.aisc360_22.i3_composite import b_eff as total_effective_width
-from engine.codes.aisc360_22.i3_composite import cf_force, plastic_moment, stress_block_force, transformed_inertia
+from engine.codes.aisc360_22.i3_composite import PlasticMoment, cf_force, plastic_moment, stress_block_force, transformed_inertia
 from engine.codes.asce7_22 import combinations
 from engine.finished.loads import FinishedLoads, finished_loads, load_factors
 from engine.mechanics.statics import factored_max_abs_shear, factored_moment, stations
@@ -99,7 +99,7 @@ def slab_limits(beam: BeamInput) -> SlabLimits:
     return SlabLimits(b_eff, ac, cf, min(cf, float(stress_block_force(slab.fc_ksi, b_eff, slab.topping))))
 
 
-def composite_strength(beam: BeamInput, limits: SlabLimits, c: np.ndarray):
+def composite_strength(beam: BeamInput, limits: SlabLimits, c: np.ndarray) -> PlasticMoment:
     """Plastic stress distribution for the slab force `c` (kip), the stress block in the topping.
 
     AISC 360-22 I3.2a; returns `engine.codes.aisc360_22.i3_composite.PlasticMoment`.

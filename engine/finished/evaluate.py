@@ -149,7 +149,8 @@ def evaluate_finished(beam: BeamInput, groups: StudGroups, detailing: tuple[Chec
         Check("shear.web", "shear, steel web", "AISC 360-22 I4.3, G2.1",
               vu if beam.method == Method.LRFD else va, phi_vn if beam.method == Method.LRFD else vn_omega, "kip"),
         Check("deflection.live", f"live-load deflection (span/{beam.limits.live_ratio:g})",
-              "AISC 360-22 Commentary I3.2 (I_LB); " + _limit_source(beam.limits.live_authority, "IBC Table 1604.3, floor members"),
+              "AISC 360-22 Commentary I3.2 (I_LB); "
+              + _limit_source(beam.limits.live_authority, "IBC Table 1604.3, floor members"),
               live_defl, beam.span / beam.limits.live_ratio, "in", kind="serviceability",
               authority=beam.limits.live_authority),
         Check("deflection.superimposed_live", f"superimposed dead + live deflection (span/{beam.limits.total_ratio:g})",

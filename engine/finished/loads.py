@@ -33,7 +33,7 @@ class FinishedLoads:
 def finished_loads(beam: BeamInput) -> FinishedLoads:
     """Line and point loads from the beam's area loads, self-weight and point loads."""
     width = beam.tributary_width
-    pre = [
+    pre: list[Load] = [
         UniformLoad(plf_to_kip_per_in(beam.shape.weight_plf)),
         UniformLoad(psf_to_kip_per_in(beam.slab.dead_weight_psf(), width)),
     ]

@@ -9,6 +9,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 from functools import lru_cache
+from typing import cast
 
 import numpy as np
 
@@ -33,7 +34,7 @@ class StudGroups:
     @property
     def strength(self) -> np.ndarray:
         """Strength of each group (kip)."""
-        return self.count * self.qn
+        return cast(np.ndarray, self.count * self.qn)  # cast: numpy's stubs type arithmetic on np.ndarray as Any
 
 
 def stud_qn(beam: BeamInput, studs_in_rib: np.ndarray, position: np.ndarray | str | None = None) -> np.ndarray:
@@ -50,7 +51,8 @@ def stud_qn(beam: BeamInput, studs_in_rib: np.ndarray, position: np.ndarray | st
         words = np.asarray("center")  # R_p does not depend on the position there
     index = np.minimum(n, 3).astype(int)
     if words.ndim == 0:
-        return _qn_by_count(beam.slab, beam.orientation, beam.studs, str(words))[index]
+        # cast: numpy's stubs type indexing as Any
+        return cast(np.ndarray, _qn_by_count(beam.slab, beam.orientation, beam.studs, str(words))[index])
     out = np.empty(np.broadcast_shapes(index.shape, words.shape))
     index, words = np.broadcast_arrays(index, words)
     for word in np.unique(words).tolist():

@@ -12,6 +12,7 @@ from __future__ import annotations
 
 from collections.abc import Sequence
 from functools import lru_cache
+from typing import cast
 
 import numpy as np
 
@@ -70,7 +71,8 @@ def _piece_moments(x: np.ndarray, span: float, start: np.ndarray, end: np.ndarra
     length = end - start
     r_left = w * length * (span - 0.5 * (start + end)) / span
     loaded = np.clip(x[None, :] - start[:, None], 0.0, length[:, None])
-    return r_left[:, None] * x[None, :] - w[:, None] * loaded * (x[None, :] - start[:, None] - 0.5 * loaded)
+    # cast: numpy's stubs type arithmetic on np.ndarray as Any
+    return cast(np.ndarray, r_left[:, None] * x[None, :] - w[:, None] * loaded * (x[None, :] - start[:, None] - 0.5 * loaded))
 
 
 def level_deflection(
@@ -84,7 +86,8 @@ def level_deflection(
     remainder (known less pieces) is added through its own deflection without ponding
     amplification: about 1e-4 of the deflection with 8 pieces (tests/engine/construction/test_construction_ponding.py).
     """
-    return level_deflections(x, span, loads, np.asarray(known, dtype=float)[None, :], k, ei)[0]
+    # cast: numpy's stubs type [0] (a row) as Any
+    return cast(np.ndarray, level_deflections(x, span, loads, np.asarray(known, dtype=float)[None, :], k, ei)[0])
 
 
 def level_deflections(

@@ -7,10 +7,12 @@ Loads act downward when positive. Deflection is positive downward, moment positi
 from __future__ import annotations
 
 import math
-from collections.abc import Iterable
+from collections.abc import Iterable, Sequence
 from dataclasses import dataclass
+from typing import Literal, cast, overload
 
 import numpy as np
+import numpy.typing as npt
 from engine.model.errors import FieldcompError
 
 _BLOCK = 13  # stations per block of the prefix product in ponded_deflection (speed only)
@@ -105,6 +107,16 @@ def reactions(span: float, loads: Iterable[Load]) -> tuple[float, float]:
     return left, right
 
 
+@overload
+def _effects(
+    x: np.ndarray, span: float, loads: tuple[Load, ...], right_side: bool | np.ndarray,
+    factors: np.ndarray | None = None, with_shear: Literal[True] = True,
+) -> tuple[np.ndarray, np.ndarray]: ...
+@overload
+def _effects(
+    x: np.ndarray, span: float, loads: tuple[Load, ...], right_side: bool | np.ndarray,
+    factors: np.ndarray | None = None, *, with_shear: Literal[False],
+) -> tuple[None, np.ndarray]: ...
 def _effects(
     x: np.ndarray, span: float, loads: tuple[Load, ...], right_side: bool | np.ndarray,
     factors: np.ndarray | None = None, with_shear: bool = True,
@@ -120,10 +132,10 @@ def _effects(
     uniform = [j for j, load in enumerate(loads) if isinstance(load, UniformLoad)]
     point = [j for j, load in enumerate(loads) if not isinstance(load, UniformLoad)]
     parts: dict[int, tuple[np.ndarray | None, np.ndarray]] = {}
-    if uniform:
-        ab = np.array([_span_of(loads[j], span) for j in uniform])
+    if uniform:  # cast: `uniform` indexes the UniformLoads, `point` the PointLoads
+        ab = np.array([_span_of(cast(UniformLoad, loads[j]), span) for j in uniform])
         a, b = ab[:, :1], ab[:, 1:]
-        w = np.array([loads[j].w for j in uniform])
+        w = np.array([cast(UniformLoad, loads[j]).w for j in uniform])
         w = (w[None, :] if factors is None else w * factors[:, uniform])[:, :, None]
         r_left = w * (b - a) * (span - 0.5 * (a + b)) / span
         loaded = np.minimum(np.maximum(x - a, 0.0), b - a)  # loaded length left of x
@@ -132,8 +144,8 @@ def _effects(
         m = r_left * x - wl * (x - a - 0.5 * loaded)
         parts.update((j, (None if v is None else v[:, i], m[:, i])) for i, j in enumerate(uniform))
     if point:
-        c = np.array([min(loads[j].x, span) for j in point])[:, None]
-        p = np.array([loads[j].p for j in point])
+        c = np.array([min(cast(PointLoad, loads[j]).x, span) for j in point])[:, None]
+        p = np.array([cast(PointLoad, loads[j]).p for j in point])
         p = (p[None, :] if factors is None else p * factors[:, point])[:, :, None]
         r_left = p * (span - c) / span
         past = np.where(right_side, x >= c, x > c) if isinstance(right_side, np.ndarray) else (
@@ -144,7 +156,7 @@ def _effects(
     for j in range(len(loads)):
         v, m = parts[j]
         if shear is not None:
-            shear += v
+            shear += cast(np.ndarray, v)  # cast: v is None only without shear
         moment += m
     return shear, moment
 
@@ -159,7 +171,7 @@ def shear_moment(x: np.ndarray, span: float, loads: Iterable[Load]) -> tuple[np.
     return shear[0], moment[0]
 
 
-def grouped_shear_moment(x: np.ndarray, span: float, groups) -> tuple[np.ndarray, np.ndarray]:
+def grouped_shear_moment(x: np.ndarray, span: float, groups: Sequence[Sequence[Load]]) -> tuple[np.ndarray, np.ndarray]:
     """V and M (kip, kip-in; one row per group of loads) at x, each row as `shear_moment` of that
     group alone. Statics of a simple beam (AISC Manual Table 3-23), superposed load by load."""
     loads = _check_loads(span, [load for group in groups for load in group])
@@ -172,7 +184,7 @@ def grouped_shear_moment(x: np.ndarray, span: float, groups) -> tuple[np.ndarray
     return shear, moment
 
 
-def factored_moment(x: np.ndarray, span: float, loads: Iterable[Load], factors) -> np.ndarray:
+def factored_moment(x: np.ndarray, span: float, loads: Iterable[Load], factors: npt.ArrayLike) -> np.ndarray:
     """M (kip-in, rows x stations) of load combinations: row r scales load j by factors[r][j].
 
     Statics of a simple beam (AISC Manual Table 3-23), superposed load by load.
@@ -190,7 +202,7 @@ def max_abs_shear(span: float, loads: Iterable[Load]) -> float:
     return float(factored_max_abs_shear(span, loads, None)[0])
 
 
-def factored_max_abs_shear(span: float, loads: Iterable[Load], factors) -> np.ndarray:
+def factored_max_abs_shear(span: float, loads: Iterable[Load], factors: npt.ArrayLike | None) -> np.ndarray:
     """Largest |V| (kip) of each load combination (row r scales load j by factors[r][j];
     None: the loads as given), both sides of every point load included.
 
@@ -204,7 +216,7 @@ def factored_max_abs_shear(span: float, loads: Iterable[Load], factors) -> np.nd
         points.extend(_span_of(load, span) if isinstance(load, UniformLoad) else (min(load.x, span),))
     xs = np.asarray(points + points)
     both, _ = _effects(xs, span, loads, np.arange(xs.size) >= len(points), factors)  # left, then right
-    return np.abs(both).max(axis=1)
+    return cast(np.ndarray, np.abs(both).max(axis=1))  # cast: np.abs and .max are Any in numpy's stubs
 
 
 def _check_grid(x: np.ndarray, span: float | None = None) -> np.ndarray:
@@ -259,7 +271,8 @@ def deflection_rows(x: np.ndarray, curvature: np.ndarray) -> np.ndarray:
     y = np.empty(curvature.shape)
     y[..., 0] = 0.0
     np.cumsum(steps, axis=-1, out=y[..., 1:])
-    return y - y[..., -1:] * (x - x[0]) / (x[-1] - x[0])
+    # cast: numpy's stubs type arithmetic on np.ndarray as Any
+    return cast(np.ndarray, y - y[..., -1:] * (x - x[0]) / (x[-1] - x[0]))
 
 
 def deflection(
@@ -361,7 +374,7 @@ def ponded_deflection(
     flex = 1.0 / _per_station(ei, x, "EI", positive=True)
     k = _per_station(k, x, "ponding stiffness k", positive=False)
     _, moment = _effects(x, span, _check_loads(span, loads), True, with_shear=False)
-    return ponded_rows(x, span, moment, flex, k)[0]
+    return cast(np.ndarray, ponded_rows(x, span, moment, flex, k)[0])  # cast: numpy's stubs type [0] (a row) as Any
 
 
 def ponded_rows(x: np.ndarray, span: float, moments: np.ndarray, flex: np.ndarray, k: np.ndarray) -> np.ndarray:

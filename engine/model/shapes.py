@@ -10,7 +10,7 @@ from types import MappingProxyType
 from engine.model.data.w_shapes import ROWS
 from engine.model.errors import FieldcompError
 
-__all__ = ["WShape", "ShapeNotFoundError", "get_shape", "find_shapes"]
+__all__ = ["ShapeNotFoundError", "WShape", "find_shapes", "get_shape"]
 
 
 @dataclass(frozen=True, slots=True)

@@ -10,7 +10,7 @@ import re
 from functools import lru_cache
 from engine.model.errors import FieldcompError
 
-__all__ = ["UnitError", "parse_length", "format_ft_in", "format_inches", "round_to_sixteenth"]
+__all__ = ["UnitError", "format_ft_in", "format_inches", "parse_length", "round_to_sixteenth"]
 
 _ACCEPTED_FORMS = (
     "45'-6 1/2\", 45' 6\", 45', 6 1/2\", 3/4\", 45 ft, 45.5 ft, 45 ft 6 1/2 in, "

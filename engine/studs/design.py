@@ -55,15 +55,18 @@ def design_layout(beam: BeamInput, suggest: bool = True) -> LayoutResult:
     checks, flags = spacing_checks(beam, groups)
     required = float(need.c_req.max())  # what phi Mn >= Mu needs each side (I8.2c: V' the design uses)
     if total is None:
-        checks.append(Check("studs.slab_force", "studs develop the slab force phi Mn >= Mu needs, each side", "AISC 360-22 I3.2d.1, I8.2c",
+        checks.append(Check("studs.slab_force", "studs develop the slab force phi Mn >= Mu needs, each side",
+                            "AISC 360-22 I3.2d.1, I8.2c",
                             required, min(provided), "kip", station=need.x_max, kind="detailing"))
     else:
-        checks.append(Check("studs.count_placed", "studs placed vs count on the drawings", "the drawings (project); AISC 360-22 I8.2d",
+        checks.append(Check("studs.count_placed", "studs placed vs count on the drawings",
+                            "the drawings (project); AISC 360-22 I8.2d",
                             float(total), float(layout.total), "studs", kind="detailing", authority=Authority.PROJECT))
     intent = design_intent(beam)
     if intent is not None:
         checks.append(Check("studs.design_intent", "sum Qn each side vs the design's stated intent",
-                            "the job's design_sum_qn / design_composite (project intent; strength is checked by AISC 360-22 I3.2a)",
+                            "the job's design_sum_qn / design_composite "
+                            "(project intent; strength is checked by AISC 360-22 I3.2a)",
                             intent, min(provided), "kip", station=need.x_max, kind="detailing",
                             authority=Authority.PROJECT, advisory=True))
     text = shortfall(beam, need, slots, arr, layout, required, provided, suggest)

@@ -35,15 +35,16 @@ def deck_checks(beam: BeamInput) -> list[Check]:
     checks: list[Check] = []
     if deck is not None:
         checks += [
-            Check("deck.rib_height", "rib height", "AISC 360-22 I3.2c.1(a)", deck.rib_height, DECK_RIB_HEIGHT_MAX, "in", kind="detailing"),
-            Check("deck.rib_width", "average rib width (min 2 in)", "AISC 360-22 I3.2c.1(a)", DECK_RIB_WIDTH_MIN, deck.rib_average_width,
-                  "in", kind="detailing"),
-            Check("deck.stud_diameter", "stud diameter through deck", "AISC 360-22 I3.2c.1(b), I8.1", spec.diameter, DECK_STUD_DIAMETER_MAX, "in",
+            Check("deck.rib_height", "rib height", "AISC 360-22 I3.2c.1(a)", deck.rib_height, DECK_RIB_HEIGHT_MAX, "in",
                   kind="detailing"),
+            Check("deck.rib_width", "average rib width (min 2 in)", "AISC 360-22 I3.2c.1(a)",
+                  DECK_RIB_WIDTH_MIN, deck.rib_average_width, "in", kind="detailing"),
+            Check("deck.stud_diameter", "stud diameter through deck", "AISC 360-22 I3.2c.1(b), I8.1",
+                  spec.diameter, DECK_STUD_DIAMETER_MAX, "in", kind="detailing"),
             Check("deck.stud_projection", "stud projection above deck (min 1 1/2 in)", "AISC 360-22 I3.2c.1(b)",
                   STUD_PROJECTION_MIN, spec.length - deck.rib_height, "in", kind="detailing"),
-            Check("deck.topping", "slab thickness above deck (min 2 in)", "AISC 360-22 I3.2c.1(c)", DECK_TOPPING_MIN, slab.topping, "in",
-                  kind="detailing"),
+            Check("deck.topping", "slab thickness above deck (min 2 in)", "AISC 360-22 I3.2c.1(c)",
+                  DECK_TOPPING_MIN, slab.topping, "in", kind="detailing"),
         ]
     checks += [
         Check("studs.cover", "concrete cover over stud head (min 1/2 in)", "AISC 360-22 I3.2c.1(b)",

@@ -110,7 +110,7 @@ def slots_for(beam: BeamInput) -> tuple[np.ndarray, np.ndarray]:
         x = rib_stations(beam)
     else:
         step = flute_pitch(beam)
-        n = int(math.floor(beam.span / step + 1e-9))
+        n = math.floor(beam.span / step + 1e-9)
         x = 0.5 * (beam.span - (n - 1) * step) + step * np.arange(n) if n > 0 else np.empty(0)
     cap = np.where(in_keep_out(beam, x), 0, studs_per_slot(beam)).astype(int)
     smin = spacing_limits(beam)[0]

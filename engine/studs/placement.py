@@ -18,6 +18,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 from functools import lru_cache
+from typing import cast
 
 import numpy as np
 
@@ -27,6 +28,7 @@ from engine.studs.detailing import spacing_limits
 from engine.finished.basis import available_strength, composite_strength, finished_basis, method_strength
 from engine.finished.slip import slip_floor
 from engine.model.inputs import BeamInput, Method
+from engine.model.shapes import WShape
 
 _TOL = 1e-9
 _C_GRID = 257  # slab forces tabulated between 0 and the topping limit to invert phi Mn(C)
@@ -75,7 +77,7 @@ def slab_force_needed(beam: BeamInput) -> Need:
 
 
 @lru_cache(maxsize=256)
-def _capacity_table(shape, fy: float, fc: float, b_eff: float, y_con: float, c_block: float,
+def _capacity_table(shape: WShape, fy: float, fc: float, b_eff: float, y_con: float, c_block: float,
                     method: str) -> tuple[np.ndarray, np.ndarray]:
     """Slab forces 0..c_block and the available strength with each (made non-decreasing), once per
     section and method (read-only). AISC 360-22 I3.2a, via `engine.finished.evaluate.composite_strength`."""
@@ -116,7 +118,8 @@ def level_arrangement(cap: np.ndarray, per_slot: np.ndarray, need: np.ndarray) -
         low, high = np.minimum(level, cap), np.minimum(level + 1, cap)
 
         def arrangement(u: int) -> np.ndarray:
-            return np.where(order < u, high, low)
+            # cast: np.minimum (low, high) is Any in numpy's stubs; B023: it is called only within this iteration
+            return cast(np.ndarray, np.where(order < u, high, low))  # noqa: B023
 
         if _meets(per_slot[arrangement(0)], need):
             return arrangement(0)

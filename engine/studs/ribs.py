@@ -41,6 +41,6 @@ def station_offset(beam: BeamInput) -> float:
     return beam.ribs.end_setback if beam.ribs.station_origin == "beam-end" else 0.0
 
 
-def printed_station(beam: BeamInput, x):
+def printed_station(beam: BeamInput, x: float) -> float:
     """An engine station as the erector measures it (see `station_offset`)."""
     return x - station_offset(beam)

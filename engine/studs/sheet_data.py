@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from typing import cast
 
 import numpy as np
 
@@ -109,8 +110,8 @@ def mark_rows(sheet: SheetData) -> list[MarkRow]:
     rows = []
     for i in np.flatnonzero((lay.count > 0) | (added > 0)):
         qn = float(lay.qn[i]) if lay.count[i] > 0 else float(layout_qn(sheet.beam, added[i:i + 1], lay.position[i])[0])
-        rows.append(MarkRow(int(lay.number[i]), float(lay.x[i]), format_ft_in(float(printed_station(sheet.beam, lay.x[i]))), int(lay.count[i]),
-                            int(lost[i]), int(added[i]), side_text(sheet.beam, str(sides[i])), qn))
+        rows.append(MarkRow(int(lay.number[i]), float(lay.x[i]), format_ft_in(float(printed_station(sheet.beam, lay.x[i]))),
+                            int(lay.count[i]), int(lost[i]), int(added[i]), side_text(sheet.beam, str(sides[i])), qn))
     return rows
 
 
@@ -144,4 +145,5 @@ def anchor_ribs(sheet: SheetData) -> list[int]:
     lay = sheet.layout
     working = lay.count - _per_slot(sheet.lost, lay.x.size) + _per_slot(sheet.added, lay.x.size)
     shown = StudLayout(lay.x, working, lay.position, lay.qn, lay.max_count, lay.x_flip)
-    return lay.number[deck_anchor_slots(sheet.beam, shown)].tolist()
+    # cast: ndarray.tolist is Any in numpy's stubs
+    return cast(list[int], lay.number[deck_anchor_slots(sheet.beam, shown)].tolist())

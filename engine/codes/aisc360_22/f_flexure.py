@@ -11,10 +11,13 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 from functools import lru_cache
+from typing import cast, overload
 
 import numpy as np
+import numpy.typing as npt
 
 from engine.codes.aisc360_22.i1_materials import E_STEEL
+from engine.codes.aisc360_22.rolled_shape import RolledShape
 
 PHI_B = 0.90  # AISC 360-22 F1(a); the same phi_b for composite flexure, I3.2a
 OMEGA_B = 1.67  # AISC 360-22 F1(b); the same Omega_b for composite flexure, I3.2a
@@ -71,18 +74,18 @@ def _scalar_or_array(values: np.ndarray) -> float | np.ndarray:
     return float(values) if np.ndim(values) == 0 else values
 
 
-def lp(shape, fy: float) -> float:
+def lp(shape: RolledShape, fy: float) -> float:
     """Limiting unbraced length for yielding, in.
     AISC 360-22 Eq. F2-5: Lp = 1.76 ry sqrt(E/Fy)."""
     return 1.76 * shape.ry * math.sqrt(E_STEEL / _positive("fy", fy))
 
 
-def _jc_sxho(shape) -> float:
+def _jc_sxho(shape: RolledShape) -> float:
     # c = 1 for doubly symmetric I-shapes, AISC 360-22 Eq. F2-8a
     return shape.j * 1.0 / (shape.sx * shape.ho)
 
 
-def lr(shape, fy: float) -> float:
+def lr(shape: RolledShape, fy: float) -> float:
     """Limiting unbraced length for inelastic lateral-torsional buckling, in.
     AISC 360-22 Eq. F2-6 with c = 1 (Eq. F2-8a)."""
     fy = _positive("fy", fy)
@@ -91,7 +94,11 @@ def lr(shape, fy: float) -> float:
     return 1.95 * shape.rts * (E_STEEL / (0.7 * fy)) * math.sqrt(a + math.sqrt(a * a + 6.76 * b * b))
 
 
-def fcr_ltb(shape, lb, cb: float = 1.0):
+@overload
+def fcr_ltb(shape: RolledShape, lb: float, cb: float = 1.0) -> float: ...
+@overload
+def fcr_ltb(shape: RolledShape, lb: npt.ArrayLike, cb: float = 1.0) -> float | npt.NDArray[np.float64]: ...
+def fcr_ltb(shape: RolledShape, lb: npt.ArrayLike, cb: float = 1.0) -> float | npt.NDArray[np.float64]:
     """Elastic lateral-torsional buckling stress, ksi (lb > 0; scalar or array).
     AISC 360-22 Eq. F2-4 with c = 1 (Eq. F2-8a)."""
     lb_arr = np.asarray(lb, dtype=float)
@@ -102,7 +109,7 @@ def fcr_ltb(shape, lb, cb: float = 1.0):
     return _scalar_or_array(fcr)
 
 
-def _check_web_compact(shape, fy: float) -> None:
+def _check_web_compact(shape: RolledShape, fy: float) -> None:
     # AISC 360-22 Table B4.1b case 15: lambda_pw = 3.76 sqrt(E/Fy)
     limit = 3.76 * math.sqrt(E_STEEL / fy)
     if shape.h_tw > limit:
@@ -112,7 +119,7 @@ def _check_web_compact(shape, fy: float) -> None:
         )
 
 
-def _mn_ltb(shape, fy: float, lb: float, cb: float, mp: float, lp_: float, lr_: float) -> tuple[float, str]:
+def _mn_ltb(shape: RolledShape, fy: float, lb: float, cb: float, mp: float, lp_: float, lr_: float) -> tuple[float, str]:
     """Lateral-torsional buckling Mn (<= Mp) and its equation, or (Mp, "") when Lb <= Lp.
     AISC 360-22 F2.2, Eqs. F2-2 and F2-3."""
     if lb <= lp_:
@@ -123,7 +130,7 @@ def _mn_ltb(shape, fy: float, lb: float, cb: float, mp: float, lp_: float, lr_: 
     return min(fcr_ltb(shape, lb, cb) * shape.sx, mp), "Eq. F2-3"
 
 
-def _mn_flb(shape, fy: float, mp: float) -> tuple[float, str]:
+def _mn_flb(shape: RolledShape, fy: float, mp: float) -> tuple[float, str]:
     """Compression flange local buckling Mn and its equation, or (Mp, "") for compact flanges.
     AISC 360-22 F3.2, Eqs. F3-1 and F3-2; limits from Table B4.1b case 10."""
     lam = shape.bf / (2.0 * shape.tf)
@@ -138,7 +145,7 @@ def _mn_flb(shape, fy: float, mp: float) -> tuple[float, str]:
 
 
 @lru_cache(maxsize=256)
-def _shape_terms(shape, fy: float) -> tuple[float, float, float, float, str]:
+def _shape_terms(shape: RolledShape, fy: float) -> tuple[float, float, float, float, str]:
     """Mp, Lp, Lr and the flange local buckling Mn with its equation, once per shape and Fy.
     AISC 360-22 Eqs. F2-1, F2-5, F2-6, F3-1, F3-2; compact webs only (Table B4.1b case 15)."""
     _check_web_compact(shape, fy)
@@ -147,7 +154,7 @@ def _shape_terms(shape, fy: float) -> tuple[float, float, float, float, str]:
     return mp, lp(shape, fy), lr(shape, fy), mn_flb, eq_flb
 
 
-def flexure_strength(shape, fy: float, lb: float, cb: float = 1.0) -> FlexureStrength:
+def flexure_strength(shape: RolledShape, fy: float, lb: float, cb: float = 1.0) -> FlexureStrength:
     """Nominal flexural strength for unbraced length lb (in) and Cb; the least limit state governs.
     AISC 360-22 F2 (compact flanges) or F3 (noncompact/slender flanges), compact webs only."""
     fy = _positive("fy", fy)
@@ -172,17 +179,19 @@ def flexure_strength(shape, fy: float, lb: float, cb: float = 1.0) -> FlexureStr
     return FlexureStrength(mp=mp, mn=mn, lp=lp_, lr=lr_, lb=lb, cb=cb, limit_state=state, clause=clause)
 
 
-def cb_from_moments(m_max, m_a, m_b, m_c):
+def cb_from_moments(m_max: npt.ArrayLike, m_a: npt.ArrayLike, m_b: npt.ArrayLike,
+                    m_c: npt.ArrayLike) -> float | npt.NDArray[np.float64]:
     """Lateral-torsional buckling modification factor from absolute moments (scalar or array).
     AISC 360-22 Eq. F1-1; Cb = 1.0 where Mmax = 0 (no moment, value immaterial)."""
-    m_max, m_a, m_b, m_c = (np.abs(np.asarray(v, dtype=float)) for v in (m_max, m_a, m_b, m_c))
+    # cast: numpy's stubs type ufunc results (np.abs) as Any
+    m_max, m_a, m_b, m_c = (cast("npt.NDArray[np.float64]", np.abs(np.asarray(v, dtype=float))) for v in (m_max, m_a, m_b, m_c))
     denominator = 2.5 * m_max + 3.0 * m_a + 4.0 * m_b + 3.0 * m_c
     with np.errstate(divide="ignore", invalid="ignore"):
         cb = np.where(m_max > 0.0, 12.5 * m_max / denominator, 1.0)
     return _scalar_or_array(cb)
 
 
-def _check_diagram(x, moment) -> tuple[np.ndarray, np.ndarray]:
+def _check_diagram(x: npt.ArrayLike, moment: npt.ArrayLike) -> tuple[npt.NDArray[np.float64], npt.NDArray[np.float64]]:
     x = np.asarray(x, dtype=float)
     moment = np.asarray(moment, dtype=float)
     if x.ndim != 1 or moment.ndim not in (1, 2) or moment.shape[-1] != x.size or x.size < 2:
@@ -195,7 +204,9 @@ def _check_diagram(x, moment) -> tuple[np.ndarray, np.ndarray]:
     return x, moment
 
 
-def _segment_moments(x, moment, start, end):
+def _segment_moments(
+    x: npt.NDArray[np.float64], moment: npt.NDArray[np.float64], start: npt.NDArray[np.float64], end: npt.NDArray[np.float64]
+) -> tuple[npt.NDArray[np.float64], npt.NDArray[np.float64], npt.NDArray[np.float64], npt.NDArray[np.float64]]:
     """Mmax and |M| at the quarter points (M_A, M_B, M_C) of segments [start, end] (arrays), for
     one diagram `moment` (n,) or rows of diagrams (r, n) at stations x; each result is shaped
     moment.shape[:-1] + start.shape.
@@ -204,7 +215,8 @@ def _segment_moments(x, moment, start, end):
     lead, rows = moment.shape[:-1], moment.reshape(-1, x.size)
 
     def size_at(points: np.ndarray) -> np.ndarray:  # |M| of every diagram at `points`
-        return np.abs(np.array([np.interp(points, x, m) for m in rows])).reshape(lead + points.shape)
+        # cast: numpy's stubs type np.abs results as Any
+        return cast(np.ndarray, np.abs(np.array([np.interp(points, x, m) for m in rows])).reshape(lead + points.shape))
 
     quarters = start[..., None] + (end - start)[..., None] * np.array([0.25, 0.5, 0.75])
     m_a, m_b, m_c = np.moveaxis(size_at(quarters), -1, 0)
@@ -216,7 +228,8 @@ def _segment_moments(x, moment, start, end):
     return m_max, m_a, m_b, m_c
 
 
-def cb_for_segment(x, moment, start, end):
+def cb_for_segment(x: npt.ArrayLike, moment: npt.ArrayLike, start: npt.ArrayLike,
+                   end: npt.ArrayLike) -> float | npt.NDArray[np.float64]:
     """Cb of the unbraced segment(s) [start, end] from a moment diagram sampled at stations x
     (or rows of diagrams: one row of Cb each).
     AISC 360-22 Eq. F1-1; quarter-point moments interpolated linearly, Mmax over the segment."""
@@ -228,7 +241,7 @@ def cb_for_segment(x, moment, start, end):
     return cb_from_moments(m_max, m_a, m_b, m_c)
 
 
-def unbraced_segments(x, moment, brace_points) -> UnbracedSegments:
+def unbraced_segments(x: npt.ArrayLike, moment: npt.ArrayLike, brace_points: npt.ArrayLike) -> UnbracedSegments:
     """Lb, Cb and Mmax of every segment between brace points; the beam ends x[0], x[-1] count as braced.
     `moment` is one diagram at stations x or rows of diagrams (Cb and Mmax then per row).
     AISC 360-22 F1 (Lb, Eq. F1-1)."""
@@ -239,5 +252,5 @@ def unbraced_segments(x, moment, brace_points) -> UnbracedSegments:
     points = np.unique(np.concatenate([[x[0]], braces, [x[-1]]]))
     start, end = points[:-1], points[1:]
     m_max, m_a, m_b, m_c = _segment_moments(x, moment, start, end)
-    cb = cb_from_moments(m_max, m_a, m_b, m_c)
+    cb = cast("npt.NDArray[np.float64]", cb_from_moments(m_max, m_a, m_b, m_c))  # cast: segments are 1-D, so Cb is an array
     return UnbracedSegments(start=start, end=end, lb=end - start, cb=cb, m_max=m_max)

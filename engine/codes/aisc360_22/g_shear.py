@@ -10,6 +10,7 @@ import math
 from dataclasses import dataclass
 
 from engine.codes.aisc360_22.i1_materials import E_STEEL
+from engine.codes.aisc360_22.rolled_shape import RolledShape
 
 KV_UNSTIFFENED = 5.34  # AISC 360-22 G2.1(b)(2): webs without transverse stiffeners
 
@@ -35,7 +36,7 @@ class ShearStrength:
         return self.vn / self.omega
 
 
-def web_shear_strength(shape, fy: float) -> ShearStrength:
+def web_shear_strength(shape: RolledShape, fy: float) -> ShearStrength:
     """Vn = 0.6 Fy Aw Cv1 with Aw = d tw, no transverse stiffeners (kv = 5.34).
     AISC 360-22 G2.1, Eqs. G2-1, G2-3, G2-4."""
     fy = float(fy)

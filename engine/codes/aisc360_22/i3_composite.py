@@ -10,8 +10,12 @@ rules take scalars.
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import cast
 
 import numpy as np
+import numpy.typing as npt
+
+from engine.codes.aisc360_22.rolled_shape import RolledShape
 
 PNA_LABELS = ("slab", "flange", "web")
 PNA_SLAB, PNA_FLANGE, PNA_WEB = 0, 1, 2
@@ -34,7 +38,9 @@ DECK_ANCHOR_SPACING_MAX = 18.0  # deck anchored to every supporting member at th
 PARALLEL_RIB_HEIGHT_MIN = 1.5
 
 
-def effective_width(span, left, right):
+def effective_width(
+    span: npt.ArrayLike, left: npt.ArrayLike, right: npt.ArrayLike
+) -> tuple[npt.NDArray[np.float64], npt.NDArray[np.float64]]:
     """Effective slab width on each side of the beam centreline, (b_left, b_right), in.
 
     AISC 360-22 I3.1a: each side the least of span/8 and `left` / `right`, where the caller
@@ -46,7 +52,7 @@ def effective_width(span, left, right):
     return np.minimum(span / 8.0, left), np.minimum(span / 8.0, right)
 
 
-def b_eff(span, left, right):
+def b_eff(span: npt.ArrayLike, left: npt.ArrayLike, right: npt.ArrayLike) -> npt.NDArray[np.float64]:
     """Total effective slab width b = b_left + b_right, in.
 
     AISC 360-22 I3.1a.
@@ -55,21 +61,25 @@ def b_eff(span, left, right):
     return b_left + b_right
 
 
-def cf_force(as_fy, fc, ac):
+def cf_force(as_fy: npt.ArrayLike, fc: npt.ArrayLike, ac: npt.ArrayLike) -> npt.NDArray[np.float64]:
     """Slab force of full composite action, C_f = min(A_s F_y, 0.85 f'c A_c), kip.
 
     AISC 360-22 I3.2d.1 (V'); Commentary Eq. C-I3-3 (C_f).
     """
-    return np.minimum(np.asarray(as_fy, dtype=float), 0.85 * np.asarray(fc, dtype=float) * np.asarray(ac, dtype=float))
+    # cast: numpy's stubs type ufunc results (np.minimum) as Any
+    return cast("npt.NDArray[np.float64]",
+                np.minimum(np.asarray(as_fy, dtype=float), 0.85 * np.asarray(fc, dtype=float) * np.asarray(ac, dtype=float)))
 
 
-def stress_block_force(fc, width, depth):
+def stress_block_force(fc: npt.ArrayLike, width: npt.ArrayLike, depth: npt.ArrayLike) -> npt.NDArray[np.float64]:
     """Force of a concrete stress block of 0.85 f'c over `width` x `depth`, kip.
 
     AISC 360-22 I1.2a (0.85 f'c uniform over the compression zone), for the plastic stress
     distribution of I3.2a.
     """
-    return 0.85 * np.asarray(fc, dtype=float) * np.asarray(width, dtype=float) * np.asarray(depth, dtype=float)
+    # cast: numpy's stubs type products of np.asarray results as Any
+    return cast("npt.NDArray[np.float64]",
+                0.85 * np.asarray(fc, dtype=float) * np.asarray(width, dtype=float) * np.asarray(depth, dtype=float))
 
 
 SLIP_CAPACITY = 0.25  # in, S_u of headed studs, AISC 360-22 Commentary I3.2d (as in AISC Design Examples v16.0 Ex. I.1)
@@ -147,7 +157,7 @@ class PlasticMoment:
     pna_depth: np.ndarray
 
 
-def model_web_thickness(shape) -> float:
+def model_web_thickness(shape: RolledShape) -> float:
     """Web thickness that makes two bf x tf flanges plus the web equal the tabulated area, in.
 
     Model of this tool (fillets folded into the web) for AISC 360-22 I3.2a plastic analysis.
@@ -158,7 +168,7 @@ def model_web_thickness(shape) -> float:
     return tw
 
 
-def plastic_moment(c, shape, fy, fc, b_eff, y_con) -> PlasticMoment:
+def plastic_moment(c: npt.ArrayLike, shape: RolledShape, fy: float, fc: float, b_eff: float, y_con: float) -> PlasticMoment:
     """Nominal flexural strength for slab force C: M_n = C (d1 + d2) + P_y (d3 - d2), kip-in.
 
     AISC 360-22 I3.2a (plastic stress distribution) and Commentary I3.2a.
@@ -173,7 +183,7 @@ def plastic_moment(c, shape, fy, fc, b_eff, y_con) -> PlasticMoment:
     py = shape.area * fy
     tw = model_web_thickness(shape)
     flange = shape.bf * shape.tf * fy
-    c = np.minimum(c, py)
+    c = cast("npt.NDArray[np.float64]", np.minimum(c, py))  # cast: numpy's stubs type ufunc results as Any
     a = c / (0.85 * fc * b_eff)
     y2 = y_con - a / 2.0
     cs = (py - c) / 2.0  # steel in compression
@@ -197,7 +207,9 @@ def pna_label(code: int) -> str:
     return PNA_LABELS[int(code)]
 
 
-def transformed_inertia(shape, b_eff, n, t_c, y_con):
+def transformed_inertia(
+    shape: RolledShape, b_eff: npt.ArrayLike, n: npt.ArrayLike, t_c: npt.ArrayLike, y_con: npt.ArrayLike
+) -> tuple[npt.NDArray[np.float64], npt.NDArray[np.float64]]:
     """Elastic transformed moment of inertia I_tr and neutral axis above the steel bottom, in^4, in.
 
     AISC 360-22 Commentary I3.2 (transformed section). Concrete of thickness t_c at the top of
@@ -219,7 +231,9 @@ def transformed_inertia(shape, b_eff, n, t_c, y_con):
     return i_tr, y
 
 
-def lower_bound_ena(shape, sum_qn, fy, y_con, a):
+def lower_bound_ena(
+    shape: RolledShape, sum_qn: npt.ArrayLike, fy: float, y_con: float, a: npt.ArrayLike
+) -> npt.NDArray[np.float64]:
     """Y_ENA of the lower-bound section, above the bottom of the steel, in.
 
     AISC 360-22 Commentary I3.2 (Y_ENA of Eq. C-I3-1):
@@ -227,13 +241,16 @@ def lower_bound_ena(shape, sum_qn, fy, y_con, a):
     """
     q = np.asarray(sum_qn, dtype=float) / fy
     if (q < 0.0).any():
-        raise ValueError(f"sum Qn {sum_qn} kip must be >= 0")
+        # ignore: numpy's ArrayLike includes bytes, which an f-string prints as b'...'; sum_qn holds numbers
+        raise ValueError(f"sum Qn {sum_qn} kip must be >= 0")  # type: ignore[str-bytes-safe]
     d1 = y_con - np.asarray(a, dtype=float) / 2.0
     d3 = shape.d / 2.0
     return (shape.area * d3 + q * (2.0 * d3 + d1)) / (shape.area + q)
 
 
-def lower_bound_inertia(shape, sum_qn, fy, y_con, a):
+def lower_bound_inertia(
+    shape: RolledShape, sum_qn: npt.ArrayLike, fy: float, y_con: float, a: npt.ArrayLike
+) -> npt.NDArray[np.float64]:
     """Lower-bound moment of inertia I_LB, in^4.
 
     AISC 360-22 Commentary Eq. C-I3-1: I_s + A_s (Y_ENA - d3)^2 + (sum Q_n/F_y)(2 d3 + d1 - Y_ENA)^2.
@@ -245,7 +262,7 @@ def lower_bound_inertia(shape, sum_qn, fy, y_con, a):
     return shape.ix + shape.area * (y_ena - d3) ** 2 + q * (2.0 * d3 + d1 - y_ena) ** 2
 
 
-def equivalent_inertia(i_s, i_tr, sum_qn, cf):
+def equivalent_inertia(i_s: float, i_tr: npt.ArrayLike, sum_qn: npt.ArrayLike, cf: npt.ArrayLike) -> npt.NDArray[np.float64]:
     """Equivalent moment of inertia for partial composite action, in^4.
 
     AISC 360-22 Commentary Eq. C-I3-3: I_equiv = I_s + sqrt(sum Q_n / C_f) (I_tr - I_s), the ratio
@@ -254,5 +271,7 @@ def equivalent_inertia(i_s, i_tr, sum_qn, cf):
     """
     ratio = np.asarray(sum_qn, dtype=float) / np.asarray(cf, dtype=float)
     if (ratio < 0.0).any():
-        raise ValueError(f"sum Qn {sum_qn} kip must be >= 0 and C_f {cf} kip > 0")
-    return i_s + np.sqrt(np.minimum(ratio, 1.0)) * (np.asarray(i_tr, dtype=float) - i_s)
+        # ignore: numpy's ArrayLike includes bytes, which an f-string prints as b'...'; these hold numbers
+        raise ValueError(f"sum Qn {sum_qn} kip must be >= 0 and C_f {cf} kip > 0")  # type: ignore[str-bytes-safe]
+    # cast: numpy's stubs type ufunc results (np.sqrt, np.minimum) as Any
+    return cast("npt.NDArray[np.float64]", i_s + np.sqrt(np.minimum(ratio, 1.0)) * (np.asarray(i_tr, dtype=float) - i_s))

@@ -7,7 +7,10 @@ stud); the length, diameter and spacing limits take scalars.
 
 from __future__ import annotations
 
+from typing import cast
+
 import numpy as np
+import numpy.typing as npt
 
 DECK_KINDS = ("none", "parallel", "perpendicular")
 POSITION_SIGN = {"strong": 1.0, "weak": -1.0, "center": 0.0}
@@ -21,7 +24,7 @@ _WR_HR_LIMIT = 1.5
 _RG_PERPENDICULAR = (1.0, 1.0, 0.85, 0.7)  # index = studs in the rib, capped at 3 (0 -> 1.0)
 
 
-def stud_area(d):
+def stud_area(d: npt.ArrayLike) -> npt.NDArray[np.float64]:
     """Cross-sectional area of a stud shank, A_sa = pi d^2 / 4, in^2.
 
     AISC 360-22 I8.2a (A_sa in Eq. I8-1).
@@ -32,7 +35,7 @@ def stud_area(d):
     return np.pi * d**2 / 4.0
 
 
-def emid_ht(w_mid, offset, d, position):
+def emid_ht(w_mid: npt.ArrayLike, offset: npt.ArrayLike, d: npt.ArrayLike, position: npt.ArrayLike) -> npt.NDArray[np.float64]:
     """Shank edge to rib wall at rib mid-height, in the direction the stud bears, in.
 
     AISC 360-22 I8.2a (definition of e_mid-ht); geometry e = w_mid/2 + s*offset - d/2 with
@@ -44,19 +47,19 @@ def emid_ht(w_mid, offset, d, position):
     unknown = ({words.item()} if words.ndim == 0 else set(np.unique(words).tolist())) - set(POSITION_SIGN)
     if unknown:
         raise ValueError(f"stud position {sorted(unknown)} must be one of {sorted(POSITION_SIGN)}")
-    if words.ndim == 0:
-        sign = POSITION_SIGN[words.item()]
-    else:
-        sign = np.vectorize(POSITION_SIGN.__getitem__, otypes=[float])(words)
+    sign = POSITION_SIGN[words.item()] if words.ndim == 0 else np.vectorize(POSITION_SIGN.__getitem__, otypes=[float])(words)
     e = np.asarray(w_mid, dtype=float) / 2.0 + sign * np.asarray(offset, dtype=float) - np.asarray(d, dtype=float) / 2.0
     if (e < 0.0).any():
         raise ValueError(
-            f"stud at offset {offset} in does not fit a rib {w_mid} in wide at mid-height (e_mid-ht < 0)"
+            # ignore: numpy's ArrayLike includes bytes, which an f-string prints as b'...'; these hold numbers
+            f"stud at offset {offset} in does not fit a rib {w_mid} in wide at mid-height (e_mid-ht < 0)"  # type: ignore[str-bytes-safe]
         )
     return e
 
 
-def rg_rp(deck, studs_in_rib, *, emid_ht=None, wr_over_hr=None):
+def rg_rp(
+    deck: str, studs_in_rib: npt.ArrayLike, *, emid_ht: npt.ArrayLike | None = None, wr_over_hr: npt.ArrayLike | None = None
+) -> tuple[npt.NDArray[np.float64], npt.NDArray[np.float64]]:
     """Group factor R_g and position factor R_p for studs in one rib (arrays, broadcast).
 
     AISC 360-22 I8.2a.
@@ -71,7 +74,8 @@ def rg_rp(deck, studs_in_rib, *, emid_ht=None, wr_over_hr=None):
         raise ValueError(f"deck {deck!r} must be one of {DECK_KINDS}")
     n = np.asarray(studs_in_rib)
     if (n < 0).any():
-        raise ValueError(f"studs in a rib {studs_in_rib} must be >= 0")
+        # ignore: numpy's ArrayLike includes bytes, which an f-string prints as b'...'; studs_in_rib holds numbers
+        raise ValueError(f"studs in a rib {studs_in_rib} must be >= 0")  # type: ignore[str-bytes-safe]
     if deck == "none":
         return np.ones(n.shape), np.full(n.shape, _RP_WELDED_OR_PARALLEL)
     if deck == "parallel":
@@ -90,21 +94,26 @@ def rg_rp(deck, studs_in_rib, *, emid_ht=None, wr_over_hr=None):
     return rg.astype(float), rp.astype(float)
 
 
-def qn_concrete_limit(asa, fc, ec):
+def qn_concrete_limit(asa: npt.ArrayLike, fc: npt.ArrayLike, ec: npt.ArrayLike) -> npt.NDArray[np.float64]:
     """Concrete-side strength of one stud, 0.5 A_sa sqrt(f'c E_c), kip.
 
     AISC 360-22 Eq. I8-1 (first term).
     """
-    return 0.5 * np.asarray(asa, dtype=float) * np.sqrt(np.asarray(fc, dtype=float) * np.asarray(ec, dtype=float))
+    # cast: numpy's stubs type ufunc results (np.sqrt) as Any
+    return cast("npt.NDArray[np.float64]",
+                0.5 * np.asarray(asa, dtype=float) * np.sqrt(np.asarray(fc, dtype=float) * np.asarray(ec, dtype=float)))
 
 
-def qn_stud(asa, fc, ec, fu, rg, rp):
+def qn_stud(
+    asa: npt.ArrayLike, fc: npt.ArrayLike, ec: npt.ArrayLike, fu: float, rg: npt.ArrayLike, rp: npt.ArrayLike
+) -> npt.NDArray[np.float64]:
     """Nominal strength of one stud, Q_n = 0.5 A_sa sqrt(f'c E_c) <= R_g R_p A_sa F_u, kip.
 
     AISC 360-22 Eq. I8-1.
     """
     steel = np.asarray(rg, dtype=float) * np.asarray(rp, dtype=float) * np.asarray(asa, dtype=float) * fu
-    return np.minimum(qn_concrete_limit(asa, fc, ec), steel)
+    # cast: numpy's stubs type ufunc results as Any
+    return cast("npt.NDArray[np.float64]", np.minimum(qn_concrete_limit(asa, fc, ec), steel))
 
 
 def stud_length_min(d: float) -> float:

@@ -229,10 +229,7 @@ def layouts_and_findings(draw, kinds):
     strong = np.array(draw(st.lists(st.booleans(), min_size=32, max_size=32)))
     findings = []
     for k in range(32):
-        if kinds == ("added",):
-            n = draw(st.integers(0, 2 - count[k]))
-        else:
-            n = draw(st.integers(0, count[k]))
+        n = draw(st.integers(0, 2 - count[k])) if kinds == ("added",) else draw(st.integers(0, count[k]))
         if n:
             findings.append(Finding(draw(st.sampled_from(kinds)), rib=k + 1, count=n))
     return count, np.where(strong, "strong", "weak"), tuple(findings)

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import math
 import warnings
+from itertools import pairwise
 
 import numpy as np
 import pytest
@@ -185,11 +186,11 @@ def fe_deflection(nodes, ei_of, w_of, points, k_of=None) -> np.ndarray:
     from anastruct import SystemElements
 
     system = SystemElements(EA=1e9, EI=1.0)
-    for a, b in zip(nodes[:-1], nodes[1:]):
+    for a, b in pairwise(nodes):
         system.add_element([[a, 0.0], [b, 0.0]], EA=1e9, EI=ei_of(0.5 * (a + b)))
     system.add_support_hinged(1)
     system.add_support_roll(len(nodes))
-    for i, (a, b) in enumerate(zip(nodes[:-1], nodes[1:])):
+    for i, (a, b) in enumerate(pairwise(nodes)):
         if w_of(0.5 * (a + b)):
             system.q_load(q=-w_of(0.5 * (a + b)), element_id=i + 1, direction="y")
     for p, xp in points:

@@ -27,8 +27,8 @@ def rows(beam):
 
 def test_beam_end_stations_subtract_the_setback():
     """Hand check: a rib at x = 6 in from the work point prints 6 - 1/2 = 5 1/2 in from the steel."""
-    lay_end, rows_end = rows(beam_with("beam-end", "1/2 in"))
-    lay_sup, rows_sup = rows(beam_with("support", "1/2 in"))
+    _, rows_end = rows(beam_with("beam-end", "1/2 in"))
+    _, rows_sup = rows(beam_with("support", "1/2 in"))
     assert [r.x for r in rows_end] == [r.x for r in rows_sup]  # same physical layout
     for a, b in zip(rows_end, rows_sup):
         assert parse_length(b.station) - parse_length(a.station) == pytest.approx(0.5, abs=1 / 32)

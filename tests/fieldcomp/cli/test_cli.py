@@ -20,7 +20,7 @@ CHECK_KEYS = {
 
 
 def test_check_json_has_every_key_for_every_beam(capsys):
-    assert main(["check", DEMO, "--json"]) == 3  # 3: none fails, 3B-102 needs review (stud cover at the band's +1/2 in end)
+    assert main(["check", DEMO, "--json"]) == 3  # none fails; 3B-102: review (cover)
     out = json.loads(capsys.readouterr().out)
     assert out["job"] and out["beams"]
     for beam in out["beams"]:
@@ -96,7 +96,7 @@ def test_continuous_beam_is_refused_and_scope_is_stated(tmp_path, capsys):
     assert main(["check", str(cont)]) == 2
     err = capsys.readouterr().err
     assert "3B-101" in err and "'support'" in err and "I3.2b" in err
-    assert main(["check", DEMO, "--json"]) == 3  # 3: none fails, 3B-102 needs review (stud cover at the band's +1/2 in end)
+    assert main(["check", DEMO, "--json"]) == 3  # none fails; 3B-102: review (cover)
     out = json.loads(capsys.readouterr().out)
     assert any("vibration" in item["item"] for item in out["not_checked"])
 

@@ -53,14 +53,14 @@ def test_demo_stages_add_up_to_the_final_deflection(capsys):
 
 
 def test_camber_text_carries_caution_and_sources(capsys):
-    assert main(["camber", str(DEMO), "--beam", "3B-102"]) == 3  # 3: none fails, 3B-102 needs review (stud cover at the band's +1/2 in end)
+    assert main(["camber", str(DEMO), "--beam", "3B-102"]) == 3  # none fails; 3B-102: review (cover)
     text = capsys.readouterr().out
     assert text.count("engineer of record") >= 2 and "AISC 303 6.4.4" in text and "3B-102" in text
     assert "3B-101" not in text
 
 
 def test_check_json_gains_the_construction_keys(capsys):
-    assert main(["check", str(DEMO), "--json"]) == 3  # 3: none fails, 3B-102 needs review (stud cover at the band's +1/2 in end)
+    assert main(["check", str(DEMO), "--json"]) == 3  # none fails; 3B-102: review (cover)
     for beam in json.loads(capsys.readouterr().out)["beams"]:
         assert CAMBER_KEYS <= beam.keys()
         assert beam["finished_verdict"] == "pass"

@@ -88,7 +88,7 @@ def test_repair_sheet_renders_existing_lost_and_added_studs_with_envelopes(tmp_p
     import xml.etree.ElementTree as ET
 
     svg = tmp_path / "repair.svg"
-    code, out = findings_json(capsys, DEMO, "--beam", "3B-103", "--repair-svg", str(svg))
+    code, _ = findings_json(capsys, DEMO, "--beam", "3B-103", "--repair-svg", str(svg))
     assert code == 1
     text = svg.read_text()
     ET.fromstring(text)  # well-formed XML

@@ -1,6 +1,7 @@
 """Crash-safe saves: a child process is killed (os._exit) at every line executed on the write
-path of `save_job` (backup, temporary file, fsync, replace); afterwards the job file holds either the old or the new content, never a torn one,
-and the .bak, when present, holds a complete earlier version."""
+path of `save_job` (backup, temporary file, fsync, replace); afterwards the job file holds
+either the old or the new content, never a torn one, and the .bak, when present, holds a
+complete earlier version."""
 
 import subprocess
 import sys
@@ -43,7 +44,7 @@ print("LINES", count)
 
 def run_child(path: Path, kill_at: int) -> subprocess.CompletedProcess:
     code = CHILD.format(root=str(ROOT))
-    return subprocess.run([sys.executable, "-c", code, str(path), str(kill_at)], capture_output=True, text=True)
+    return subprocess.run([sys.executable, "-c", code, str(path), str(kill_at)], capture_output=True, text=True, check=False)
 
 
 def test_kill_at_every_line_of_a_save_leaves_old_or_new(tmp_path):
@@ -76,7 +77,6 @@ def test_kill_at_every_line_of_a_save_leaves_old_or_new(tmp_path):
 
 @pytest.mark.parametrize("fail", ["write", "fsync", "replace"])
 def test_injected_os_failures_keep_the_old_file(tmp_path, monkeypatch, fail):
-    import os
 
     import fieldcomp.jobs.atomic as at
     import fieldcomp.jobs.jobfile as jf
