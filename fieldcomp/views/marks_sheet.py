@@ -35,7 +35,8 @@ def summary_lines(sheet: SheetData) -> list[str]:
         lines.append(f"required sum Qn each side: {sheet.required_sum_qn:.1f} kips")
     for c in sheet.checks:
         where = f" at {format_ft_in(printed_station(sheet.beam, c.station))}" if c.station is not None else ""
-        lines.append(f"{'pass' if c.passed else 'FAIL'} {c.ratio:.2f}  {c.name}{where}  [{c.clause}]")
+        word = {"pass": "pass", "review": "REVIEW", "fail": "FAIL"}[c.level]
+        lines.append(f"{word} {c.ratio:.2f}  {c.name}{where}  [{c.clause}; {c.authority}]")
     anchors = anchor_ribs(sheet)
     if anchors:
         lines.append(f"deck weld or fastener by others at ribs without studs: {', '.join(map(str, anchors))} "

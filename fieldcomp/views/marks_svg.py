@@ -239,7 +239,7 @@ def _summary(sheet: SheetData, x: float, y: float, bottom: float) -> list[str]:
     out = [_t(x, y, "TOTALS AND CHECKS", "k")]
     yy = y + 14
     for line in summary_lines(sheet):
-        colour = f' style="fill:{LOST}"' if line.startswith(("FAIL", "SHORTFALL")) else ""
+        colour = f' style="fill:{LOST}"' if line.startswith(("FAIL", "REVIEW", "SHORTFALL")) else ""
         for part in textwrap.wrap(line, 62) or [""]:
             if yy > bottom:
                 return out + [_t(x, bottom + 10, "(more in the text output)", "s")]
