@@ -3,13 +3,16 @@
 
 from __future__ import annotations
 
-from dataclasses import replace
+from dataclasses import dataclass, replace
 
 import numpy as np
 
 from engine.construction.evaluate import ConstructionResult, evaluate_construction
-from engine.field.as_built import AsBuiltResult
+from engine.field.as_built import AsBuiltResult, evaluate_as_built
+from engine.field.detailed import SOURCE_DETAILED, SOURCE_FIELDCOMP, detailed_layout
+from engine.field.remedy import Acceptance, InKind, acceptance, fewest_studs, in_kind
 from engine.field.repair import Repair
+from engine.field.timing import AFTER, BEFORE, beam_timing, closed_slots
 from engine.finished.evaluate import BeamResult, evaluate_finished
 from engine.model.inputs import BeamInput, PondedConcrete
 from engine.model.results import Check
@@ -80,3 +83,47 @@ def repair_sheet(job_name: str, date: str, before: AsBuiltResult, repair: Repair
     return SheetData(job=job_name, beam=before.beam, date=date, layout=layout, caution=caution,
                      title="Stud repair marks", checks=failing, notes=tuple(notes), lost=before.lost,
                      added=repair.added, envelope=Envelope(r.x, r.demand, r.capacity, after))
+
+
+def field_layout(beam: BeamInput) -> tuple[StudLayout, str]:
+    """The studs findings apply to, and which they are: the as-detailed layout of the shop drawings
+    where the job gives it (engine.field.detailed), else fieldcomp's own (engine.studs.design)."""
+    grid = design_layout(beam).layout
+    if beam.detailed:
+        return detailed_layout(beam, grid, beam.detailed), SOURCE_DETAILED
+    return grid, SOURCE_FIELDCOMP
+
+
+@dataclass(frozen=True, slots=True)
+class FieldReview:
+    """A stud report reviewed in the world it was found in (engine.field.timing): `timing` is
+    before-pour, after-pour or unknown (then both branches are given). Before the pour: the
+    in-kind replacement and the fewest-stud repair; after it: acceptance by analysis and, where
+    part of the beam is still open, the fewest studs in the open ribs (engine.field.remedy)."""
+
+    source: str
+    before: AsBuiltResult
+    timing: str
+    in_kind: InKind | None
+    repair: Repair | None
+    acceptance: Acceptance | None
+    after_repair: Repair | None
+
+
+def field_review(beam: BeamInput) -> FieldReview:
+    """The as-built beam (with its ponded concrete, `as_poured`) on the layout of `field_layout`,
+    and the remedies of each branch. Raises engine.field.as_built.FindingError."""
+    beam = as_poured(beam)[0]
+    layout, source = field_layout(beam)
+    before = evaluate_as_built(beam, layout)
+    timing = beam_timing(beam, layout, beam.findings)
+    kind = repair = accept = late = None
+    if timing != AFTER:
+        kind = in_kind(before, closed_slots(beam, layout, beam.findings, BEFORE))
+        repair = fewest_studs(before, closed_slots(beam, layout, beam.findings, BEFORE))
+    if timing != BEFORE:
+        accept = acceptance(before)
+        closed = closed_slots(beam, layout, beam.findings, AFTER)
+        if not accept.acceptable and not closed.all():
+            late = fewest_studs(before, closed)
+    return FieldReview(source, before, timing, kind, repair, accept, late)

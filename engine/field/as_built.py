@@ -23,8 +23,9 @@ from engine.finished.slab_force import stud_qn
 from engine.model.units import format_ft_in
 from engine.model.errors import FieldcompError
 
-LOSS_KINDS = ("missing", "failed-test", "off-rib", "short")
+LOSS_KINDS = ("missing", "failed-test", "awaiting-test", "off-rib", "short")
 LEAVE_THE_RIB = ("missing", "off-rib")  # no longer welded in the rib: R_g recounted without them
+RESOLVING_KINDS = ("bent-accepted", "replaced")  # a stud that works again: it cancels a loss reported at its rib
 
 # kind -> (what the engine does with it, the clause that says so)
 FINDING_EFFECTS: dict[str, tuple[str, str]] = {
@@ -33,10 +34,18 @@ FINDING_EFFECTS: dict[str, tuple[str, str]] = {
                     "AWS D1.1 stud welding clause (bend test); AISC 360-22 I8.2a"),
     "off-rib": ("not welded to the flange in a rib: no strength; R_g of the rib recounted without it",
                 "AISC 360-22 I8.2a, I3.2c.1 (studs welded through the deck in the ribs)"),
+    "awaiting-test": ("incomplete flash, awaiting its bend test: counted as lost until tested; kept in the rib's "
+                      "R_g count (conservative)",
+                      "AWS D1.1 stud welding clause (studs without a full flash are tested; from memory: verify "
+                      "against AWS D1.1); AISC 360-22 I8.2a"),
     "short": ("installed too short to qualify: no strength; kept in the rib's R_g count (conservative)",
               "AISC 360-22 I3.2c.1(b) (1 1/2 in above the deck, 1/2 in cover) and I8.2 (length >= 4 d_sa)"),
     "weak-side": ("R_p = 0.6 (e_mid-ht < 2 in) for the studs concerned", "AISC 360-22 I8.2a"),
     "added": ("counts, with R_g of the rib's new stud count", "AISC 360-22 I8.2a"),
+    "bent-accepted": ("bent in its test and accepted: counts; it clears an awaiting-test finding at its rib",
+                      "AWS D1.1 stud welding clause (bend test; from memory: verify against AWS D1.1)"),
+    "replaced": ("replaced in kind: counts; it clears a loss reported at its rib (missing first, then failed or "
+                 "short, awaiting test last)", "AWS D1.1 stud welding clause; AISC 360-22 I8.2a"),
 }
 
 
@@ -102,7 +111,8 @@ def apply_findings(beam: BeamInput, designed: StudLayout, findings: tuple[Findin
     """Studs per slot after the findings; a finding that contradicts the layout raises FindingError.
 
     Added studs first (R_g of the new count, AISC 360-22 I8.2a; at most `max_count` per slot),
-    then losses (never more than the slot holds), then weak-side (only studs that still work).
+    then losses (never more than the slot holds), then studs accepted after a bend test or
+    replaced (each clears a loss at its rib), then weak-side (only studs that still work).
     """
     count = designed.count.astype(int)
     added, gone, dead, weak = (np.zeros(count.size, dtype=int) for _ in range(4))
@@ -118,14 +128,32 @@ def apply_findings(beam: BeamInput, designed: StudLayout, findings: tuple[Findin
             if count[k] + added[k] > designed.max_count[k]:
                 raise FindingError(i, f"{describe(f, i)}: rib {k + 1} takes at most {int(designed.max_count[k])} "
                                    f"stud(s) (flange width, AISC 360-22 I8.2d, job limit, keep-out zones)")
+    waiting = np.zeros(count.size, dtype=int)
     for i, (f, k) in enumerate(zip(findings, slots)):
         if f.kind in LOSS_KINDS:
             (gone if f.kind in LEAVE_THE_RIB else dead)[k] += f.count
+            waiting[k] += f.count if f.kind == "awaiting-test" else 0
             held = count[k] + added[k]
             if gone[k] + dead[k] > held:
                 raise FindingError(i, f"{describe(f, i)}: rib {k + 1} holds {held} stud(s) "
                                    f"({count[k]} as designed, {added[k]} added); the findings there account for "
                                    f"{gone[k] + dead[k]}")
+    for i, (f, k) in enumerate(zip(findings, slots)):
+        if f.kind in RESOLVING_KINDS:
+            held = count[k] + added[k]
+            if f.count > held:
+                raise FindingError(i, f"{describe(f, i)}: rib {k + 1} holds {held} stud(s) "
+                                   f"({count[k]} as designed, {added[k]} added)")
+            if f.kind == "bent-accepted":
+                n = min(f.count, waiting[k])
+                waiting[k] -= n
+                dead[k] -= n
+            else:
+                back = min(f.count, gone[k])
+                gone[k] -= back
+                n = min(f.count - back, dead[k])
+                dead[k] -= n
+                waiting[k] = min(waiting[k], dead[k])  # awaiting-test cleared last
     effective = count + added - gone - dead
     for i, (f, k) in enumerate(zip(findings, slots)):
         if f.kind == "weak-side":

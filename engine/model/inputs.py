@@ -34,7 +34,9 @@ ORIENTATIONS = (DeckCase.PERPENDICULAR.value, DeckCase.PARALLEL.value)
 STUD_POSITIONS = ("strong", "weak", "center")
 SCREED_MODES = ("constant-thickness", "level")
 POUR_SIDES = ("both", "left", "right")
-FINDING_KINDS = ("missing", "failed-test", "weak-side", "off-rib", "short", "added")
+FINDING_KINDS = ("missing", "failed-test", "awaiting-test", "weak-side", "off-rib", "short", "added", "bent-accepted",
+                 "replaced")
+FINDING_TIMES = ("before-pour", "after-pour")  # was the slab over the finding placed when it was found
 
 
 @dataclass(frozen=True, slots=True)
@@ -75,6 +77,7 @@ class PourStage:
     side: str = "both"
     day: float = 0.0
     screed: str | None = None
+    date: str = ""  # ISO date (YYYY-MM-DD) the stage was placed, if known
 
 
 @dataclass(frozen=True, slots=True)
@@ -130,6 +133,17 @@ class Finding:
     station: float | None = None
     count: int = 1
     note: str = ""
+    found: str | None = None  # FINDING_TIMES, or None: derived from `date` and the pour dates, else unknown
+    date: str = ""  # ISO date (YYYY-MM-DD) of the inspection, if known
+
+
+@dataclass(frozen=True, slots=True)
+class DetailedRib:
+    """Studs in one rib as detailed on the shop drawings, located by `rib` (1-based) or `station`."""
+
+    count: int
+    rib: int | None = None
+    station: float | None = None
 
 
 @dataclass(frozen=True, slots=True)
@@ -186,6 +200,7 @@ class BeamInput:
     construction: ConstructionSpec = field(default_factory=ConstructionSpec)
     ribs: RibSettings = field(default_factory=RibSettings)
     findings: tuple[Finding, ...] = ()
+    detailed: tuple[DetailedRib, ...] = ()  # the studs as detailed on the shop drawings; () = fieldcomp's layout
     limits: Limits = field(default_factory=Limits)
     ponded: PondedConcrete | None = None  # set by engine.pipeline for level-screeded beams
     n_stations: int = 401

@@ -25,10 +25,9 @@ def register(sub) -> None:
 
 
 def run(args: argparse.Namespace) -> int:
-    from engine.field.as_built import FindingError, evaluate_as_built
-    from engine.studs.design import design_layout
-    from engine.field.repair import find_repair
-    from engine.pipeline import as_poured
+    from engine.field.as_built import FindingError
+    from engine.field.detailed import DetailedLayoutError
+    from engine.pipeline import field_review
     from fieldcomp.cli.common import load_inputs
     from fieldcomp.jobs.inspection_log import CsvImportError
     from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError
@@ -43,24 +42,23 @@ def run(args: argparse.Namespace) -> int:
         return fail_input(f"cannot save {args.job}: {exc.strerror or exc}")
     try:
         job, beams = load_inputs(args.job, args.beam)
-        beam = as_poured(beams[0])[0]
-        designed = design_layout(beam).layout
         try:
-            before = evaluate_as_built(beam, designed)
+            review = field_review(beams[0])
         except FindingError as exc:
-            raise JobFileError(args.job, [(f"beam '{beam.mark}', field 'finding[{exc.index}]'", str(exc))]) from None
+            field = "as_detailed" if isinstance(exc, DetailedLayoutError) else "finding"
+            raise JobFileError(args.job, [(f"beam '{beams[0].mark}', field '{field}[{exc.index}]'", str(exc))]) from None
     except JobFileError as exc:
         return fail_input(exc)
-    repair = find_repair(before)
+    before = review.before
     if args.repair_svg:
         try:
-            write_sheet(args.repair_svg, job.project.name, before, repair)
+            write_sheet(args.repair_svg, job.project.name, review)
         except OSError as exc:
             return fail_input(f"cannot write {args.repair_svg}: {exc.strerror or exc}")
     if args.json:
-        print(json.dumps(findings_json(job.project.name, before, repair), indent=2))
+        print(json.dumps(findings_json(job.project.name, review), indent=2))
     else:
-        print(findings_text(job.project.name, args.job, before, repair))
+        print(findings_text(job.project.name, args.job, review))
     return exit_code([str(before.verdict)])
 
 
@@ -69,7 +67,7 @@ def import_log(job_path: str, mark: str, csv_path: str) -> str:
     Every row is checked first, against the file format and against the beam's layout; on any
     error nothing is written. Returns a one-line summary."""
     from engine.field.as_built import FindingError, apply_findings
-    from engine.studs.design import design_layout
+    from engine.pipeline import field_layout
     from fieldcomp.cli.common import load_inputs
     from fieldcomp.jobs.inspection_log import CsvImportError, read_findings_csv
     from fieldcomp.jobs.jobfile import load_job, save_job
@@ -85,7 +83,7 @@ def import_log(job_path: str, mark: str, csv_path: str) -> str:
     updated = job.model_copy(update={"beam": [
         b.model_copy(update={"finding": b.finding + [f for _, f in rows]}) if b.mark == mark else b for b in job.beam]})
     merged = next(b for b in to_engine(updated, job_path) if b.mark == mark)
-    designed = design_layout(beam).layout
+    designed = field_layout(beam)[0]
     try:
         apply_findings(merged, designed, merged.findings)
     except FindingError:
@@ -117,14 +115,17 @@ def _rows_against_layout(beam, designed, existing, rows, new) -> list[tuple[int 
     return sorted(problems, key=lambda p: p[0] or 0)
 
 
-def write_sheet(path: str, job_name: str, before, repair) -> None:
-    """Write the repair marks sheet (SVG) atomically."""
+def write_sheet(path: str, job_name: str, review) -> None:
+    """Write the repair marks sheet (SVG) atomically: the studs to weld before the pour (the
+    replacement in kind, else the fewest-stud repair), none in a rib under placed concrete."""
     import datetime
 
     from engine.pipeline import repair_sheet
     from fieldcomp.jobs.atomic import write_text_atomic
-    from fieldcomp.views.findings_report import REPAIR_CAUTION
+    from fieldcomp.views.findings_report import REPAIR_CAUTION, no_repair
     from fieldcomp.views.marks_svg import marks_svg
 
+    before = review.before
+    repair = review.repair if review.repair is not None else review.after_repair or no_repair(before)
     sheet = repair_sheet(job_name, datetime.date.today().isoformat(), before, repair, f"{CAUTION} {REPAIR_CAUTION}")
     write_text_atomic(Path(path), marks_svg(sheet))

@@ -106,6 +106,7 @@ class Pour(Strict):
     side: Literal["both", "left", "right"] = Field("both", description="Side of the beam the concrete is placed on.")
     day: float = Field(0.0, ge=0.0, le=365.0, description="Days after the first placement.")
     screed: Literal["constant-thickness", "level"] | None = Field(None, description="Overrides the beam's screeding mode.")
+    date: IsoDate = Field("", description="Date the stage was placed, YYYY-MM-DD (tells findings found before the pour from those after).")
 
 
 ConstructionLoadClass = Literal["very-light", "light", "medium", "heavy"]
@@ -122,7 +123,22 @@ class ConstructionLimitsIn(Strict):
     live_ratio: float | None = Field(None, ge=60.0, le=2000.0, description="Construction live-load deflection limit, span / ratio; leave out: not checked.")
 
 
-FindingKind = Literal["missing", "failed-test", "weak-side", "off-rib", "short", "added"]
+FindingKind = Literal["missing", "failed-test", "awaiting-test", "weak-side", "off-rib", "short", "added",
+                      "bent-accepted", "replaced"]
+
+
+def _iso_date(text: str) -> str:
+    import datetime
+
+    if text:
+        try:
+            datetime.date.fromisoformat(text)
+        except ValueError:
+            raise ValueError(f"'{text}' is not a date as YYYY-MM-DD") from None
+    return text
+
+
+IsoDate = Annotated[str, AfterValidator(_iso_date), Field(max_length=10, description="A date as YYYY-MM-DD, or empty.")]
 
 
 class FindingIn(Strict):
@@ -131,11 +147,24 @@ class FindingIn(Strict):
     station: Length | None = Field(None, description="Station from the reference end (instead of rib).")
     count: int = Field(1, ge=1, le=3, description="Studs concerned.")
     note: str = Field("", max_length=500, description="Inspector's note.")
-    date: str = Field("", max_length=40, description="Date of the report.")
+    date: str = Field("", max_length=40, description="Date of the report; written YYYY-MM-DD, with the pour dates it tells whether the slab over the finding was placed.")
+    found: Literal["before-pour", "after-pour"] | None = Field(None, description="Whether the slab over the finding was placed when it was found (default: derived from date and the pour dates, else unknown: both branches are reported).")
     reported_by: str = Field("", max_length=100, description="Who reported it.")
 
     @model_validator(mode="after")
     def _one_place(self) -> "FindingIn":
+        if (self.rib is None) == (self.station is None):
+            raise ValueError("give exactly one of rib or station")
+        return self
+
+
+class DetailedRibIn(Strict):
+    rib: int | None = Field(None, ge=1, le=10000, description="Rib number from the reference end, 1-based.")
+    station: Length | None = Field(None, description="Station from the reference end (instead of rib).")
+    studs: int = Field(ge=0, le=3, description="Studs in the rib as detailed on the shop drawings.")
+
+    @model_validator(mode="after")
+    def _one_place(self) -> "DetailedRibIn":
         if (self.rib is None) == (self.station is None):
             raise ValueError("give exactly one of rib or station")
         return self
@@ -178,6 +207,7 @@ class Beam(Strict):
     studs: Studs = Field(description="Headed stud anchors.")
     pour: list[Pour] = Field(default_factory=list, description="Pour stages (default: the whole slab at once).")
     finding: list[FindingIn] = Field(default_factory=list, description="Stud inspection findings.")
+    as_detailed: list[DetailedRibIn] = Field(default_factory=list, description="The studs as detailed on the shop drawings, rib by rib (ribs not listed hold none); findings apply to this layout. Leave out: findings apply to fieldcomp's own layout.")
 
     @model_validator(mode="after")
     def _sides(self) -> "Beam":

@@ -9,7 +9,7 @@ from engine.codes.asce37_14 import CONSTRUCTION_LOAD_PSF
 from engine.construction.pours import check_stages
 from engine.model.deck import DeckProfile, Slab
 from engine.model.inputs import (
-    BeamInput, CamberRules, ConstructionSpec, Finding, Limits, Method, PointLoad, PourStage, RibSettings, StudSpec,
+    BeamInput, CamberRules, ConstructionSpec, DetailedRib, Finding, Limits, Method, PointLoad, PourStage, RibSettings, StudSpec,
 )
 from engine.model.results import Authority
 from engine.model.shapes import ShapeNotFoundError, get_shape
@@ -92,7 +92,7 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         end = span if stage.end is None else parse_length(stage.end)
         if not 0.0 <= start < end <= span + 1e-6:
             raise _FieldProblemError(f"pour[{k}]", f"stage '{stage.name}' must run from 0 to the span with start < end")
-        pours.append(PourStage(stage.name, start, min(end, span), stage.side, stage.day, stage.screed))
+        pours.append(PourStage(stage.name, start, min(end, span), stage.side, stage.day, stage.screed, stage.date))
     if pours:
         try:
             check_stages(tuple(pours), span)
@@ -123,7 +123,9 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
     # finding stations are read off the marks, so they follow the printed station convention
     offset = setback if job.project.station_origin == "beam-end" else 0.0
     findings = tuple(Finding(f.kind, f.rib, None if f.station is None else parse_length(f.station) + offset,
-                             f.count, f.note) for f in b.finding)
+                             f.count, f.note, f.found, _iso_or_blank(f.date)) for f in b.finding)
+    detailed = tuple(DetailedRib(r.studs, r.rib, None if r.station is None else parse_length(r.station) + offset)
+                     for r in b.as_detailed)
     diameter = parse_length(b.studs.diameter)
     if not 0.25 <= diameter <= 1.0:
         raise _FieldProblemError("studs.diameter", f"{b.studs.diameter} is outside 1/4 in to 1 in")
@@ -135,9 +137,19 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         slab_left=sides[0], slab_right=sides[1], superimposed_dead_psf=b.superimposed_dead_psf,
         live_psf=b.live_psf, studs=studs, method=Method(job.project.method), point_loads=tuple(point_loads),
         load_width=None if b.load_width is None else parse_length(b.load_width),
-        construction=construction, ribs=ribs, findings=findings,
+        construction=construction, ribs=ribs, findings=findings, detailed=detailed,
         limits=_limits(b), support=b.support, web_openings=b.web_openings,
     )
+
+
+def _iso_or_blank(text: str) -> str:
+    """A report date the engine can compare with the pour dates (YYYY-MM-DD), else "" (timing unknown)."""
+    import datetime
+
+    try:
+        return datetime.date.fromisoformat(text.strip()).isoformat()
+    except ValueError:
+        return ""
 
 
 def _limits(b: Beam) -> Limits:

@@ -12,6 +12,13 @@ REPAIR_CAUTION = (
 )
 
 
+TIMING_TEXT = {
+    "before-pour": "before the pour (the crew can still weld studs through the deck)",
+    "after-pour": "after the pour (no stud can be welded in a rib under placed concrete)",
+    "unknown": "not known (no `found` given, nor dates for the finding and every pour stage): both branches follow",
+}
+
+
 def _num(value: float, digits: int = 3) -> float | None:
     return None if value != value or value in (float("inf"), float("-inf")) else float(round(value, digits))
 
@@ -51,11 +58,49 @@ def _governing(r) -> dict[str, Any]:
             "ratio": _num(gov.ratio), "station_in": _at(r.beam, _governing_station(r))}
 
 
-def findings_json(job_name: str, before, repair) -> dict[str, Any]:
+def _acceptance_json(review) -> dict[str, Any] | None:
+    acc = review.acceptance
+    if acc is None:
+        return None
+    b = review.before.beam
+    return {"acceptable": acc.acceptable, "connectors_suffice": acc.connectors_suffice,
+            "qn_missing_kips_left": _num(acc.qn_missing_left), "qn_within_station_in_left": _at(b, acc.qn_within_left),
+            "qn_missing_kips_right": _num(acc.qn_missing_right),
+            "qn_within_station_in_right": _at(b, acc.qn_within_right),
+            "moment_shortfall_kip_ft": _num(acc.moment_shortfall / 12.0),
+            "shortfall_from_station_in": _at(b, acc.shortfall_from), "shortfall_to_station_in": _at(b, acc.shortfall_to),
+            "live_fraction": _num(acc.live_fraction), "live_psf_carried": _num(acc.live_fraction * b.live_psf, 1),
+            "repair_in_open_ribs": None if review.after_repair is None else _repair_rows(review.before, review.after_repair)}
+
+
+def _in_kind_json(review) -> dict[str, Any] | None:
+    kind = review.in_kind
+    if kind is None:
+        return None
+    b, d = review.before.beam, review.before.designed
+    return {"studs_total": kind.total, "moved": kind.moved, "unplaced": kind.unplaced, "verdict": kind.after.verdict,
+            "ribs": [{"rib": int(k) + 1, "station_in": _at(b, float(d.x[k])), "weld": int(kind.weld[k])}
+                     for k in kind.weld.nonzero()[0]]}
+
+
+def no_repair(before):
+    """The empty repair of a beam no stud may be added to (after the pour)."""
+    import numpy as np
+
+    from engine.field.repair import Repair
+
+    return Repair(np.zeros(before.designed.x.size, dtype=int), before, 0, False, ())
+
+
+def findings_json(job_name: str, review) -> dict[str, Any]:
     """The JSON record of `fieldcomp findings --json`."""
     from engine.field.as_built import finding_effect, finding_slot
+    from engine.field.remedy import RETEST, WELD_METHOD
+    from engine.field.timing import finding_timing
     from fieldcomp.views.finished_report import check_json
 
+    before = review.before
+    repair = review.repair if review.repair is not None else review.after_repair or no_repair(before)
     b, r, d = before.beam, before.result, before.designed
     ratio, station = before.min_strength_ratio
     after = repair.after if repair.total else None
@@ -64,7 +109,8 @@ def findings_json(job_name: str, before, repair) -> dict[str, Any]:
         k = finding_slot(d, f, i)
         effect, clause = finding_effect(d, f, k)
         found.append({"index": i + 1, "kind": f.kind, "rib": k + 1, "station_in": _at(b, float(d.x[k])),
-                      "count": f.count, "note": f.note, "effect": effect, "clause": clause})
+                      "count": f.count, "note": f.note, "found": finding_timing(b, d, f, i),
+                      "effect": effect, "clause": clause})
     return {
         "job": job_name,
         "mark": b.mark,
@@ -73,6 +119,8 @@ def findings_json(job_name: str, before, repair) -> dict[str, Any]:
         "span_in": _num(b.span),
         "method": b.method,
         "reference_end": b.ribs.reference_end,
+        "layout_source": review.source,
+        "timing": review.timing,
         "findings": found,
         "studs_designed": d.total,
         "studs_working": before.layout.total,
@@ -102,12 +150,18 @@ def findings_json(job_name: str, before, repair) -> dict[str, Any]:
             "min_ratio_station_in": _at(b, after.min_strength_ratio[1]), "governing": _governing(after)},
         "alternatives": list(repair.alternatives),
         "repair_notes": list(repair.notes),
+        "in_kind": _in_kind_json(review),
+        "acceptance_after_pour": _acceptance_json(review),
+        "weld_method": WELD_METHOD if review.in_kind is not None or review.after_repair is not None else None,
+        "retest": RETEST if review.in_kind is not None or review.after_repair is not None else None,
     }
 
 
-def findings_text(job_name: str, job_path: str, before, repair) -> str:
-    """A readable report: findings with their effect and clause, the beam as built, the repair."""
+def findings_text(job_name: str, job_path: str, review) -> str:
+    """A readable report: the layout findings apply to, findings with their timing, effect and
+    clause, the beam as built, and the remedies of the world each finding was found in."""
     from engine.field.as_built import finding_effect, finding_slot
+    from engine.field.timing import finding_timing
     from engine.studs.ribs import printed_station
     from engine.studs.sheet_data import station_origin_text
     from engine.model.units import format_ft_in, format_inches
@@ -116,19 +170,23 @@ def findings_text(job_name: str, job_path: str, before, repair) -> str:
     def at(x: float) -> str:
         return format_ft_in(float(printed_station(b, x)))
 
+    before = review.before
     b, r, d = before.beam, before.result, before.designed
     ratio, station = before.min_strength_ratio
     k = r.critical
     lines = [f"fieldcomp {__version__} - job '{job_name}' ({job_path}) - stud inspection of beam {b.mark}",
              f"CAUTION: {CAUTION}", f"REPAIRS: {REPAIR_CAUTION}", "",
              f"Beam {b.mark}: {b.shape.name}, span {format_ft_in(b.span)}, {b.method}; {station_origin_text(b)}, "
-             f"ribs numbered 1-{d.x.size} from there"]
+             f"ribs numbered 1-{d.x.size} from there",
+             f"  studs the findings apply to: {review.source}",
+             f"  found: {TIMING_TEXT[review.timing]}"]
     lines.append(f"  findings ({len(b.findings)}):" if b.findings else "  no findings recorded for this beam")
     for i, f in enumerate(b.findings):
         s = finding_slot(d, f, i)
         effect, clause = finding_effect(d, f, s)
         note = f" - \"{f.note}\"" if f.note else ""
-        lines.append(f"  #{i + 1:<2} {f.kind:11} x{f.count} rib {s + 1:>3} @ {at(float(d.x[s])):>10}: "
+        when = finding_timing(b, d, f, i)
+        lines.append(f"  #{i + 1:<2} {f.kind:13} x{f.count} rib {s + 1:>3} @ {at(float(d.x[s])):>10} ({when}): "
                      f"{effect} [{clause}]{note}")
     lines += [
         f"  studs: {d.total} as designed, {before.layout.total} working, {int(before.lost.sum())} lost, "
@@ -147,21 +205,100 @@ def findings_text(job_name: str, job_path: str, before, repair) -> str:
     lines.append(f"  verdict (as built): {before.verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f} "
                  f"at {at(_governing_station(before))}; {gov.clause}; {gov.authority})")
     lines.append("")
-    if before.verdict == "pass":
-        lines.append("Repair: none needed.")
-    elif repair.restores:
-        proof = ("the fewest possible (lower bound met)" if repair.proven_fewest
-                 else f"the fewest the search found; no repair can use fewer than {repair.lower_bound}")
-        lines.append(f"Repair: add {repair.total} stud(s), {proof}:")
-        for row in _repair_rows(before, repair):
-            lines.append(f"  rib {row['rib']:>3} @ {format_ft_in(row['station_in'])}: add {row['added']} "
-                         f"({row['studs_in_rib_after']} in the rib after)")
-        a = repair.after
-        lines.append(f"  after repair: {a.verdict.upper()}; least capacity/demand {a.min_strength_ratio[0]:.2f}; "
-                     f"governing {a.governing.name}, ratio {a.governing.ratio:.2f}")
-        lines += [f"  note: {n}" for n in repair.notes]
-    else:
-        lines.append("Repair: added studs alone do not restore this beam.")
-        lines += [f"  option: {a}" for a in repair.alternatives]
+    lines += remedy_lines(review, at)
     lines += ["", f"CAUTION: {CAUTION}", f"REPAIRS: {REPAIR_CAUTION}"]
     return "\n".join(lines)
+
+
+def _fewest_lines(before, repair, at) -> list[str]:
+    """The fewest-stud repair (engine.field.repair) as report lines."""
+    if repair.restores and repair.total == 0:
+        return ["    none needed: the beam passes as built."]
+    if not repair.restores:
+        return ["    added studs alone do not restore this beam."] + [f"    option: {a}" for a in repair.alternatives]
+    proof = ("the fewest possible (lower bound met)" if repair.proven_fewest
+             else f"the fewest the search found; no repair can use fewer than {repair.lower_bound}")
+    out = [f"    add {repair.total} stud(s), {proof}:"]
+    for row in _repair_rows(before, repair):
+        out.append(f"      rib {row['rib']:>3} @ {at(float(before.designed.x[row['rib'] - 1]))}: add {row['added']} "
+                   f"({row['studs_in_rib_after']} in the rib after)")
+    a = repair.after
+    out.append(f"    after repair: {a.verdict.upper()}; least capacity/demand {a.min_strength_ratio[0]:.2f}; "
+               f"governing {a.governing.name}, ratio {a.governing.ratio:.2f}")
+    return out + [f"    note: {n}" for n in repair.notes]
+
+
+def _in_kind_lines(before, kind, at) -> list[str]:
+    """The replacement in kind (engine.field.remedy.in_kind) as report lines."""
+    if kind.total == 0:
+        return ["    nothing to replace."]
+    out = [f"    weld {kind.total} stud(s) in kind:"]
+    lost = before.lost
+    for k in map(int, kind.weld.nonzero()[0]):
+        what = "remove the failed stud(s) and replace" if before.state.in_rib[k] > before.state.effective[k] else "replace"
+        out.append(f"      rib {k + 1:>3} @ {at(float(before.designed.x[k]))}: {what} {int(kind.weld[k])}"
+                   + ("" if lost[k] else " (moved here from a rib under concrete)"))
+    if kind.unplaced:
+        out.append(f"    {kind.unplaced} lost stud(s) have no open rib with room")
+    a = kind.after
+    out.append(f"    after replacement: {a.verdict.upper()}; least capacity/demand {a.min_strength_ratio[0]:.2f}; "
+               f"governing {a.governing.name}, ratio {a.governing.ratio:.2f}")
+    return out
+
+
+def _acceptance_lines(review, at) -> list[str]:
+    """Acceptance by analysis after the pour (engine.field.remedy.acceptance) as report lines."""
+    acc, before = review.acceptance, review.before
+    gov = before.governing
+    out = [f"  as built: {before.verdict.upper()} (governing {gov.name}, ratio {gov.ratio:.2f}; {gov.authority}); "
+           f"acceptable by analysis: {'yes' if acc.acceptable else 'no, unless the engineer of record accepts it'}"]
+    if acc.acceptable:
+        return out
+    ref, far = before.beam.ribs.reference_end, before.beam.ribs.far_end
+    out.append("  what each remedy must supply (the engineer of record chooses; no product is implied):")
+    if not acc.connectors_suffice:
+        out.append("    post-installed shear connectors: even full composite action does not restore the beam")
+    else:
+        if acc.qn_missing_left > 0.0:
+            out.append(f"    post-installed shear connectors: sum Qn {acc.qn_missing_left:.1f} kips more between "
+                       f"{ref} and {at(acc.qn_within_left)} (reference-end shear span)")
+        if acc.qn_missing_right > 0.0:
+            out.append(f"    post-installed shear connectors: sum Qn {acc.qn_missing_right:.1f} kips more between "
+                       f"{at(acc.qn_within_right)} and {far} (far-end shear span)")
+    if acc.moment_shortfall > 0.0:
+        out.append(f"    strengthening the steel: {acc.moment_shortfall / 12.0:.1f} kip-ft of design strength short "
+                   f"at most, from {at(acc.shortfall_from)} to {at(acc.shortfall_to)}")
+    else:
+        out.append("    strengthening the steel: the design strength meets the demand everywhere")
+    b = before.beam
+    out.append(f"    load restriction: the beam as built carries {acc.live_fraction:.0%} of its live load "
+               f"({acc.live_fraction * b.live_psf:.0f} psf of {b.live_psf:.0f} psf"
+               + (", point live loads in proportion)" if b.point_loads else ")")
+               + ("" if acc.live_fraction < 1.0 else "; the shortfall is in detailing, not load"))
+    for c in before.checks:
+        if c.kind == "detailing" and not c.passed and c.id != "composite.degree_min":
+            where = "" if c.station is None else f" at {at(c.station)}"
+            out.append(f"    detailing: {c.name} fails{where} [{c.clause}]: post-installed connectors there, or the "
+                       "engineer of record accepts it")
+    if review.after_repair is not None:
+        out.append("  ribs the concrete does not yet cover (a later pour stage):")
+        out += _fewest_lines(before, review.after_repair, at)
+    return out
+
+
+def remedy_lines(review, at) -> list[str]:
+    """The remedies of each branch the findings' timing leaves open."""
+    from engine.field.remedy import RETEST, WELD_METHOD
+
+    out: list[str] = []
+    if review.in_kind is not None:
+        out += ["Before the pour (the crew can still weld):", "  (a) replacement in kind, same rib:"]
+        out += _in_kind_lines(review.before, review.in_kind, at)
+        out.append("  (b) fewest studs that restore every check:")
+        out += _fewest_lines(review.before, review.repair, at)
+        out += [f"  method: {WELD_METHOD}", f"  re-test: {RETEST}"]
+    if review.acceptance is not None:
+        out += ([""] if out else []) + ["After the pour (no stud is welded in a rib under placed concrete): "
+                                        "acceptance by analysis"]
+        out += _acceptance_lines(review, at)
+    return out

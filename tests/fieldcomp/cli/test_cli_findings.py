@@ -60,7 +60,7 @@ def test_text_report_carries_the_cautions_and_the_repair(capsys):
     assert main(["findings", DEMO, "--beam", "3B-103"]) == 1
     text = capsys.readouterr().out
     assert "engineer of record" in text and "AWS D1.1" in text and "approved before work" in text
-    assert "Repair: add" in text and "verdict (as built): FAIL" in text and "AISC 360-22 I8.2a" in text
+    assert "fewest studs that restore every check:" in text and "verdict (as built): FAIL" in text and "AISC 360-22 I8.2a" in text
 
 
 def test_contradicting_finding_in_the_job_exits_2_naming_it(tmp_path, capsys):
