@@ -22,6 +22,9 @@ def register(sub) -> None:
     f.add_argument("--repair-svg", metavar="PATH", help="write the repair marks sheet (SVG) here")
     f.add_argument("--import", dest="import_csv", metavar="CSV",
                    help="first add the findings of an inspection log (CSV) to the beam and save the job")
+    f.add_argument("--as-detailed", dest="detailed_csv", metavar="CSV",
+                   help="first set the beam's as-detailed studs (shop drawings) from a marks CSV (rib or station, "
+                        "and count columns) and save the job")
 
 
 def run(args: argparse.Namespace) -> int:
@@ -33,10 +36,14 @@ def run(args: argparse.Namespace) -> int:
     from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError
     from fieldcomp.views.findings_report import findings_json, findings_text
 
+    from fieldcomp.jobs.detailed_csv import DetailedCsvError
+
     try:
+        if args.detailed_csv:
+            print(import_detailed(args.job, args.beam, args.detailed_csv), file=sys.stderr)
         if args.import_csv:
             print(import_log(args.job, args.beam, args.import_csv), file=sys.stderr)
-    except (JobFileError, CsvImportError, ChangedOnDiskError) as exc:
+    except (JobFileError, CsvImportError, ChangedOnDiskError, DetailedCsvError) as exc:
         return fail_input(exc)
     except OSError as exc:
         return fail_input(f"cannot save {args.job}: {exc.strerror or exc}")
@@ -60,6 +67,32 @@ def run(args: argparse.Namespace) -> int:
     else:
         print(findings_text(job.project.name, args.job, review))
     return exit_code([str(before.verdict)])
+
+
+def import_detailed(job_path: str, mark: str, csv_path: str) -> str:
+    """Set one beam's as-detailed studs from a marks CSV and save the job (atomic, .bak kept);
+    the beam is converted first, so on any error nothing is written. Returns a one-line summary."""
+    from fieldcomp.cli.common import load_inputs
+    from engine.field.detailed import DetailedLayoutError
+    from engine.pipeline import as_poured, field_layout
+    from fieldcomp.jobs.detailed_csv import DetailedCsvError, read_detailed_csv
+    from fieldcomp.jobs.jobfile import load_job, save_job
+    from fieldcomp.jobs.to_engine import to_engine
+
+    loaded = load_job(job_path)
+    load_inputs(job_path, mark)
+    rows = read_detailed_csv(csv_path, mark)
+    job = loaded.job
+    updated = job.model_copy(update={"beam": [
+        b.model_copy(update={"as_detailed": rows}) if b.mark == mark else b for b in job.beam]})
+    merged = next(b for b in to_engine(updated, job_path) if b.mark == mark)
+    try:
+        field_layout(as_poured(merged)[0])
+    except DetailedLayoutError as exc:
+        raise DetailedCsvError(csv_path, [(None, f"{exc} (beam {mark})")]) from None
+    save_job(updated, job_path, expected_digest=loaded.digest)
+    return (f"set {sum(r.studs for r in rows)} as-detailed stud(s) in {len(rows)} rib(s) of beam {mark} in {job_path} "
+            f"(previous version kept as {Path(job_path).name}.bak)")
 
 
 def import_log(job_path: str, mark: str, csv_path: str) -> str:
