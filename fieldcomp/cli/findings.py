@@ -17,7 +17,11 @@ from fieldcomp.cli.common import exit_code, fail_input
 def register(sub) -> None:
     f = sub.add_parser("findings", help="check one beam against its stud inspection findings; propose a repair")
     f.add_argument("job", help="job file (.toml)")
-    f.add_argument("--beam", metavar="MARK", required=True, help="the beam inspected")
+    which = f.add_mutually_exclusive_group(required=True)
+    which.add_argument("--beam", metavar="MARK", help="the beam inspected")
+    which.add_argument("--all", action="store_true",
+                       help="the floor summary: every beam's reports, open findings, as-built verdict, repair, disposition")
+    f.add_argument("--csv", metavar="PATH", help="with --all: also write the floor summary as CSV to PATH")
     f.add_argument("--json", action="store_true", help="print one JSON object")
     f.add_argument("--repair-svg", metavar="PATH", help="write the repair marks sheet (SVG) here")
     f.add_argument("--import", dest="import_csv", metavar="CSV",
@@ -28,6 +32,10 @@ def register(sub) -> None:
 
 
 def run(args: argparse.Namespace) -> int:
+    if args.all:
+        if args.import_csv or args.detailed_csv or args.repair_svg:
+            return fail_input("--all reads the job only: --import, --as-detailed and --repair-svg need --beam")
+        return run_all(args)
     from engine.field.as_built import FindingError
     from engine.field.detailed import DetailedLayoutError
     from engine.pipeline import field_review
@@ -62,11 +70,55 @@ def run(args: argparse.Namespace) -> int:
             write_sheet(args.repair_svg, job.project.name, review)
         except OSError as exc:
             return fail_input(f"cannot write {args.repair_svg}: {exc.strerror or exc}")
+    records = finding_records(next(b for b in job.beam if b.mark == args.beam))
     if args.json:
-        print(json.dumps(findings_json(job.project.name, review), indent=2))
+        print(json.dumps(findings_json(job.project.name, review, records), indent=2))
     else:
-        print(findings_text(job.project.name, args.job, review))
+        print(findings_text(job.project.name, args.job, review, records))
     return exit_code([str(before.verdict)])
+
+
+def finding_records(beam) -> list[dict[str, str]]:
+    """Each finding's report number and governing disposition (fieldcomp.jobs.records)."""
+    from fieldcomp.jobs.records import finding_disposition
+
+    out = []
+    for f in beam.finding:
+        d = finding_disposition(beam, f)
+        out.append({"report": f.report, "disposition": "open" if d is None else d.status,
+                    "disposition_by": "" if d is None else d.by, "disposition_on": "" if d is None else d.on})
+    return out
+
+
+def run_all(args: argparse.Namespace) -> int:
+    """The floor summary as text or JSON (and CSV with --csv); exit code by the worst as-built verdict."""
+    from engine.field.as_built import FindingError
+    from engine.pipeline import field_review
+    from fieldcomp.cli.common import load_inputs
+    from fieldcomp.jobs.atomic import write_text_atomic
+    from fieldcomp.jobs.jobfile import JobFileError
+    from fieldcomp.views.floor_findings import floor_csv, floor_json, floor_rows, floor_text
+
+    try:
+        job, beams = load_inputs(args.job)
+        reviews = {}
+        for b in beams:
+            if b.findings:
+                try:
+                    reviews[b.mark] = field_review(b)
+                except FindingError as exc:
+                    raise JobFileError(args.job, [(f"beam '{b.mark}', field 'finding[{exc.index}]'", str(exc))]) from None
+    except JobFileError as exc:
+        return fail_input(exc)
+    rows = floor_rows(job, reviews)
+    if args.csv:
+        try:
+            write_text_atomic(Path(args.csv), floor_csv(rows))
+        except OSError as exc:
+            return fail_input(f"cannot write {args.csv}: {exc.strerror or exc}")
+    print(json.dumps(floor_json(job.project.name, rows), indent=2) if args.json
+          else floor_text(job.project.name, args.job, rows))
+    return exit_code([str(r.before.verdict) for r in reviews.values()])
 
 
 def import_detailed(job_path: str, mark: str, csv_path: str) -> str:

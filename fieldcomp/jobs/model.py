@@ -141,6 +141,23 @@ def _iso_date(text: str) -> str:
 IsoDate = Annotated[str, AfterValidator(_iso_date), Field(max_length=10, description="A date as YYYY-MM-DD, or empty.")]
 
 
+DispositionStatus = Literal["open", "accepted-by-eor", "repair-ordered", "repaired", "re-inspected"]
+
+
+class DispositionIn(Strict):
+    status: DispositionStatus = Field(description="open, accepted by the engineer of record, repair ordered, repaired, or re-inspected.")
+    by: str = Field("", max_length=100, description="Who set it (the engineer of record for acceptance and repair orders).")
+    on: IsoDate = Field("", description="When, YYYY-MM-DD.")
+    note: str = Field("", max_length=500, description="Remark, e.g. the letter or RFI number.")
+
+
+class ReportIn(Strict):
+    number: str = Field(min_length=1, max_length=40, description="Inspection report number, e.g. SI-07.")
+    date: IsoDate = Field("", description="Date of the inspection, YYYY-MM-DD.")
+    inspector: str = Field("", max_length=100, description="Who inspected.")
+    history: list[DispositionIn] = Field(default_factory=list, description="Dispositions of the whole report, oldest first (kept: add, never edit).")
+
+
 class FindingIn(Strict):
     kind: FindingKind = Field(description="What the inspector found.")
     rib: int | None = Field(None, ge=1, le=10000, description="Rib number from the reference end, 1-based.")
@@ -150,6 +167,8 @@ class FindingIn(Strict):
     date: str = Field("", max_length=40, description="Date of the report; written YYYY-MM-DD, with the pour dates it tells whether the slab over the finding was placed.")
     found: Literal["before-pour", "after-pour"] | None = Field(None, description="Whether the slab over the finding was placed when it was found (default: derived from date and the pour dates, else unknown: both branches are reported).")
     reported_by: str = Field("", max_length=100, description="Who reported it.")
+    report: str = Field("", max_length=40, description="Number of the inspection report it belongs to ([[beam.report]] number).")
+    history: list[DispositionIn] = Field(default_factory=list, description="Dispositions of this finding, oldest first; the latest governs over its report's.")
 
     @model_validator(mode="after")
     def _one_place(self) -> "FindingIn":
@@ -207,6 +226,7 @@ class Beam(Strict):
     studs: Studs = Field(description="Headed stud anchors.")
     pour: list[Pour] = Field(default_factory=list, description="Pour stages (default: the whole slab at once).")
     finding: list[FindingIn] = Field(default_factory=list, description="Stud inspection findings.")
+    report: list[ReportIn] = Field(default_factory=list, description="Stud inspection reports on this beam; findings name theirs by number.")
     as_detailed: list[DetailedRibIn] = Field(default_factory=list, description="The studs as detailed on the shop drawings, rib by rib (ribs not listed hold none); findings apply to this layout. Leave out: findings apply to fieldcomp's own layout.")
 
     @model_validator(mode="after")
@@ -215,6 +235,16 @@ class Beam(Strict):
             spacing, edge = getattr(self, f"spacing_{side}"), getattr(self, f"edge_{side}")
             if (spacing is None) == (edge is None):
                 raise ValueError(f"give exactly one of spacing_{side} or edge_{side}")
+        return self
+
+    @model_validator(mode="after")
+    def _reports(self) -> "Beam":
+        numbers = [r.number for r in self.report]
+        if len(set(numbers)) != len(numbers):
+            raise ValueError("report numbers must be unique on a beam")
+        for i, f in enumerate(self.finding):
+            if f.report and f.report not in numbers:
+                raise ValueError(f"finding[{i}] names report '{f.report}', which is not among [[beam.report]]")
         return self
 
     @model_validator(mode="after")

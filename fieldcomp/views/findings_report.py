@@ -92,7 +92,7 @@ def no_repair(before):
     return Repair(np.zeros(before.designed.x.size, dtype=int), before, 0, False, ())
 
 
-def findings_json(job_name: str, review) -> dict[str, Any]:
+def findings_json(job_name: str, review, records: list[dict[str, str]] | None = None) -> dict[str, Any]:
     """The JSON record of `fieldcomp findings --json`."""
     from engine.field.as_built import finding_effect, finding_slot
     from engine.field.remedy import RETEST, WELD_METHOD
@@ -110,7 +110,7 @@ def findings_json(job_name: str, review) -> dict[str, Any]:
         effect, clause = finding_effect(d, f, k)
         found.append({"index": i + 1, "kind": f.kind, "rib": k + 1, "station_in": _at(b, float(d.x[k])),
                       "count": f.count, "note": f.note, "found": finding_timing(b, d, f, i),
-                      "effect": effect, "clause": clause})
+                      "effect": effect, "clause": clause, **(records[i] if records else {})})
     return {
         "job": job_name,
         "mark": b.mark,
@@ -157,7 +157,7 @@ def findings_json(job_name: str, review) -> dict[str, Any]:
     }
 
 
-def findings_text(job_name: str, job_path: str, review) -> str:
+def findings_text(job_name: str, job_path: str, review, records: list[dict[str, str]] | None = None) -> str:
     """A readable report: the layout findings apply to, findings with their timing, effect and
     clause, the beam as built, and the remedies of the world each finding was found in."""
     from engine.field.as_built import finding_effect, finding_slot
@@ -188,6 +188,11 @@ def findings_text(job_name: str, job_path: str, review) -> str:
         when = finding_timing(b, d, f, i)
         lines.append(f"  #{i + 1:<2} {f.kind:13} x{f.count} rib {s + 1:>3} @ {at(float(d.x[s])):>10} ({when}): "
                      f"{effect} [{clause}]{note}")
+        if records:
+            rec = records[i]
+            who = ", ".join(v for v in (rec["disposition_by"], rec["disposition_on"]) if v)
+            lines.append(f"      report {rec['report'] or '(none)'}; disposition {rec['disposition']}"
+                         + (f" ({who})" if who else ""))
     lines += [
         f"  studs: {d.total} as designed, {before.layout.total} working, {int(before.lost.sum())} lost, "
         f"{int(before.state.added.sum())} added in the field",
