@@ -8,19 +8,21 @@ from dataclasses import dataclass, replace
 import numpy as np
 
 from engine.construction.evaluate import ConstructionResult, evaluate_construction
-from engine.field.as_built import AsBuiltResult, evaluate_as_built
+from engine.field.as_built import AsBuiltResult, evaluate_as_built, finding_slot
 from engine.field.detailed import SOURCE_DETAILED, SOURCE_FIELDCOMP, detailed_layout
-from engine.field.remedy import Acceptance, InKind, acceptance, fewest_studs, in_kind
+from engine.field.remedy import RETEST, WELD_METHOD, Acceptance, InKind, acceptance, fewest_studs, in_kind
 from engine.field.repair import Repair
 from engine.field.timing import AFTER, BEFORE, beam_timing, closed_slots
 from engine.finished.evaluate import BeamResult, evaluate_finished
 from engine.model.inputs import BeamInput, PondedConcrete
 from engine.model.results import Check
 from engine.model.scope import check_scope
+from engine.model.units import format_ft_in
 from engine.studs.design import SHORTFALL_CLAUSE, design_layout
 from engine.studs.detailing import DECK_ANCHOR_CLAUSE, deck_checks
 from engine.studs.evaluate import evaluate_studs
 from engine.studs.layout import LayoutResult, StudLayout
+from engine.studs.ribs import printed_station
 from engine.studs.sheet_data import Envelope, SheetData
 
 
@@ -127,3 +129,38 @@ def field_review(beam: BeamInput) -> FieldReview:
         if not accept.acceptable and not closed.all():
             late = fewest_studs(before, closed)
     return FieldReview(source, before, timing, kind, repair, accept, late)
+
+
+def field_sheet(job_name: str, date: str, review: FieldReview, caution: str) -> SheetData:
+    """The repair sheet a crew follows: before the pour the replacement in kind (each lost stud
+    welded again in its rib; engine.field.remedy.in_kind), with the welding method and re-test
+    (when the timing is not recorded, only on the engineer of record's confirmation that no
+    concrete is placed there); after the pour no stud to weld, only acceptance by analysis. Each lost stud keeps its finding
+    kind for the drawing; the sheet carries the engineer of record's approval block."""
+    before, d = review.before, review.before.designed
+    kinds = [""] * d.x.size
+    for i, f in enumerate(before.beam.findings):
+        k = finding_slot(d, f, i)
+        if f.kind not in ("added", "bent-accepted", "replaced"):
+            kinds[k] = kinds[k] or f.kind
+    zero = np.zeros(d.x.size, dtype=int)
+    if review.in_kind is not None:
+        kind = review.in_kind
+        steps = []
+        for k in map(int, np.flatnonzero(kind.weld)):
+            what = ("REMOVE THE DEFECTIVE STUD AND REPLACE" if before.state.in_rib[k] > before.state.effective[k]
+                    else "REPLACE")
+            steps.append(f"RIB {k + 1} @ {format_ft_in(float(printed_station(before.beam, float(d.x[k]))))}: "
+                         f"{what} {int(kind.weld[k])}, THEN RE-TEST")
+        first = () if review.timing == BEFORE else (
+            "ONLY IF NO CONCRETE IS PLACED OVER THESE RIBS (timing not recorded): the engineer of record confirms "
+            "first; if it is placed, weld nothing.",)
+        instructions = first + tuple(steps or ["NOTHING TO WELD"]) + (f"METHOD: {WELD_METHOD}", f"RE-TEST: {RETEST}")
+        repair = Repair(kind.weld, kind.after, 0, kind.after.verdict != "fail", ())
+    else:
+        instructions = ("AFTER THE POUR: DO NOT WELD ANY STUD. The beam is accepted by analysis or by a remedy the "
+                        "engineer of record orders (see the findings report).",)
+        repair = Repair(zero, before, 0, False, ())
+    sheet = repair_sheet(job_name, date, before, repair, caution)
+    return replace(sheet, title="Stud repair - crew sheet", instructions=instructions, lost_kinds=tuple(kinds),
+                   approval=True)

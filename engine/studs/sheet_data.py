@@ -50,6 +50,9 @@ class SheetData:
     lost: np.ndarray | None = None
     added: np.ndarray | None = None
     envelope: Envelope | None = None
+    instructions: tuple[str, ...] = ()  # what the crew does, printed first in large type (field sheets)
+    lost_kinds: tuple[str, ...] = ()  # per slot, the finding kind of its lost studs ("" where none)
+    approval: bool = False  # print the engineer of record's approval block
 
 
 @dataclass(frozen=True, slots=True)

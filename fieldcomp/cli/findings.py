@@ -201,16 +201,14 @@ def _rows_against_layout(beam, designed, existing, rows, new) -> list[tuple[int 
 
 
 def write_sheet(path: str, job_name: str, review) -> None:
-    """Write the repair marks sheet (SVG) atomically: the studs to weld before the pour (the
-    replacement in kind, else the fewest-stud repair), none in a rib under placed concrete."""
+    """Write the crew's repair sheet (SVG) atomically: before the pour the replacement in kind,
+    after it (or when the timing is not known) no stud to weld (engine.pipeline.field_sheet)."""
     import datetime
 
-    from engine.pipeline import repair_sheet
+    from engine.pipeline import field_sheet
     from fieldcomp.jobs.atomic import write_text_atomic
-    from fieldcomp.views.findings_report import REPAIR_CAUTION, no_repair
+    from fieldcomp.views.findings_report import REPAIR_CAUTION
     from fieldcomp.views.marks_svg import marks_svg
 
-    before = review.before
-    repair = review.repair if review.repair is not None else review.after_repair or no_repair(before)
-    sheet = repair_sheet(job_name, datetime.date.today().isoformat(), before, repair, f"{CAUTION} {REPAIR_CAUTION}")
+    sheet = field_sheet(job_name, datetime.date.today().isoformat(), review, f"{CAUTION} {REPAIR_CAUTION}")
     write_text_atomic(Path(path), marks_svg(sheet))

@@ -7,6 +7,7 @@ from __future__ import annotations
 
 import math
 import textwrap
+from dataclasses import replace
 from xml.sax.saxutils import escape
 
 import numpy as np
@@ -39,15 +40,46 @@ def _px(x: float, span: float) -> float:
     return X0 + (X1 - X0) * x / span
 
 
-def _stud(kind: str, dx: float, top: float) -> str:
+LOST_SYMBOLS = {  # finding kind -> (legend text, extra marks drawn over the slashed ring)
+    "missing": ("missing (dashed ring)", "dash"),
+    "failed-test": ("failed test (ring crossed)", "cross"),
+    "awaiting-test": ("awaiting bend test (ring, ?)", "query"),
+    "short": ("short (short stem)", "short"),
+    "off-rib": ("off the rib (head set aside)", "aside"),
+    "weak-side": ("weak side (half ring)", "half"),
+}
+
+
+def _lost_kind_mark(mark: str, dx: float, top: float) -> str:
+    """The extra mark of one lost-stud kind (our own symbols; see LOST_SYMBOLS)."""
+    if mark == "dash":
+        return (f'<circle cx="{dx:.2f}" cy="{top:.2f}" r="5.2" fill="none" stroke="{LOST}" stroke-width="0.8" '
+                'stroke-dasharray="2 1.5"/>')
+    if mark == "cross":
+        return (f'<line x1="{dx - 3.6:.2f}" y1="{top - 3.6:.2f}" x2="{dx + 3.6:.2f}" y2="{top + 3.6:.2f}" '
+                f'stroke="{LOST}" stroke-width="1.2"/>')
+    if mark == "query":
+        return _t(dx, top - 6, "?", "s", "middle", f' style="fill:{LOST};font-weight:bold"')
+    if mark == "short":
+        return f'<rect x="{dx - 1.5:.2f}" y="{top + 4:.2f}" width="3" height="10" fill="white"/>'
+    if mark == "aside":
+        return f'<circle cx="{dx + 6:.2f}" cy="{top + 8:.2f}" r="2" fill="{LOST}"/>'
+    if mark == "half":
+        return f'<path d="M {dx - 3.4:.2f} {top:.2f} A 3.4 3.4 0 0 0 {dx + 3.4:.2f} {top:.2f} Z" fill="{LOST}"/>'
+    return ""
+
+
+def _stud(kind: str, dx: float, top: float, lost_kind: str = "") -> str:
     """One stud symbol at local x `dx`: stem from the flange up to a head (our own marks: a round
-    head in place, a slashed ring when lost, a diamond when added)."""
+    head in place, a slashed ring when lost, with a mark for the finding kind where known, a
+    diamond when added)."""
     colour = {"lost": LOST, "added": ADDED}.get(kind, INK)
     stem = f'<line x1="{dx:.2f}" y1="190" x2="{dx:.2f}" y2="{top + 3:.2f}" stroke="{colour}" stroke-width="1.1"/>'
     if kind == "lost":
         head = (f'<circle cx="{dx:.2f}" cy="{top:.2f}" r="3.4" fill="white" stroke="{LOST}" stroke-width="1.2"/>'
                 f'<line x1="{dx - 3.6:.2f}" y1="{top + 3.6:.2f}" x2="{dx + 3.6:.2f}" y2="{top - 3.6:.2f}" '
                 f'stroke="{LOST}" stroke-width="1.2"/>')
+        head += _lost_kind_mark(LOST_SYMBOLS.get(lost_kind, ("", ""))[1], dx, top)
     elif kind == "added":
         pts = f"{dx:.2f},{top - 4.2:.2f} {dx + 4.2:.2f},{top:.2f} {dx:.2f},{top + 4.2:.2f} {dx - 4.2:.2f},{top:.2f}"
         head = f'<polygon points="{pts}" fill="{ADDED}"/>'
@@ -151,7 +183,8 @@ def _strip(sheet: SheetData, top_y: float) -> list[str]:
         c = _px(lay.x[i], span)
         kinds = ["placed"] * int(lay.count[i] - lost[i]) + ["lost"] * int(lost[i]) + ["added"] * int(added[i])
         shift = sign.get(str(lay.side[i]), 0.0) * offset if b.deck_case == DeckCase.PERPENDICULAR else 0.0
-        marks = "".join(_stud(k, shift + 5.0 * (j - (len(kinds) - 1) / 2), 165.0) for j, k in enumerate(kinds))
+        why = sheet.lost_kinds[i] if sheet.lost_kinds else ""
+        marks = "".join(_stud(k, shift + 5.0 * (j - (len(kinds) - 1) / 2), 165.0, why) for j, k in enumerate(kinds))
         out.append(f'<g class="stud-mark" data-slot="{lay.number[i]}" data-station-in="{lay.x[i]:.4f}" '
                    f'data-studs="{int(lay.count[i])}" transform="translate({c:.3f},0)">{marks}</g>')
         label = str(lay.number[i])
@@ -248,8 +281,46 @@ def _summary(sheet: SheetData, x: float, y: float, bottom: float) -> list[str]:
     return out
 
 
+def _instructions(sheet: SheetData) -> tuple[list[str], float]:
+    """The crew's instructions first, in large type, the lost-stud kinds and the engineer of
+    record's approval block: (elements, height of the band)."""
+    if not sheet.instructions and not sheet.approval:
+        return [], 0.0
+    out = [_t(20, 30, "DO THIS", "k", extra=' style="font-size:10px"')]
+    y = 52.0
+    for line in sheet.instructions:
+        big = not line.startswith(("METHOD:", "RE-TEST:"))
+        for part in textwrap.wrap(line, 70 if big else 150):
+            out.append(_t(20, y, part, "v", extra=' style="font-size:17px;font-weight:bold"' if big else ""))
+            y += 22 if big else 13
+    kinds = sorted({k for k in sheet.lost_kinds if k in LOST_SYMBOLS})
+    if kinds:
+        out.append(_t(20, y + 4, "LOST STUDS AS FOUND: " + "; ".join(LOST_SYMBOLS[k][0] for k in kinds), "s"))
+        y += 16
+    if sheet.approval:
+        out += [f'<rect x="20" y="{y:.2f}" width="960" height="38" fill="none" stroke="{INK}"/>',
+                _t(28, y + 13, "ENGINEER OF RECORD APPROVAL (required before any work)", "k"),
+                _t(28, y + 30, "name ______________________   date ____________   disposition: accepted / repair "
+                   "ordered / repaired / re-inspected   signature ______________", "s")]
+        y += 46
+    return out, y + 6
+
+
 def marks_svg(sheet: SheetData) -> str:
-    """The printable sheet as SVG text (landscape, 10 x 7.5 in: fits letter and tabloid)."""
+    """The printable sheet as SVG text (landscape, 10 x 7.5 in: fits letter and tabloid); a field
+    sheet puts the crew's instructions and the approval block above it (a taller sheet)."""
+    band, band_h = _instructions(sheet)
+    if band:
+        plain = marks_svg(replace(sheet, instructions=(), approval=False))
+        head, rest = plain.split(f'viewBox="0 0 {W} {H}">', 1)
+        pre, body = rest.split(f'<rect x="8" y="8" width="984" height="734" fill="none" stroke="{INK}" stroke-width="1.6"/>', 1)
+        total = H + band_h
+        return (head.replace('height="7.5in"', f'height="{7.5 * total / H:.2f}in"') + f'viewBox="0 0 {W} {total:.0f}">'
+                + pre.replace(f'height="{H}" fill="white"', f'height="{total:.0f}" fill="white"')
+                + f'<rect x="8" y="8" width="984" height="{band_h - 8:.0f}" fill="none" stroke="{INK}" stroke-width="1.6"/>'
+                + "\n".join(band) + f'\n<g transform="translate(0,{band_h:.0f})">'
+                + f'<rect x="8" y="8" width="984" height="734" fill="none" stroke="{INK}" stroke-width="1.6"/>'
+                + body.replace("</svg>", "</g></svg>"))
     overlays = sheet.lost is not None or sheet.added is not None
     body = _title(sheet, overlays) + _strip(sheet, 104) + _dimensions(sheet, 262)
     table_y = 350.0
