@@ -150,3 +150,20 @@ def test_staged_pour_repairs_only_open_ribs(losses):
     assert review.timing == AFTER and review.in_kind is None
     if review.after_repair is not None:
         assert review.after_repair.added[:16].sum() == 0
+
+
+def test_after_the_pour_connectors_must_supply_the_missing_sum_qn():
+    """Seven studs missing in the far-end shear span (ribs 18, 20, ..., 30) after the pour leave
+    9 x 17.23 = 155.1 kip there. C_f = A_s F_y = 13.0 x 50 = 650 kip (AISC 360-22 I3.2d.1; the
+    slab, 0.85 x 4 x 96 x 3.25 = 1061 kip, does not govern), and a degree of composite under 25 %
+    (162.5 kip) is below what AISC 360-22 Commentary I3.2 covers: connectors must supply
+    162.5 - 155.1 = 7.4 kip on that span (the search resolves C_f / 512 = 1.3 kip, never more than
+    needed), none on the other; it is not a load problem (live load carried in full)."""
+    findings = [Finding("missing", rib=k, found="after-pour") for k in range(18, 31, 2)]
+    review = field_review(detailed_beam(findings))
+    acc = review.acceptance
+    assert acc is not None and not acc.acceptable
+    assert review.before.result.sum_qn_right == pytest.approx(9 * Q_WEAK_1, rel=1e-6)
+    need = 0.25 * 650.0 - 9 * Q_WEAK_1
+    assert need - 650.0 / 512 - 1e-6 <= acc.qn_missing_right <= need + 1e-6
+    assert acc.qn_missing_left == 0.0 and acc.live_fraction == 1.0
