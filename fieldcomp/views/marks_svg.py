@@ -83,6 +83,9 @@ def _stud(kind: str, dx: float, top: float, lost_kind: str = "") -> str:
     elif kind == "added":
         pts = f"{dx:.2f},{top - 4.2:.2f} {dx + 4.2:.2f},{top:.2f} {dx:.2f},{top + 4.2:.2f} {dx - 4.2:.2f},{top:.2f}"
         head = f'<polygon points="{pts}" fill="{ADDED}"/>'
+    elif lost_kind == "weak-side":  # a working stud found on the weak side: half ring
+        head = (f'<circle cx="{dx:.2f}" cy="{top:.2f}" r="3.4" fill="white" stroke="{INK}" stroke-width="1"/>'
+                + _lost_kind_mark("half", dx, top).replace(LOST, INK))
     else:
         head = f'<circle cx="{dx:.2f}" cy="{top:.2f}" r="3.4" fill="{INK}"/>'
     return f'<g class="stud-{kind}">{stem}{head}</g>'
