@@ -14,6 +14,7 @@ from pathlib import Path
 
 from pydantic import ValidationError
 
+from fieldcomp.jobs.file_kinds import FileKindError, read_regular
 from fieldcomp.jobs.model import FindingIn
 from engine.model.errors import FieldcompError
 
@@ -33,15 +34,13 @@ class CsvImportError(FieldcompError, ValueError):
 
 
 def read_findings_csv(path: str | os.PathLike[str]) -> list[tuple[int, FindingIn]]:
-    """Read an inspection log file; returns (row number, finding) pairs or raises CsvImportError."""
+    """Read an inspection log file (a regular file of 2 MB at most); returns (row number,
+    finding) pairs or raises CsvImportError."""
     p = Path(path)
     try:
-        size = p.stat().st_size
-        if size > MAX_BYTES:
-            raise CsvImportError(p, [(None, f"file is {size / 1e6:.1f} MB; inspection logs over 2 MB are refused")])
-        data = p.read_bytes()
-    except OSError as exc:
-        raise CsvImportError(p, [(None, f"cannot read: {exc.strerror or exc}")]) from None
+        data = read_regular(p, MAX_BYTES, "inspection logs")
+    except FileKindError as exc:
+        raise CsvImportError(p, [(None, exc.reason)]) from None
     try:
         text = data.decode("utf-8-sig")
     except UnicodeDecodeError as exc:

@@ -13,7 +13,7 @@ from engine.model.inputs import (
 from engine.model.shapes import ShapeNotFoundError, get_shape
 from engine.model.units import parse_length
 from engine.model.errors import FieldcompError
-from fieldcomp.jobs.jobfile import JobFileError
+from fieldcomp.jobs.jobfile import JobFileError, shown
 from fieldcomp.jobs.model import Beam, Job
 
 LIGHTWEIGHT_BELOW_PCF = 135.0  # ACI 318-19 2.3: lightweight concrete 90-135 pcf equilibrium density
@@ -30,22 +30,22 @@ def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInpu
         for field, value in (("pitch", deck.pitch), ("rib_height", deck.rib_height),
                              ("rib_top_width", deck.rib_top_width), ("rib_bottom_width", deck.rib_bottom_width)):
             if value <= 0.0:
-                problems.append((f"deck '{d.id}' #{i + 1}, field '{field}'", "must be greater than zero"))
+                problems.append((f"deck '{shown(d.id)}' #{i + 1}, field '{field}'", "must be greater than zero"))
         if deck.rib_top_width > deck.pitch:
-            problems.append((f"deck '{d.id}' #{i + 1}, field 'rib_top_width'", "wider than the pitch"))
+            problems.append((f"deck '{shown(d.id)}' #{i + 1}, field 'rib_top_width'", "wider than the pitch"))
     slabs = {}
     for i, s in enumerate(job.slab):
         lightweight = s.lightweight if s.lightweight is not None else s.concrete_pcf < LIGHTWEIGHT_BELOW_PCF
         slabs[s.id] = Slab(s.id, decks.get(s.deck) if s.deck else None, parse_length(s.topping),
                            s.concrete_pcf, s.fc_ksi, lightweight)
         if slabs[s.id].topping <= 0.0:
-            problems.append((f"slab '{s.id}' #{i + 1}, field 'topping'", "must be greater than zero"))
+            problems.append((f"slab '{shown(s.id)}' #{i + 1}, field 'topping'", "must be greater than zero"))
     cam = job.project.camber
     rules = CamberRules(cam.fraction, parse_length(cam.increment), parse_length(cam.minimum),
                         parse_length(cam.min_length), parse_length(cam.min_depth))
     beams: list[BeamInput] = []
     for i, b in enumerate(job.beam):
-        here = f"beam '{b.mark}' #{i + 1}"
+        here = f"beam '{shown(b.mark)}' #{i + 1}"
         try:
             beams.append(beam_input(job, b, slabs[b.slab], rules))
         except _FieldProblemError as exc:
@@ -69,7 +69,7 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         raise _FieldProblemError("shape", str(exc)) from None
     span = parse_length(b.span)
     if not 12.0 <= span <= 1200.0:
-        raise _FieldProblemError("span", f"{b.span} is outside 1 ft to 100 ft")
+        raise _FieldProblemError("span", f"{shown(b.span)} is outside 1 ft to 100 ft")
     sides = []
     for side in ("left", "right"):
         spacing, edge = getattr(b, f"spacing_{side}"), getattr(b, f"edge_{side}")
@@ -81,7 +81,7 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
     for k, p in enumerate(b.point_loads):
         x = parse_length(p.at)
         if not 0.0 < x < span:
-            raise _FieldProblemError(f"point_loads[{k}].at", f"{p.at} is not inside the span {b.span}")
+            raise _FieldProblemError(f"point_loads[{k}].at", f"{shown(p.at)} is not inside the span {shown(b.span)}")
         pre = p.dead_kips if p.precomposite_dead_kips is None else p.precomposite_dead_kips
         if pre > p.dead_kips:
             raise _FieldProblemError(f"point_loads[{k}].precomposite_dead_kips", "exceeds dead_kips")
@@ -91,7 +91,7 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         start = parse_length(stage.start)
         end = span if stage.end is None else parse_length(stage.end)
         if not 0.0 <= start < end <= span + 1e-6:
-            raise _FieldProblemError(f"pour[{k}]", f"stage '{stage.name}' must run from 0 to the span with start < end")
+            raise _FieldProblemError(f"pour[{k}]", f"stage '{shown(stage.name)}' must run from 0 to the span with start < end")
         pours.append(PourStage(stage.name, start, min(end, span), stage.side, stage.day, stage.screed))
     if pours:
         try:
@@ -123,7 +123,7 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
                              f.count, f.note) for f in b.finding)
     diameter = parse_length(b.studs.diameter)
     if not 0.25 <= diameter <= 1.0:
-        raise _FieldProblemError("studs.diameter", f"{b.studs.diameter} is outside 1/4 in to 1 in")
+        raise _FieldProblemError("studs.diameter", f"{shown(b.studs.diameter)} is outside 1/4 in to 1 in")
     studs = StudSpec(diameter, b.studs.fu_ksi, parse_length(b.studs.length), b.studs.position,
                      None if b.studs.count == "design" else b.studs.count, b.studs.max_per_rib)
     return BeamInput(
@@ -146,6 +146,6 @@ def require_in_scope(beams: list[BeamInput], path: str | os.PathLike[str] = "<jo
         try:
             check_scope(b)
         except OutOfScopeError as exc:
-            problems.append((f"beam '{b.mark}', field '{exc.field}'", str(exc)))
+            problems.append((f"beam '{shown(b.mark)}', field '{exc.field}'", str(exc)))
     if problems:
         raise JobFileError(path, problems)
