@@ -15,6 +15,7 @@ import tomli_w
 from pydantic import BaseModel, ValidationError
 
 from fieldcomp.jobs.atomic import write_bytes_atomic
+from fieldcomp.jobs.kind_messages import KIND_ERRORS, kind_message
 from fieldcomp.jobs.file_kinds import FileKindError, read_regular
 from fieldcomp.jobs.nesting import JOB_NESTING, MAX_NESTING, deep_line, deep_path
 from fieldcomp.jobs.model import Job
@@ -193,7 +194,16 @@ def _merge(problems: list[tuple[str, str]]) -> list[tuple[str, str]]:
             merged.setdefault(place, []).append(msg)
         else:
             loose.append((place, msg))
-    return loose + [(place, "; or ".join(msgs)) for place, msgs in merged.items()]
+    return loose + [(place, _alternatives(msgs)) for place, msgs in merged.items()]
+
+
+def _alternatives(msgs: list[str]) -> str:
+    """'must be a whole number (got true)' and 'must be 'design' (got true)' as one message."""
+    got = msgs[0][msgs[0].rfind(" (got "):] if " (got " in msgs[0] else ""
+    if len(msgs) > 1 and got and all(m.endswith(got) for m in msgs):
+        stems = [m.removesuffix(got) for m in msgs]
+        return ("; or " if any("," in s for s in stems) else " or ").join(stems) + got
+    return "; or ".join(msgs)
 
 
 def _is_union_tag(part: Any) -> bool:
@@ -225,6 +235,8 @@ def _describe(err: dict[str, Any], raw: dict[str, Any]) -> tuple[str, str]:
         msg = f"must be a table, got {_short(err.get('input'))}"
     elif err.get("type") == "list_type":
         msg = f"must be a list (e.g. [[{table}]] tables), got {_short(err.get('input'))}"
+    elif err.get("type") in KIND_ERRORS:
+        msg = f"{kind_message(err['type'], msg, err.get('input'))} (got {_short(err.get('input'))})"
     elif "input" in err:
         msg = f"{msg} (got {_short(err['input'])})"
     if not loc and index is None:
@@ -233,7 +245,7 @@ def _describe(err: dict[str, Any], raw: dict[str, Any]) -> tuple[str, str]:
 
 
 def _short(value: Any) -> str:
-    text = repr(value)
+    text = ("true" if value else "false") if isinstance(value, bool) else repr(value)
     return text if len(text) <= 60 else text[:57] + "..."
 
 

@@ -19,6 +19,7 @@ import tomli_w
 
 from fieldcomp.jobs.jobfile import JobFileError, dump_job, load_job, parse_job, save_job
 from fieldcomp.jobs.model import Job
+from fieldcomp.jobs.typed_text import value_from_text
 from engine.model.errors import FieldcompError
 
 Path_ = tuple[str | int, ...]  # ("beam", 0, "studs", "count")
@@ -232,7 +233,7 @@ def _setter(path: Path_, text: str) -> Callable[[dict[str, Any]], None]:
         if value == "":
             parent.pop(key, None)
             return
-        parent[key] = value
+        parent[key] = value_from_text(path, value)
         partner = PARTNERS.get(str(key))
         if partner is not None:
             parent.pop(partner, None)
