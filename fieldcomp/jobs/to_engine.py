@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import os
+from dataclasses import fields
 
 from engine.construction.evaluate import CONSTRUCTION_LOAD_PSF
 from engine.construction.pours import check_stages
@@ -11,11 +12,13 @@ from engine.model.inputs import (
     BeamInput, CamberRules, ConstructionSpec, Finding, Limits, Method, PointLoad, PourStage, RibSettings, StudSpec,
 )
 from engine.model.shapes import ShapeNotFoundError, get_shape
-from engine.model.units import parse_length
+from engine.model.units import format_inches, parse_length
 from engine.model.errors import FieldcompError
 from fieldcomp.jobs.jobfile import JobFileError, shown
 from fieldcomp.jobs.model import Beam, Job
 
+STATIONS = next(f.default for f in fields(BeamInput) if f.name == "n_stations")  # the engine's station grid
+MAX_POUR_STAGES = 20  # a pour plan placed in short segments from both sides stays well under this
 LIGHTWEIGHT_BELOW_PCF = 135.0  # ACI 318-19 2.3: lightweight concrete 90-135 pcf equilibrium density
 
 
@@ -33,6 +36,10 @@ def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInpu
                 problems.append((f"deck '{shown(d.id)}' #{i + 1}, field '{field}'", "must be greater than zero"))
         if deck.rib_top_width > deck.pitch:
             problems.append((f"deck '{shown(d.id)}' #{i + 1}, field 'rib_top_width'", "wider than the pitch"))
+        elif deck.rib_top_width < deck.rib_bottom_width:
+            problems.append((f"deck '{shown(d.id)}' #{i + 1}, field 'rib_top_width'",
+                             f"{shown(d.rib_top_width)} is narrower than rib_bottom_width {shown(d.rib_bottom_width)}: "
+                             "a concrete rib widens from the deck pan to the deck top (re-entrant profiles are not covered)"))
     slabs = {}
     for i, s in enumerate(job.slab):
         lightweight = s.lightweight if s.lightweight is not None else s.concrete_pcf < LIGHTWEIGHT_BELOW_PCF
@@ -86,6 +93,9 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         if pre > p.dead_kips:
             raise _FieldProblemError(f"point_loads[{k}].precomposite_dead_kips", "exceeds dead_kips")
         point_loads.append(PointLoad(x, p.dead_kips, p.live_kips, pre, p.construction_live_kips))
+    if len(b.pour) > MAX_POUR_STAGES:
+        raise _FieldProblemError("pour", f"{len(b.pour)} pour stages; at most {MAX_POUR_STAGES} are computed for one beam "
+                                 "(each stage recomputes the whole span, and the time grows with the square of the count)")
     pours = []
     for k, stage in enumerate(b.pour):
         start = parse_length(stage.start)
@@ -102,9 +112,14 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         rules.fraction, rules.increment, rules.minimum, rules.min_length, rules.min_depth,
         do_not_camber=b.no_camber_reason or "marked not to be cambered")
     limits = b.construction_limits
+    unbraced = None if b.unbraced_length is None else parse_length(b.unbraced_length)
+    if unbraced is not None and 0.0 < unbraced < span / (STATIONS - 1):
+        raise _FieldProblemError("unbraced_length", f"{shown(b.unbraced_length)} is shorter than the station spacing "
+                                 f"{span / (STATIONS - 1):.3g} in (span / {STATIONS - 1}) the bare-steel check "
+                                 "resolves; give 0 in for a top flange braced continuously")
     construction = ConstructionSpec(
         live_psf=b.construction_live_psf if b.construction_load is None else CONSTRUCTION_LOAD_PSF[b.construction_load],
-        screed=b.screed, unbraced_length=None if b.unbraced_length is None else parse_length(b.unbraced_length),
+        screed=b.screed, unbraced_length=unbraced,
         pours=tuple(pours), camber=camber, combinations=tuple((f.dead, f.live) for f in b.construction_factors),
         dead_limit_ratio=limits.dead_ratio,
         dead_limit_max=None if limits.dead_max is None else parse_length(limits.dead_max),
@@ -124,6 +139,10 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
     diameter = parse_length(b.studs.diameter)
     if not 0.25 <= diameter <= 1.0:
         raise _FieldProblemError("studs.diameter", f"{shown(b.studs.diameter)} is outside 1/4 in to 1 in")
+    deck = slab.deck
+    if deck is not None and b.deck_orientation == "perpendicular" and diameter > deck.rib_bottom_width:
+        raise _FieldProblemError("studs.diameter", f"a {shown(b.studs.diameter)} stud does not fit the "
+                                 f"{format_inches(deck.rib_bottom_width)} rib bottom of deck '{shown(deck.name)}'")
     studs = StudSpec(diameter, b.studs.fu_ksi, parse_length(b.studs.length), b.studs.position,
                      None if b.studs.count == "design" else b.studs.count, b.studs.max_per_rib)
     return BeamInput(
