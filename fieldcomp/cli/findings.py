@@ -7,12 +7,11 @@ Exit codes: 0 the beam passes as built, 1 it fails (a repair is proposed), 2 bad
 from __future__ import annotations
 
 import argparse
-import json
 import sys
 from pathlib import Path
 
 from fieldcomp import CAUTION
-from fieldcomp.cli.common import EXIT_FAIL, EXIT_PASS, fail_input
+from fieldcomp.cli.common import EXIT_FAIL, EXIT_PASS, fail_input, fail_output
 
 def register(sub) -> None:
     f = sub.add_parser("findings", help="check one beam against its stud inspection findings; propose a repair")
@@ -32,6 +31,7 @@ def run(args: argparse.Namespace) -> int:
     from fieldcomp.jobs.inspection_log import CsvImportError
     from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError
     from fieldcomp.views.findings_report import findings_json, findings_text
+    from fieldcomp.views.numbers import json_text
 
     try:
         if args.import_csv:
@@ -55,9 +55,9 @@ def run(args: argparse.Namespace) -> int:
         try:
             write_sheet(args.repair_svg, job.project.name, before, repair)
         except OSError as exc:
-            return fail_input(f"cannot write {args.repair_svg}: {exc.strerror or exc}")
+            return fail_output(exc, args.repair_svg)
     if args.json:
-        print(json.dumps(findings_json(job.project.name, before, repair), indent=2))
+        print(json_text(findings_json(job.project.name, before, repair), indent=2))
     else:
         print(findings_text(job.project.name, args.job, before, repair))
     return EXIT_PASS if before.verdict == "pass" else EXIT_FAIL

@@ -14,13 +14,14 @@ from engine.model.units import format_ft_in, format_inches
 from fieldcomp import CAUTION
 from fieldcomp.views.csv_safety import csv_cell
 from fieldcomp.views.finished_report import check_json, check_line
+from fieldcomp.views.numbers import finite, ratio_json, ratio_text
 
 IN3_PER_FT3 = 1728.0
 PROFILE_POINTS = 21  # JSON profiles at the twentieth-points of the span
 
 
 def _num(value: float | None, digits: int = 3) -> float | None:
-    return None if value is None else float(round(float(value), digits))
+    return finite(None if value is None else float(value), digits)
 
 
 def _in(value: float) -> str:
@@ -96,7 +97,7 @@ def merge_into_check(record: dict[str, Any], cr: ConstructionResult, finished_ch
     both = tuple(finished_checks) + cr.checks
     gov = governing_check(both)
     record["verdict"] = "pass" if all(c.passed for c in both) else "fail"
-    record["governing"] = {"check": gov.name, "clause": gov.clause, "ratio": _num(gov.ratio)}
+    record["governing"] = {"check": gov.name, "clause": gov.clause, **ratio_json(gov.ratio)}
     return record
 
 
@@ -147,7 +148,7 @@ def construction_text(cr: ConstructionResult) -> str:
     lines += [check_line(c) for c in sorted(cr.checks, key=lambda c: -c.ratio)]
     lines += [f"  note  [{f.clause}] {f.message}" for f in cr.flags if f.message != cr.bracing.note]
     gov = governing_check(cr.checks)
-    lines.append(f"  construction verdict: {cr.verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f})")
+    lines.append(f"  construction verdict: {cr.verdict.upper()} (governing: {gov.name}, ratio {ratio_text(gov.ratio)})")
     return "\n".join(lines)
 
 

@@ -5,6 +5,7 @@ from __future__ import annotations
 from typing import Any
 
 from fieldcomp import CAUTION, __version__
+from fieldcomp.views.numbers import finite, ratio_json, ratio_text
 
 REPAIR_CAUTION = (
     "The engineer of record decides whether to accept, repair or hold the pour. Repairs follow the "
@@ -13,7 +14,7 @@ REPAIR_CAUTION = (
 
 
 def _num(value: float, digits: int = 3) -> float | None:
-    return None if value != value or value in (float("inf"), float("-inf")) else float(round(value, digits))
+    return finite(value, digits)
 
 
 def _station(beam, x: float | None) -> str:
@@ -47,7 +48,7 @@ def _governing_station(r) -> float:
 
 def _governing(r) -> dict[str, Any]:
     gov = r.governing
-    return {"check": gov.name, "clause": gov.clause, "ratio": _num(gov.ratio), "station_in": _at(r.beam, _governing_station(r))}
+    return {"check": gov.name, "clause": gov.clause, **ratio_json(gov.ratio), "station_in": _at(r.beam, _governing_station(r))}
 
 
 def findings_json(job_name: str, before, repair) -> dict[str, Any]:
@@ -135,7 +136,7 @@ def findings_text(job_name: str, job_path: str, before, repair) -> str:
         f"  as built: sum Qn {r.sum_qn_left:.0f} / {r.sum_qn_right:.0f} kips left/right of max moment "
         f"(at {at(float(r.x[k]))}); composite {r.composite_ratio:.0%}; "
         f"I_LB {r.i_lb:,.0f} in4, I_equiv {r.i_equiv:,.0f} in4",
-        f"  strength: least capacity/demand {ratio:.2f} at {at(station)}; live-load deflection "
+        f"  strength: least capacity/demand {ratio_text(ratio)} at {at(station)}; live-load deflection "
         f"{format_inches(r.live_deflection)} vs {format_inches(b.span / b.limits.live_ratio)}; "
         f"longest gap between working studs {before.anchor_gap:.1f} in",
         "  checks as built (ratio = demand / capacity):",
@@ -143,7 +144,7 @@ def findings_text(job_name: str, job_path: str, before, repair) -> str:
     lines += [check_line(c) for c in sorted(before.checks, key=lambda c: -c.ratio)]
     lines += [f"  note  [{f.clause}] {f.message}" for f in before.flags]
     gov = before.governing
-    lines.append(f"  verdict: {before.verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f} "
+    lines.append(f"  verdict: {before.verdict.upper()} (governing: {gov.name}, ratio {ratio_text(gov.ratio)} "
                  f"at {at(_governing_station(before))})")
     lines.append("")
     if before.verdict == "pass":
@@ -156,8 +157,8 @@ def findings_text(job_name: str, job_path: str, before, repair) -> str:
             lines.append(f"  rib {row['rib']:>3} @ {format_ft_in(row['station_in'])}: add {row['added']} "
                          f"({row['studs_in_rib_after']} in the rib after)")
         a = repair.after
-        lines.append(f"  after repair: {a.verdict.upper()}; least capacity/demand {a.min_strength_ratio[0]:.2f}; "
-                     f"governing {a.governing.name}, ratio {a.governing.ratio:.2f}")
+        lines.append(f"  after repair: {a.verdict.upper()}; least capacity/demand {ratio_text(a.min_strength_ratio[0])}; "
+                     f"governing {a.governing.name}, ratio {ratio_text(a.governing.ratio)}")
         lines += [f"  note: {n}" for n in repair.notes]
     else:
         lines.append("Repair: added studs alone do not restore this beam.")

@@ -8,10 +8,11 @@ from engine.model.results import Check
 from engine.finished.evaluate import BeamResult
 from engine.model.units import format_ft_in, format_inches
 from fieldcomp import CAUTION
+from fieldcomp.views.numbers import finite, ratio_json, ratio_text
 
 
-def _num(value: float, digits: int = 3) -> float:
-    return float(round(value, digits))
+def _num(value: float, digits: int = 3) -> float | None:
+    return finite(value, digits)
 
 
 def beam_json(r: BeamResult) -> dict[str, Any]:
@@ -44,7 +45,7 @@ def beam_json(r: BeamResult) -> dict[str, Any]:
         "live_deflection_in": _num(r.live_deflection),
         "sdl_live_deflection_in": _num(r.after_cure_deflection),
         "verdict": r.verdict,
-        "governing": {"check": gov.name, "clause": gov.clause, "ratio": _num(gov.ratio)},
+        "governing": {"check": gov.name, "clause": gov.clause, **ratio_json(gov.ratio)},
         "checks": [check_json(c) for c in r.checks],
         "flags": [{"clause": f.clause, "message": f.message, "severity": f.severity} for f in r.flags],
     }
@@ -52,7 +53,7 @@ def beam_json(r: BeamResult) -> dict[str, Any]:
 
 def check_json(c: Check) -> dict[str, Any]:
     return {"id": c.id, "name": c.name, "clause": c.clause, "demand": _num(c.demand), "capacity": _num(c.capacity),
-            "unit": c.unit, "ratio": _num(c.ratio), "passed": c.passed,
+            "unit": c.unit, **ratio_json(c.ratio), "passed": c.passed,
             "station_in": None if c.station is None else _num(c.station, 2)}
 
 
@@ -69,7 +70,7 @@ def _value(v: float, unit: str) -> str:
 def check_line(c: Check) -> str:
     where = f" @ {format_ft_in(c.station)}" if c.station is not None else ""
     word = "pass" if c.passed else "FAIL"
-    return (f"  {word:4}  {c.ratio:5.2f}  {c.name}{where}: {_value(c.demand, c.unit)} vs "
+    return (f"  {word:4}  {ratio_text(c.ratio):>5}  {c.name}{where}: {_value(c.demand, c.unit)} vs "
             f"{_value(c.capacity, c.unit)}   [{c.clause}]")
 
 
@@ -97,7 +98,7 @@ def beam_text(r: BeamResult) -> str:
     for f in r.flags:
         lines.append(f"  note  [{f.clause}] {f.message}")
     gov = r.governing
-    lines.append(f"  verdict: {r.verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f})")
+    lines.append(f"  verdict: {r.verdict.upper()} (governing: {gov.name}, ratio {ratio_text(gov.ratio)})")
     return "\n".join(lines)
 
 
