@@ -66,6 +66,11 @@ def marks_sheet(job_name: str, beam: BeamInput, date: str, caution: str) -> tupl
     return sheet, placed, flexure
 
 
+def _ratio(ratio: float) -> str:
+    """A check ratio for the sheet's notes; 'n/a: no capacity' when the capacity is zero or less."""
+    return f"{ratio:.2f}" if np.isfinite(ratio) else "n/a: no capacity"
+
+
 def repair_sheet(job_name: str, date: str, before: AsBuiltResult, repair: Repair, caution: str) -> SheetData:
     """The repair marks sheet data: studs in place (as designed plus any added in the field), those
     lost, those to add, and the strength envelope as built and after the repair
@@ -76,10 +81,10 @@ def repair_sheet(job_name: str, date: str, before: AsBuiltResult, repair: Repair
     layout = StudLayout(d.x, in_place, d.position, qn, d.max_count, d.x_flip)
     after = repair.after.result.capacity if repair.total else None
     gov = before.governing
-    notes = [f"as built: {before.verdict.upper()} (governing {gov.name}, ratio {gov.ratio:.2f})"]
+    notes = [f"as built: {before.verdict.upper()} (governing {gov.name}, ratio {_ratio(gov.ratio)})"]
     if repair.total:
         notes.append(f"after adding {repair.total} stud(s): {repair.after.verdict.upper()} "
-                     f"(governing {repair.after.governing.name}, ratio {repair.after.governing.ratio:.2f})")
+                     f"(governing {repair.after.governing.name}, ratio {_ratio(repair.after.governing.ratio)})")
     notes += list(repair.notes) + [f"option: {a}" for a in repair.alternatives]
     failing = tuple(c for c in before.checks if not c.passed)
     return SheetData(job=job_name, beam=before.beam, date=date, layout=layout, caution=caution,

@@ -24,15 +24,15 @@ _MM_PER_UNIT = {"mm": 1.0, "cm": 10.0, "m": 1000.0}  # millimetres per unit
 # Typographic foot and inch marks (curly quotes, primes) read as ' and ".
 _QUOTES = str.maketrans("\u2018\u2019\u2032\u201c\u201d\u2033", "'''\"\"\"")
 
-_DECIMAL = r"(?:\d+(?:\.\d*)?|\.\d+)"
-_MIXED = r"(?P<whole>\d+)\s+(?P<num>\d+)\s*/\s*(?P<den>\d+)"  # 6 1/2
-_PLAIN_FRACTION = r"(?P<fnum>\d+)\s*/\s*(?P<fden>\d+)"  # 1/2
+_DECIMAL = r"(?:[0-9]+(?:\.[0-9]*)?|\.[0-9]+)"
+_MIXED = r"(?P<whole>[0-9]+)\s+(?P<num>[0-9]+)\s*/\s*(?P<den>[0-9]+)"  # 6 1/2
+_PLAIN_FRACTION = r"(?P<fnum>[0-9]+)\s*/\s*(?P<fden>[0-9]+)"  # 1/2
 _INCHES = rf"(?:{_MIXED}|{_PLAIN_FRACTION}|(?P<dec>{_DECIMAL}))\s*(?:\"|in\.?|inch|inches)"
 _FEET = rf"(?P<feet>{_DECIMAL})\s*(?:'|ft\.?|feet|foot)"
 # Feet, inches, or feet then inches separated by spaces and at most one dash.
 _IMPERIAL = re.compile(rf"(?:{_FEET})?(?:(?(feet)\s*(?:-\s*)?|){_INCHES})?", re.IGNORECASE)
 _METRIC = re.compile(rf"(?P<value>{_DECIMAL})\s*(?P<unit>mm|cm|m)", re.IGNORECASE)
-_BARE_NUMBER = re.compile(rf"[+-]?{_DECIMAL}(?:\s+\d+\s*/\s*\d+)?|[+-]?\d+\s*/\s*\d+")
+_BARE_NUMBER = re.compile(rf"[+-]?{_DECIMAL}(?:\s+[0-9]+\s*/\s*[0-9]+)?|[+-]?[0-9]+\s*/\s*[0-9]+")
 
 
 class UnitError(FieldcompError, ValueError):
@@ -81,6 +81,8 @@ def _parse_text(text: str) -> float:
         raise _fail(text, f"it is empty; {_NEEDS_UNIT}")
     if cleaned.startswith("-"):
         raise _fail(text, "lengths cannot be negative")
+    if any(ch.isdigit() and not ch.isascii() for ch in cleaned) or "_" in cleaned:
+        raise _fail(text, "write its digits as 0-9, without '_'")
     if _BARE_NUMBER.fullmatch(cleaned):
         raise _fail(text, _NEEDS_UNIT)
     metric = _METRIC.fullmatch(cleaned)

@@ -4,11 +4,10 @@ construction stage of every beam (pour stages, ponding, bare-steel checks, toler
 from __future__ import annotations
 
 import argparse
-import sys
 from functools import partial
 
 from fieldcomp import CAUTION, __version__
-from fieldcomp.cli.common import EXIT_INPUT, exit_code, fail_input, load_inputs, tally
+from fieldcomp.cli.common import EXIT_INPUT, exit_code, fail_input, fail_output, load_inputs, tally
 
 
 def register(sub) -> None:
@@ -43,7 +42,9 @@ def camber_beam(beam, as_json: bool) -> tuple[str | None, bool, str, list, str]:
 
 def run(args: argparse.Namespace) -> int:
     import csv
+    import io
 
+    from fieldcomp.jobs.atomic import write_text_atomic
     from fieldcomp.cli.parallel import json_with_list, map_beams
     from fieldcomp.jobs.jobfile import JobFileError
     from fieldcomp.views.finished_report import caution_block
@@ -59,12 +60,12 @@ def run(args: argparse.Namespace) -> int:
         return fail_input(ValueError(error))
     verdicts = [d[1] for d in done]
     if args.csv:
+        sheet = io.StringIO()
+        csv.writer(sheet).writerows(csv_rows([]) + [row for d in done for row in d[3]])
         try:
-            with open(args.csv, "w", newline="", encoding="utf-8") as fh:
-                csv.writer(fh).writerows(csv_rows([]) + [row for d in done for row in d[3]])
+            write_text_atomic(args.csv, sheet.getvalue())
         except OSError as exc:
-            print(f"error: cannot write {args.csv}: {exc.strerror or exc}", file=sys.stderr)
-            return EXIT_INPUT
+            return fail_output(exc, args.csv)
     if args.json:
         print(json_with_list({"job": job.project.name, "caution": CAUTION}, "beams", [d[4] for d in done]))
     else:

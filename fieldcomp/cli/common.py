@@ -2,7 +2,10 @@
 
 from __future__ import annotations
 
+import contextlib
 import sys
+from collections.abc import Iterator
+from typing import TextIO
 
 EXIT_PASS, EXIT_FAIL, EXIT_INPUT, EXIT_REVIEW = 0, 1, 2, 3
 
@@ -40,6 +43,44 @@ def load_inputs(path: str, only: str | None = None):
     return loaded.job, beams
 
 
-def fail_input(exc: Exception) -> int:
+def fail_input(exc: Exception | str) -> int:
     print(f"error: {exc}", file=sys.stderr)
     return EXIT_INPUT
+
+
+def fail_output(exc: OSError, path: object = None) -> int:
+    """Exit 2 for an output that cannot be written, naming the file (FileKindError names it)."""
+    from fieldcomp.jobs.file_kinds import FileKindError
+
+    if isinstance(exc, FileKindError):
+        return fail_input(exc)
+    where = path if path is not None else exc.filename
+    return fail_input(f"cannot write{f' {where}' if where else ''}: {exc.strerror or exc}")
+
+
+class PrintableStream:
+    """A text stream passing on only printable text and line breaks: names, marks and notes come
+    from job files and logs, and an escape sequence in one must not reach the terminal."""
+
+    def __init__(self, stream: TextIO) -> None:
+        from engine.model.text import printable_lines
+
+        self._stream, self._clean = stream, printable_lines
+
+    def write(self, text: str) -> int:
+        self._stream.write(self._clean(text))
+        return len(text)
+
+    def flush(self) -> None:
+        self._stream.flush()
+
+
+@contextlib.contextmanager
+def printable_output() -> Iterator[None]:
+    """stdout and stderr as PrintableStream while a report verb runs."""
+    out, err = sys.stdout, sys.stderr
+    sys.stdout, sys.stderr = PrintableStream(out), PrintableStream(err)  # type: ignore[assignment]
+    try:
+        yield
+    finally:
+        sys.stdout, sys.stderr = out, err

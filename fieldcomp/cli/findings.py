@@ -1,18 +1,18 @@
 """`fieldcomp findings JOB --beam MARK [--json] [--repair-svg PATH] [--import CSV]`: does the beam
 still work with the studs the inspector found, and which studs would restore it.
 
-Exit codes: 0 the beam passes as built, 1 it fails (a repair is proposed), 2 bad input.
+Exit codes: 0 the beam passes as built, 1 it fails (a repair is proposed), 3 it needs review, 2 bad input.
 """
 
 from __future__ import annotations
 
 import argparse
-import json
 import sys
 from pathlib import Path
 
 from fieldcomp import CAUTION
-from fieldcomp.cli.common import exit_code, fail_input
+from fieldcomp.cli.common import exit_code, fail_input, fail_output
+
 
 def register(sub) -> None:
     f = sub.add_parser("findings", help="check one beam against its stud inspection findings; propose a repair")
@@ -43,6 +43,7 @@ def run(args: argparse.Namespace) -> int:
     from fieldcomp.jobs.inspection_log import CsvImportError
     from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError
     from fieldcomp.views.findings_report import findings_json, findings_text
+    from fieldcomp.views.numbers import json_text
 
     from fieldcomp.jobs.detailed_csv import DetailedCsvError
 
@@ -69,10 +70,10 @@ def run(args: argparse.Namespace) -> int:
         try:
             write_sheet(args.repair_svg, job.project.name, review)
         except OSError as exc:
-            return fail_input(f"cannot write {args.repair_svg}: {exc.strerror or exc}")
+            return fail_output(exc, args.repair_svg)
     records = finding_records(next(b for b in job.beam if b.mark == args.beam))
     if args.json:
-        print(json.dumps(findings_json(job.project.name, review, records), indent=2))
+        print(json_text(findings_json(job.project.name, review, records), indent=2))
     else:
         print(findings_text(job.project.name, args.job, review, records))
     return exit_code([str(before.verdict)])
@@ -98,6 +99,7 @@ def run_all(args: argparse.Namespace) -> int:
     from fieldcomp.jobs.atomic import write_text_atomic
     from fieldcomp.jobs.jobfile import JobFileError
     from fieldcomp.views.floor_findings import floor_csv, floor_json, floor_rows, floor_text
+    from fieldcomp.views.numbers import json_text
 
     try:
         job, beams = load_inputs(args.job)
@@ -115,8 +117,8 @@ def run_all(args: argparse.Namespace) -> int:
         try:
             write_text_atomic(Path(args.csv), floor_csv(rows))
         except OSError as exc:
-            return fail_input(f"cannot write {args.csv}: {exc.strerror or exc}")
-    print(json.dumps(floor_json(job.project.name, rows), indent=2) if args.json
+            return fail_output(exc, args.csv)
+    print(json_text(floor_json(job.project.name, rows), indent=2) if args.json
           else floor_text(job.project.name, args.job, rows))
     return exit_code([str(r.before.verdict) for r in reviews.values()])
 

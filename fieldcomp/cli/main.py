@@ -36,8 +36,13 @@ def main(argv: list[str] | None = None) -> int:
     if args.command is None:
         parser.print_help()
         return 0
+    from fieldcomp.cli.common import printable_output
+
     try:
-        return modules[args.command].run(args)
+        if args.command == "open":  # the workbench draws the terminal itself
+            return modules[args.command].run(args)
+        with printable_output():
+            return modules[args.command].run(args)
     except BrokenPipeError:  # e.g. piped into `head`
         return 0
 

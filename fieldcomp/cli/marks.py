@@ -14,9 +14,7 @@ import sys
 from pathlib import Path
 
 from fieldcomp import CAUTION, __version__
-from fieldcomp.jobs.atomic import write_text_atomic
-from fieldcomp.jobs.output_names import inside, unique_names
-from fieldcomp.cli.common import EXIT_FAIL, EXIT_INPUT, EXIT_PASS, fail_input
+from fieldcomp.cli.common import EXIT_FAIL, EXIT_INPUT, EXIT_PASS, fail_input, fail_output
 
 def register(sub) -> None:
     m = sub.add_parser("marks", help="stud marks rib by rib: text, printable SVG sheet, CSV")
@@ -49,7 +47,7 @@ def run(args: argparse.Namespace) -> int:
     try:
         _write(args, [s for s, _, _ in sheets])
     except OSError as exc:
-        return fail_input(f"cannot write: {exc.strerror or exc}")
+        return fail_output(exc)
     print(f"fieldcomp {__version__} - stud marks, job '{job.project.name}' ({args.job})")
     for sheet, _, _ in sheets:
         print()
@@ -62,6 +60,9 @@ def run(args: argparse.Namespace) -> int:
 
 
 def _write(args: argparse.Namespace, sheets: list) -> None:
+    from fieldcomp.jobs.atomic import write_text_atomic
+    from fieldcomp.jobs.file_kinds import FileKindError
+    from fieldcomp.jobs.output_names import inside, unique_names
     from fieldcomp.views.marks_sheet import marks_csv
     from fieldcomp.views.marks_svg import marks_svg
 
@@ -73,7 +74,7 @@ def _write(args: argparse.Namespace, sheets: list) -> None:
             continue
         folder = Path(option)
         if folder.exists() and not folder.is_dir():
-            raise OSError(f"{folder} is not a folder (with --all, --svg and --csv name folders)")
+            raise FileKindError(folder, "is not a folder (with --all, --svg and --csv name folders)")
         folder.mkdir(parents=True, exist_ok=True)
         for sheet, name in zip(sheets, unique_names([s.beam.mark for s in sheets])):
             write_text_atomic(inside(folder, name + ext), render(sheet))

@@ -11,6 +11,8 @@ from collections.abc import Callable, Sequence
 from concurrent.futures import ProcessPoolExecutor
 from typing import Any, TypeVar
 
+from fieldcomp.views.numbers import json_text
+
 T = TypeVar("T")
 R = TypeVar("R")
 
@@ -41,7 +43,7 @@ def _cores() -> int:
 def json_item(item: Any) -> str:
     """One item of a JSON list on one line (one beam per line: easy to grep and diff, and the
     C encoder is several times faster than the indenting one)."""
-    return "    " + json.dumps(item, separators=(", ", ": "))
+    return "    " + json_text(item, separators=(", ", ": "))
 
 
 def json_with_list(head: dict[str, Any], key: str, items: list[str]) -> str:

@@ -7,10 +7,14 @@ import os
 import tempfile
 from pathlib import Path
 
+from fieldcomp.jobs.file_kinds import check_output
+
 
 def write_bytes_atomic(path: str | os.PathLike[str], data: bytes) -> None:
-    """Replace `path` with `data` atomically. New files get the usual permissions (umask)."""
+    """Replace `path` with `data` atomically. New files get the usual permissions (umask). Only a
+    regular file (or a new one, in a folder that exists) is written: never a FIFO or device."""
     p = Path(path)
+    check_output(p)
     mode = _mode_for(p)
     fd, tmp = tempfile.mkstemp(prefix=f".{p.name}.", suffix=".tmp", dir=p.parent)
     try:

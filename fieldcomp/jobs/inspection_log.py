@@ -10,13 +10,16 @@ from __future__ import annotations
 import csv
 import io
 import os
+import re
 from pathlib import Path
 
 from pydantic import ValidationError
 
+from fieldcomp.jobs.file_kinds import FileKindError, read_regular
 from fieldcomp.jobs.model import FindingIn
 from engine.model.errors import FieldcompError
 
+_WHOLE = re.compile(r"[0-9]+")
 COLUMNS = ("kind", "rib", "station", "count", "note", "date", "reported_by")
 MAX_BYTES = 2 * 1024 * 1024
 MAX_ROWS = 5000
@@ -33,15 +36,13 @@ class CsvImportError(FieldcompError, ValueError):
 
 
 def read_findings_csv(path: str | os.PathLike[str]) -> list[tuple[int, FindingIn]]:
-    """Read an inspection log file; returns (row number, finding) pairs or raises CsvImportError."""
+    """Read an inspection log file (a regular file of 2 MB at most); returns (row number,
+    finding) pairs or raises CsvImportError."""
     p = Path(path)
     try:
-        size = p.stat().st_size
-        if size > MAX_BYTES:
-            raise CsvImportError(p, [(None, f"file is {size / 1e6:.1f} MB; inspection logs over 2 MB are refused")])
-        data = p.read_bytes()
-    except OSError as exc:
-        raise CsvImportError(p, [(None, f"cannot read: {exc.strerror or exc}")]) from None
+        data = read_regular(p, MAX_BYTES, "inspection logs")
+    except FileKindError as exc:
+        raise CsvImportError(p, [(None, exc.reason)]) from None
     try:
         text = data.decode("utf-8-sig")
     except UnicodeDecodeError as exc:
@@ -53,12 +54,32 @@ def _column(name: str) -> str:
     return name.strip().lower().replace("-", "_").replace(" ", "_")
 
 
+def _rows(text: str, path: str | os.PathLike[str]) -> list[list[str]]:
+    """The CSV records, one per line. A quote left open would swallow the rows after it into
+    one cell: an unclosed quote, a quote closing mid-cell and a cell running over lines are
+    refused, naming the row (one row per line, as a spreadsheet numbers them)."""
+    reader = csv.reader(io.StringIO(text, newline=""), strict=True)
+    rows: list[list[str]] = []
+    while True:
+        start = reader.line_num + 1
+        try:
+            cells = next(reader)
+        except StopIteration:
+            return rows
+        except csv.Error as exc:
+            why = ("a quote opened there is never closed" if "end of data" in str(exc)
+                   else f"{exc}: a quote inside a quoted cell is written twice (\"\")" if "expected after" in str(exc)
+                   else f"not readable as CSV: {exc}")
+            raise CsvImportError(path, [(start, why)]) from None
+        if reader.line_num > start:
+            raise CsvImportError(path, [(start, f"a cell runs over lines {start}-{reader.line_num} (a quote left open?); "
+                                                "each cell of an inspection log is one line")])
+        rows.append(cells)
+
+
 def parse_findings_csv(text: str, path: str | os.PathLike[str] = "<csv>") -> list[tuple[int, FindingIn]]:
     """Parse inspection-log text; every bad row is reported at once, with its row number."""
-    try:
-        rows = list(csv.reader(io.StringIO(text, newline="")))
-    except csv.Error as exc:
-        raise CsvImportError(path, [(None, f"not readable as CSV: {exc}")]) from None
+    rows = _rows(text.removeprefix("\ufeff"), path)
     if not rows:
         raise CsvImportError(path, [(None, "the file is empty; it needs a header row: " + ", ".join(COLUMNS))])
     header = [_column(c) for c in rows[0]]
@@ -100,6 +121,11 @@ class _RowProblemError(FieldcompError, ValueError):
         self.messages = messages
 
 
+def _short(value: object) -> str:
+    text = repr(value)
+    return text if len(text) <= 60 else text[:57] + "..."
+
+
 def _finding(cells: dict[str, str]) -> FindingIn:
     raw: dict[str, object] = {}
     messages: list[str] = []
@@ -107,10 +133,10 @@ def _finding(cells: dict[str, str]) -> FindingIn:
         if value == "":
             continue
         if name in ("rib", "count"):
-            try:
+            if _WHOLE.fullmatch(value):
                 raw[name] = int(value)
-            except ValueError:
-                messages.append(f"column '{name}': {value!r} is not a whole number")
+            else:
+                messages.append(f"column '{name}': {_short(value)} is not a whole number (digits 0-9)")
         elif name == "kind":
             raw[name] = value.lower()
         else:
@@ -126,6 +152,6 @@ def _finding(cells: dict[str, str]) -> FindingIn:
             if err["type"] == "missing":
                 msg = "required, left blank"
             elif "input" in err and field:
-                msg = f"{msg} (got {err['input']!r})"
+                msg = f"{msg} (got {_short(err['input'])})"
             messages.append(f"column '{field}': {msg}" if field else msg)
         raise _RowProblemError(messages) from None

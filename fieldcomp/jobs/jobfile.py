@@ -15,10 +15,15 @@ import tomli_w
 from pydantic import BaseModel, ValidationError
 
 from fieldcomp.jobs.atomic import write_bytes_atomic
+from fieldcomp.jobs.kind_messages import KIND_ERRORS, kind_message
+from fieldcomp.jobs.file_kinds import FileKindError, read_regular
+from fieldcomp.jobs.nesting import JOB_NESTING, MAX_NESTING, deep_line, deep_path
 from fieldcomp.jobs.model import Job
 from engine.model.errors import FieldcompError
+from engine.model.text import printable
 
 MAX_BYTES = 20 * 1024 * 1024
+_TOO_DEEP = f"lists and tables nested more than {MAX_NESTING} deep are refused (the job format nests {JOB_NESTING})"
 
 
 class JobFileError(FieldcompError, ValueError):
@@ -44,10 +49,16 @@ class LoadedJob:
 
 def parse_job(text: str, path: str | os.PathLike[str] = "<job>") -> Job:
     """Validate TOML text as a job; raises JobFileError naming file, beam and field."""
+    line = deep_line(text)
+    if line is not None:
+        raise JobFileError(path, [(line, _TOO_DEEP)])
     try:
         raw = tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
         raise JobFileError(path, [("", f"not valid TOML: {exc}")]) from None
+    deep = deep_path(raw)
+    if deep is not None:
+        raise JobFileError(path, [(_place(deep, raw), _TOO_DEEP)])
     try:
         job = Job.model_validate(raw)
     except ValidationError as exc:
@@ -57,19 +68,18 @@ def parse_job(text: str, path: str | os.PathLike[str] = "<job>") -> Job:
 
 
 def load_job(path: str | os.PathLike[str]) -> LoadedJob:
-    """Read and validate a job file (TOML only, never executed; refused over 20 MB)."""
+    """Read and validate a job file (TOML only, never executed; a regular file of 20 MB at most,
+    UTF-8 with or without a byte-order mark)."""
     p = Path(path)
     try:
-        size = p.stat().st_size
-        if size > MAX_BYTES:
-            raise JobFileError(p, [("", f"file is {size / 1e6:.1f} MB; job files over 20 MB are refused")])
-        data = p.read_bytes()
-    except OSError as exc:
-        raise JobFileError(p, [("", f"cannot read: {exc.strerror or exc}")]) from None
+        data = read_regular(p, MAX_BYTES, "job files")
+    except FileKindError as exc:
+        raise JobFileError(p, [("", exc.reason)]) from None
     try:
-        text = data.decode("utf-8")
+        text = data.decode("utf-8-sig")
     except UnicodeDecodeError as exc:
-        raise JobFileError(p, [("", f"not UTF-8 text (byte {exc.start})")]) from None
+        utf16 = "; it looks like UTF-16: save it as UTF-8" if data[:2] in (b"\xff\xfe", b"\xfe\xff") else ""
+        raise JobFileError(p, [("", f"not UTF-8 text (byte {exc.start}){utf16}")]) from None
     return LoadedJob(p, parse_job(text, p), hashlib.sha256(data).hexdigest())
 
 
@@ -148,15 +158,31 @@ def _keep_backup(p: Path) -> None:
     write_bytes_atomic(p.with_name(p.name + ".bak"), p.read_bytes())
 
 
+def shown(text: object, limit: int = 40) -> str:
+    """User text (a mark, an id, a key) as messages quote it: printable, cut to `limit` characters."""
+    clean = printable(text)
+    return clean if len(clean) <= limit else clean[:limit - 3] + "..."
+
+
 def where(table: str, index: int | None, raw_item: Any, field: str) -> str:
     """'beam 'B-3' (#4), field 'studs.count'' style location text."""
     name = ""
     if isinstance(raw_item, dict):
         key = "mark" if table == "beam" else "id"
         if isinstance(raw_item.get(key), str):
-            name = f" '{raw_item[key]}'"
+            name = f" '{shown(raw_item[key])}'"
     num = f" #{index + 1}" if index is not None else ""
-    return f"{table}{name}{num}" + (f", field '{field}'" if field else "")
+    return f"{shown(table)}{name}{num}" + (f", field '{shown(field, 80)}'" if field else "")
+
+
+def _place(path: tuple[Any, ...], raw: dict[str, Any]) -> str:
+    """Location text of a path into the raw job: 'beam 'B-3' #4, field 'studs.count''."""
+    table, rest = str(path[0]), list(path[1:])
+    index = rest.pop(0) if rest and isinstance(rest[0], int) and table in ("beam", "deck", "slab") else None
+    items = raw.get(table)
+    item = items[index] if index is not None and isinstance(items, list) else None
+    field = "".join(f"[{p}]" if isinstance(p, int) else f".{p}" for p in rest[:3]).lstrip(".")
+    return where(table, index, item, field)
 
 
 def _merge(problems: list[tuple[str, str]]) -> list[tuple[str, str]]:
@@ -168,7 +194,16 @@ def _merge(problems: list[tuple[str, str]]) -> list[tuple[str, str]]:
             merged.setdefault(place, []).append(msg)
         else:
             loose.append((place, msg))
-    return loose + [(place, "; or ".join(msgs)) for place, msgs in merged.items()]
+    return loose + [(place, _alternatives(msgs)) for place, msgs in merged.items()]
+
+
+def _alternatives(msgs: list[str]) -> str:
+    """'must be a whole number (got true)' and 'must be 'design' (got true)' as one message."""
+    got = msgs[0][msgs[0].rfind(" (got "):] if " (got " in msgs[0] else ""
+    if len(msgs) > 1 and got and all(m.endswith(got) for m in msgs):
+        stems = [m.removesuffix(got) for m in msgs]
+        return ("; or " if any("," in s for s in stems) else " or ").join(stems) + got
+    return "; or ".join(msgs)
 
 
 def _is_union_tag(part: Any) -> bool:
@@ -190,8 +225,8 @@ def _describe(err: dict[str, Any], raw: dict[str, Any]) -> tuple[str, str]:
         unknown = str(full[-1])
         parents = [p for p in full[:-1] if not isinstance(p, int)]
         if not loc:  # an unknown top-level table
-            return "", f"unknown table {unknown!r}" + _hint(unknown, list(Job.model_fields))
-        msg = f"unknown key {unknown!r}" + _hint(unknown, _known_keys(parents))
+            return "", f"unknown table {_short(unknown)}" + _hint(unknown, list(Job.model_fields))
+        msg = f"unknown key {_short(unknown)}" + _hint(unknown, _known_keys(parents))
     elif err.get("type") == "missing":
         if not loc and index is None:
             return "", f"required table {table!r} is missing"
@@ -200,6 +235,8 @@ def _describe(err: dict[str, Any], raw: dict[str, Any]) -> tuple[str, str]:
         msg = f"must be a table, got {_short(err.get('input'))}"
     elif err.get("type") == "list_type":
         msg = f"must be a list (e.g. [[{table}]] tables), got {_short(err.get('input'))}"
+    elif err.get("type") in KIND_ERRORS:
+        msg = f"{kind_message(err['type'], msg, err.get('input'))} (got {_short(err.get('input'))})"
     elif "input" in err:
         msg = f"{msg} (got {_short(err['input'])})"
     if not loc and index is None:
@@ -208,7 +245,7 @@ def _describe(err: dict[str, Any], raw: dict[str, Any]) -> tuple[str, str]:
 
 
 def _short(value: Any) -> str:
-    text = repr(value)
+    text = ("true" if value else "false") if isinstance(value, bool) else repr(value)
     return text if len(text) <= 60 else text[:57] + "..."
 
 
@@ -242,17 +279,18 @@ def _check_references(job: Job, path: str | os.PathLike[str]) -> None:
     for table, ids in (("deck", decks), ("slab", slabs)):
         for i, name in enumerate(ids):
             if name in ids[:i]:
-                problems.append((f"{table} '{name}' #{i + 1}, field 'id'", "duplicate id"))
+                problems.append((f"{table} '{shown(name)}' #{i + 1}, field 'id'", "duplicate id"))
     for i, s in enumerate(job.slab):
         if s.deck is not None and s.deck not in decks:
-            problems.append((f"slab '{s.id}' #{i + 1}, field 'deck'",
-                             f"no deck with id {s.deck!r}" + _hint(s.deck, decks)))
+            problems.append((f"slab '{shown(s.id)}' #{i + 1}, field 'deck'",
+                             f"no deck with id {_short(s.deck)}" + _hint(s.deck, decks)))
     marks: list[str] = []
     for i, b in enumerate(job.beam):
         if b.mark in marks:
-            problems.append((f"beam '{b.mark}' #{i + 1}, field 'mark'", "duplicate beam mark"))
+            problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'mark'", "duplicate beam mark"))
         marks.append(b.mark)
         if b.slab not in slabs:
-            problems.append((f"beam '{b.mark}' #{i + 1}, field 'slab'", f"no slab with id {b.slab!r}" + _hint(b.slab, slabs)))
+            problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'slab'",
+                             f"no slab with id {_short(b.slab)}" + _hint(b.slab, slabs)))
     if problems:
         raise JobFileError(path, problems)

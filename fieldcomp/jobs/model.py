@@ -3,13 +3,39 @@ them) and are parsed by `engine.model.units.parse_length` when converted to engi
 
 from __future__ import annotations
 
+import unicodedata
 from fractions import Fraction
 from typing import Annotated, Literal
 
-from pydantic import AfterValidator, BaseModel, ConfigDict, Field, model_validator
+from pydantic import AfterValidator, BaseModel, BeforeValidator, ConfigDict, Field, model_validator
 
 from engine.codes import practice
 from engine.model.units import UnitError, parse_length
+
+
+_NON_PRINTING = {"Cc", "Cf", "Zl", "Zp", "Cs"}  # controls (ESC, NUL, tab), bidi and zero-width marks, line breaks
+
+
+def _printable(text: str) -> str:
+    """Text fields hold printable text: no control, format or line-break character."""
+    for i, ch in enumerate(text):
+        if unicodedata.category(ch) in _NON_PRINTING:
+            raise ValueError(f"holds a non-printing character (U+{ord(ch):04X}) at character {i + 1}; "
+                             "write printable text only")
+    return text
+
+
+Words = Annotated[str, AfterValidator(_printable)]
+
+
+def _length_kind(value: object) -> object:
+    """A number where a length belongs is refused with the unit hint (strings go on to `_length`)."""
+    if isinstance(value, (int, float)):
+        try:
+            parse_length(value)  # type: ignore[arg-type]  # raises the hint: a length needs a unit
+        except UnitError as exc:
+            raise ValueError(str(exc)) from None
+    return value
 
 
 def _length(text: str) -> str:
@@ -28,6 +54,8 @@ def _written(inches: float, unit: str = "in") -> str:
 
 Length = Annotated[
     str,
+    BeforeValidator(_length_kind),
+    AfterValidator(_printable),
     AfterValidator(_length),
     Field(description="A length with units: 32'-6 1/2\", 45 ft, 6.5 in, 3/4 in or 1650 mm. Bare numbers are refused.",
           examples=["32'-6 1/2\"", "6.5 in"]),
@@ -35,7 +63,7 @@ Length = Annotated[
 
 
 class Strict(BaseModel):
-    model_config = ConfigDict(extra="forbid", frozen=True)
+    model_config = ConfigDict(extra="forbid", frozen=True, strict=True)
 
 
 class CamberSettings(Strict):
@@ -48,7 +76,7 @@ class CamberSettings(Strict):
 
 
 class Project(Strict):
-    name: str = Field(description="Job name printed on every report and sheet.", min_length=1, max_length=200)
+    name: Words = Field(description="Job name printed on every report and sheet.", min_length=1, max_length=200)
     method: Literal["LRFD", "ASD"] = Field("LRFD", description="Design method (AISC 360-22 B3.1 / B3.2).")
     station_origin: Literal["beam-end", "support"] = Field(
         "beam-end", description="Stations are measured from the end of the steel or from the support work point.")
@@ -56,7 +84,7 @@ class Project(Strict):
 
 
 class Deck(Strict):
-    id: str = Field(min_length=1, max_length=60, description="Deck name that slabs refer to.")
+    id: Words = Field(min_length=1, max_length=60, description="Deck name that slabs refer to.")
     rib_height: Length = Field(description="h_r, height of the deck ribs.")
     rib_top_width: Length = Field(description="Width of a concrete rib at the deck top.")
     rib_bottom_width: Length = Field(description="Width of a concrete rib at the deck pan.")
@@ -66,8 +94,8 @@ class Deck(Strict):
 
 
 class Slab(Strict):
-    id: str = Field(min_length=1, max_length=60, description="Slab name that beams refer to.")
-    deck: str | None = Field(None, description="Deck id; leave out for a solid slab.")
+    id: Words = Field(min_length=1, max_length=60, description="Slab name that beams refer to.")
+    deck: Words | None = Field(None, description="Deck id; leave out for a solid slab.")
     topping: Length = Field(description="Concrete above the deck top (whole thickness of a solid slab).")
     concrete_pcf: float = Field(ge=70.0, le=160.0, description="Concrete unit weight w_c, pcf.")
     fc_ksi: float = Field(gt=0.0, le=20.0, description="Specified compressive strength f'c, ksi (AISC 360-22 I1.3 range is checked).")
@@ -100,7 +128,7 @@ class PointLoadIn(Strict):
 
 
 class Pour(Strict):
-    name: str = Field(min_length=1, max_length=60, description="Stage name.")
+    name: Words = Field(min_length=1, max_length=60, description="Stage name.")
     start: Length = Field("0 in", description="Station where this stage's concrete starts.")
     end: Length | None = Field(None, description="Station where it ends (default: the far end).")
     side: Literal["both", "left", "right"] = Field("both", description="Side of the beam the concrete is placed on.")
@@ -163,11 +191,11 @@ class FindingIn(Strict):
     rib: int | None = Field(None, ge=1, le=10000, description="Rib number from the reference end, 1-based.")
     station: Length | None = Field(None, description="Station from the reference end (instead of rib).")
     count: int = Field(1, ge=1, le=3, description="Studs concerned.")
-    note: str = Field("", max_length=500, description="Inspector's note.")
-    date: str = Field("", max_length=40, description="Date of the report; written YYYY-MM-DD, with the pour dates it tells whether the slab over the finding was placed.")
+    note: Words = Field("", max_length=500, description="Inspector's note.")
+    date: Words = Field("", max_length=40, description="Date of the report; written YYYY-MM-DD, with the pour dates it tells whether the slab over the finding was placed.")
     found: Literal["before-pour", "after-pour"] | None = Field(None, description="Whether the slab over the finding was placed when it was found (default: derived from date and the pour dates, else unknown: both branches are reported).")
-    reported_by: str = Field("", max_length=100, description="Who reported it.")
-    report: str = Field("", max_length=40, description="Number of the inspection report it belongs to ([[beam.report]] number).")
+    reported_by: Words = Field("", max_length=100, description="Who reported it.")
+    report: Words = Field("", max_length=40, description="Number of the inspection report it belongs to ([[beam.report]] number).")
     history: list[DispositionIn] = Field(default_factory=list, description="Dispositions of this finding, oldest first; the latest governs over its report's.")
 
     @model_validator(mode="after")
@@ -190,15 +218,15 @@ class DetailedRibIn(Strict):
 
 
 class Beam(Strict):
-    mark: str = Field(min_length=1, max_length=40, description="Beam mark as on the framing plan.")
-    shape: str = Field(description="W shape, e.g. W21X50.", min_length=2, max_length=20)
+    mark: Words = Field(min_length=1, max_length=40, description="Beam mark as on the framing plan.")
+    shape: Words = Field(description="W shape, e.g. W21X50.", min_length=2, max_length=20)
     span: Length = Field(description="Span between support centrelines.")
     spacing_left: Length | None = Field(None, description="Distance to the adjacent beam on the left.")
     spacing_right: Length | None = Field(None, description="Distance to the adjacent beam on the right.")
     edge_left: Length | None = Field(None, description="Distance to the slab edge on the left (instead of spacing_left).")
     edge_right: Length | None = Field(None, description="Distance to the slab edge on the right (instead of spacing_right).")
     load_width: Length | None = Field(None, description="Tributary width for area loads (default from spacings; 0 in for a girder loaded by beams).")
-    slab: str = Field(description="Slab id.")
+    slab: Words = Field(description="Slab id.")
     deck_orientation: Literal["perpendicular", "parallel"] = Field("perpendicular", description="Deck ribs relative to the beam.")
     fy_ksi: float = Field(practice.FY_KSI, gt=0.0, le=100.0, description="Steel yield stress F_y, ksi.")
     superimposed_dead_psf: float = Field(0.0, ge=0.0, le=1000.0, description="Dead load added after the slab cures, psf.")
@@ -210,12 +238,12 @@ class Beam(Strict):
     construction_factors: list[CombinationIn] = Field(default_factory=list, description="Construction-stage load combinations for the job's method (default LRFD 1.4D and 1.2D + 1.6L, ASD D + L).")
     construction_limits: ConstructionLimitsIn = Field(default_factory=ConstructionLimitsIn, description="Construction-stage deflection limits.")
     camber: Literal["auto", "none"] = Field("auto", description="\"none\" for beams that must not be cambered.")
-    no_camber_reason: str | None = Field(None, max_length=80, description="Why not to camber (moment-connected, spandrel, cantilevered ...).")
+    no_camber_reason: Words | None = Field(None, max_length=80, description="Why not to camber (moment-connected, spandrel, cantilevered ...).")
     measured_camber: Length | None = Field(None, description="Camber measured on the delivered beam (shop or field survey): the report gives cover and slab thickness at it, a go / no-go before the pour.")
     support: Literal["simple", "continuous", "cantilever"] = Field("simple", description="Support condition; only simple spans are computed, the others are refused (AISC 360-22 I3.2b).")
     web_openings: bool = Field(False, description="The beam has web openings (not checked: AISC Design Guide 2); reports flag it.")
-    reference_end: str = Field("left end", max_length=40, description="Name of the end stations are measured from (e.g. \"west\", \"grid 3\").")
-    far_end: str = Field("far end", max_length=40, description="Name of the other end (e.g. \"east\", \"grid 4\").")
+    reference_end: Words = Field("left end", max_length=40, description="Name of the end stations are measured from (e.g. \"west\", \"grid 3\").")
+    far_end: Words = Field("far end", max_length=40, description="Name of the other end (e.g. \"east\", \"grid 4\").")
     end_setback: Length = Field("0 in", description="Support centreline (work point) to the end of the steel, at each end. Stations printed for the erector and finding stations are measured from the end of the steel when project.station_origin is \"beam-end\".")
     first_rib: Length | None = Field(None, description="Station of the first rib centreline (default half a pitch).")
     keep_out_start: Length = Field("0 in", description="No studs closer than this to the reference end.")

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import os
+from dataclasses import fields
 
 from engine.codes.aci318_19 import LIGHTWEIGHT_BELOW_PCF
 from engine.codes.asce37_14 import CONSTRUCTION_LOAD_PSF
@@ -13,10 +14,13 @@ from engine.model.inputs import (
 )
 from engine.model.results import Authority
 from engine.model.shapes import ShapeNotFoundError, get_shape
-from engine.model.units import parse_length
+from engine.model.units import format_inches, parse_length
 from engine.model.errors import FieldcompError
-from fieldcomp.jobs.jobfile import JobFileError
+from fieldcomp.jobs.jobfile import JobFileError, shown
 from fieldcomp.jobs.model import Beam, Job
+
+STATIONS = next(f.default for f in fields(BeamInput) if f.name == "n_stations")  # the engine's station grid
+MAX_POUR_STAGES = 20  # a pour plan placed in short segments from both sides stays well under this
 
 
 def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInput]:
@@ -30,22 +34,26 @@ def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInpu
         for field, value in (("pitch", deck.pitch), ("rib_height", deck.rib_height),
                              ("rib_top_width", deck.rib_top_width), ("rib_bottom_width", deck.rib_bottom_width)):
             if value <= 0.0:
-                problems.append((f"deck '{d.id}' #{i + 1}, field '{field}'", "must be greater than zero"))
+                problems.append((f"deck '{shown(d.id)}' #{i + 1}, field '{field}'", "must be greater than zero"))
         if deck.rib_top_width > deck.pitch:
-            problems.append((f"deck '{d.id}' #{i + 1}, field 'rib_top_width'", "wider than the pitch"))
+            problems.append((f"deck '{shown(d.id)}' #{i + 1}, field 'rib_top_width'", "wider than the pitch"))
+        elif deck.rib_top_width < deck.rib_bottom_width:
+            problems.append((f"deck '{shown(d.id)}' #{i + 1}, field 'rib_top_width'",
+                             f"{shown(d.rib_top_width)} is narrower than rib_bottom_width {shown(d.rib_bottom_width)}: "
+                             "a concrete rib widens from the deck pan to the deck top (re-entrant profiles are not covered)"))
     slabs = {}
     for i, s in enumerate(job.slab):
         lightweight = s.lightweight if s.lightweight is not None else s.concrete_pcf < LIGHTWEIGHT_BELOW_PCF
         slabs[s.id] = Slab(s.id, decks.get(s.deck) if s.deck else None, parse_length(s.topping),
                            s.concrete_pcf, s.fc_ksi, lightweight)
         if slabs[s.id].topping <= 0.0:
-            problems.append((f"slab '{s.id}' #{i + 1}, field 'topping'", "must be greater than zero"))
+            problems.append((f"slab '{shown(s.id)}' #{i + 1}, field 'topping'", "must be greater than zero"))
     cam = job.project.camber
     rules = CamberRules(cam.fraction, parse_length(cam.increment), parse_length(cam.minimum),
                         parse_length(cam.min_length), parse_length(cam.min_depth), parse_length(cam.thin_web))
     beams: list[BeamInput] = []
     for i, b in enumerate(job.beam):
-        here = f"beam '{b.mark}' #{i + 1}"
+        here = f"beam '{shown(b.mark)}' #{i + 1}"
         try:
             beams.append(beam_input(job, b, slabs[b.slab], rules))
         except _FieldProblemError as exc:
@@ -69,7 +77,7 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         raise _FieldProblemError("shape", str(exc)) from None
     span = parse_length(b.span)
     if not 12.0 <= span <= 1200.0:
-        raise _FieldProblemError("span", f"{b.span} is outside 1 ft to 100 ft")
+        raise _FieldProblemError("span", f"{shown(b.span)} is outside 1 ft to 100 ft")
     sides = []
     for side in ("left", "right"):
         spacing, edge = getattr(b, f"spacing_{side}"), getattr(b, f"edge_{side}")
@@ -81,17 +89,20 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
     for k, p in enumerate(b.point_loads):
         x = parse_length(p.at)
         if not 0.0 < x < span:
-            raise _FieldProblemError(f"point_loads[{k}].at", f"{p.at} is not inside the span {b.span}")
+            raise _FieldProblemError(f"point_loads[{k}].at", f"{shown(p.at)} is not inside the span {shown(b.span)}")
         pre = p.dead_kips if p.precomposite_dead_kips is None else p.precomposite_dead_kips
         if pre > p.dead_kips:
             raise _FieldProblemError(f"point_loads[{k}].precomposite_dead_kips", "exceeds dead_kips")
         point_loads.append(PointLoad(x, p.dead_kips, p.live_kips, pre, p.construction_live_kips))
+    if len(b.pour) > MAX_POUR_STAGES:
+        raise _FieldProblemError("pour", f"{len(b.pour)} pour stages; at most {MAX_POUR_STAGES} are computed for one beam "
+                                 "(each stage recomputes the whole span, and the time grows with the square of the count)")
     pours = []
     for k, stage in enumerate(b.pour):
         start = parse_length(stage.start)
         end = span if stage.end is None else parse_length(stage.end)
         if not 0.0 <= start < end <= span + 1e-6:
-            raise _FieldProblemError(f"pour[{k}]", f"stage '{stage.name}' must run from 0 to the span with start < end")
+            raise _FieldProblemError(f"pour[{k}]", f"stage '{shown(stage.name)}' must run from 0 to the span with start < end")
         pours.append(PourStage(stage.name, start, min(end, span), stage.side, stage.day, stage.screed, stage.date))
     if pours:
         try:
@@ -102,9 +113,14 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
         rules.fraction, rules.increment, rules.minimum, rules.min_length, rules.min_depth, rules.thin_web,
         do_not_camber=b.no_camber_reason or "marked not to be cambered")
     limits = b.construction_limits
+    unbraced = None if b.unbraced_length is None else parse_length(b.unbraced_length)
+    if unbraced is not None and 0.0 < unbraced < span / (STATIONS - 1):
+        raise _FieldProblemError("unbraced_length", f"{shown(b.unbraced_length)} is shorter than the station spacing "
+                                 f"{span / (STATIONS - 1):.3g} in (span / {STATIONS - 1}) the bare-steel check "
+                                 "resolves; give 0 in for a top flange braced continuously")
     construction = ConstructionSpec(
         live_psf=b.construction_live_psf if b.construction_load is None else CONSTRUCTION_LOAD_PSF[b.construction_load],
-        screed=b.screed, unbraced_length=None if b.unbraced_length is None else parse_length(b.unbraced_length),
+        screed=b.screed, unbraced_length=unbraced,
         pours=tuple(pours), camber=camber, combinations=tuple((f.dead, f.live) for f in b.construction_factors),
         dead_limit_ratio=limits.dead_ratio,
         dead_limit_max=None if limits.dead_max is None else parse_length(limits.dead_max),
@@ -128,7 +144,11 @@ def beam_input(job: Job, b: Beam, slab: Slab, rules: CamberRules) -> BeamInput:
                      for r in b.as_detailed)
     diameter = parse_length(b.studs.diameter)
     if not 0.25 <= diameter <= 1.0:
-        raise _FieldProblemError("studs.diameter", f"{b.studs.diameter} is outside 1/4 in to 1 in")
+        raise _FieldProblemError("studs.diameter", f"{shown(b.studs.diameter)} is outside 1/4 in to 1 in")
+    deck = slab.deck
+    if deck is not None and b.deck_orientation == "perpendicular" and diameter > deck.rib_bottom_width:
+        raise _FieldProblemError("studs.diameter", f"a {shown(b.studs.diameter)} stud does not fit the "
+                                 f"{format_inches(deck.rib_bottom_width)} rib bottom of deck '{shown(deck.name)}'")
     studs = StudSpec(diameter, b.studs.fu_ksi, parse_length(b.studs.length), b.studs.position,
                      None if b.studs.count == "design" else b.studs.count, b.studs.max_per_rib,
                      b.studs.design_sum_qn, b.studs.design_composite)
@@ -170,6 +190,6 @@ def require_in_scope(beams: list[BeamInput], path: str | os.PathLike[str] = "<jo
         try:
             check_scope(b)
         except OutOfScopeError as exc:
-            problems.append((f"beam '{b.mark}', field '{exc.field}'", str(exc)))
+            problems.append((f"beam '{shown(b.mark)}', field '{exc.field}'", str(exc)))
     if problems:
         raise JobFileError(path, problems)

@@ -16,9 +16,11 @@ from typing import Callable, Iterator
 from textual import work
 from textual.worker import get_current_worker
 from textual.app import App
+from textual.notifications import SeverityLevel
 from textual.binding import Binding
 from textual.theme import Theme
 
+from engine.model.text import printable_lines
 from fieldcomp.tui.files import FileActions
 from fieldcomp.tui.palette import WorkbenchCommands
 from fieldcomp.jobs.model import Job
@@ -192,10 +194,16 @@ class FieldcompApp(FileActions, App[None]):
         self.workbench.show_job(self.session, self.selected)
         self.show_outcomes()
 
+    def notify(self, message: str, *, title: str = "", severity: SeverityLevel = "information",
+               timeout: float | None = None, markup: bool = True) -> None:
+        """Every notification as plain text: messages quote marks, paths and typed values."""
+        super().notify(printable_lines(message), title=printable_lines(title), severity=severity, timeout=timeout,
+                       markup=False)
+
     def update_title(self) -> None:
         s = self.session
-        self.title = f"fieldcomp - {s.job.project.name}"
-        self.sub_title = f"{s.where}{'  [modified]' if s.dirty else ''}"
+        self.title = printable_lines(f"fieldcomp - {s.job.project.name}")
+        self.sub_title = printable_lines(f"{s.where}{'  [modified]' if s.dirty else ''}")
 
     # -- undo, beams --------------------------------------------------------------------------------
     def action_undo(self) -> None:

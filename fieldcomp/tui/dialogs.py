@@ -10,6 +10,8 @@ from textual.containers import Horizontal, Vertical
 from textual.screen import ModalScreen
 from textual.widgets import Button, Input, Label, Static
 
+from fieldcomp.tui.plain import plain
+
 
 class Choice(ModalScreen[str]):
     """Ask a question; dismisses with the id of the button pressed ("cancel" on Escape)."""
@@ -25,8 +27,8 @@ class Choice(ModalScreen[str]):
 
     def compose(self) -> ComposeResult:
         with Vertical(classes="dialog"):
-            yield Label(self.title_text, classes="dialog--title")
-            yield Static(self.text, classes="dialog--text")
+            yield Label(plain(self.title_text), classes="dialog--title")
+            yield Static(plain(self.text), classes="dialog--text")
             with Horizontal(classes="dialog--buttons"):
                 for key, label, variant in self.buttons:
                     yield Button(label, id=key, variant=variant)  # type: ignore[arg-type]
@@ -52,9 +54,9 @@ class AskPath(ModalScreen[Path | None]):
 
     def compose(self) -> ComposeResult:
         with Vertical(classes="dialog"):
-            yield Label(self.title_text, classes="dialog--title")
+            yield Label(plain(self.title_text), classes="dialog--title")
             yield Input(self.initial, id="path")
-            yield Static(self.hint or "Enter accepts, Escape cancels.", classes="dialog--text")
+            yield Static(plain(self.hint or "Enter accepts, Escape cancels."), classes="dialog--text")
 
     def on_input_submitted(self, event: Input.Submitted) -> None:
         event.stop()

@@ -17,8 +17,10 @@ from typing import Any, Callable
 
 import tomli_w
 
-from fieldcomp.jobs.jobfile import JobFileError, dump_job, load_job, parse_job, save_job
+from fieldcomp.jobs.file_kinds import check_output, read_regular
+from fieldcomp.jobs.jobfile import MAX_BYTES, JobFileError, dump_job, load_job, parse_job, save_job
 from fieldcomp.jobs.model import Job
+from fieldcomp.jobs.typed_text import value_from_text
 from engine.model.errors import FieldcompError
 
 Path_ = tuple[str | int, ...]  # ("beam", 0, "studs", "count")
@@ -197,6 +199,7 @@ class JobSession:
         target = Path(path) if path is not None else self.path
         if target is None:
             raise ValueError("an untitled job needs a file name: use save as")
+        check_output(target)  # a FIFO or device is refused before anything reads or writes it
         same = self.path is not None and target.resolve() == self.path.resolve()
         expected = self.digest if same and not overwrite else None
         self.digest = save_job(self.job, target, expected_digest=expected)
@@ -209,8 +212,8 @@ class JobSession:
         if self.path is None or self.digest is None:
             return False
         try:
-            return hashlib.sha256(self.path.read_bytes()).hexdigest() != self.digest
-        except OSError:
+            return hashlib.sha256(read_regular(self.path, MAX_BYTES, "job files")).hexdigest() != self.digest
+        except OSError:  # gone, unreadable, or no longer a regular file
             return True
 
     def reload(self) -> None:
@@ -232,7 +235,7 @@ def _setter(path: Path_, text: str) -> Callable[[dict[str, Any]], None]:
         if value == "":
             parent.pop(key, None)
             return
-        parent[key] = value
+        parent[key] = value_from_text(path, value)
         partner = PARTNERS.get(str(key))
         if partner is not None:
             parent.pop(partner, None)
@@ -277,7 +280,7 @@ def read_recovery(state_dir: Path, job_path: Path | None) -> Job | None:
     """The recovered job, or None if there is none or it no longer loads."""
     target = recovery_path(state_dir, job_path)
     try:
-        job = parse_job(target.read_text(encoding="utf-8"), target)
+        job = parse_job(read_regular(target, MAX_BYTES, "recovery files").decode("utf-8"), target)
         validate_job(job, target)
     except (OSError, UnicodeDecodeError, JobFileError):
         return None

@@ -15,13 +15,14 @@ from engine.model.units import format_ft_in, format_inches
 from fieldcomp import CAUTION
 from fieldcomp.views.csv_safety import csv_cell
 from fieldcomp.views.finished_report import check_json, check_lines, governing_json, verdict_line
+from fieldcomp.views.numbers import finite
 
 IN3_PER_FT3 = 1728.0
 PROFILE_POINTS = 21  # JSON profiles at the twentieth-points of the span
 
 
 def _num(value: float | None, digits: int = 3) -> float | None:
-    return None if value is None else float(round(float(value), digits))
+    return finite(None if value is None else float(value), digits)
 
 
 def _in(value: float) -> str:

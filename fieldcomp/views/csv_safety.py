@@ -4,7 +4,8 @@ from __future__ import annotations
 
 from engine.model.text import printable
 
-FORMULA_START = ("=", "+", "-", "@", "\t", "\r")  # spreadsheet formula triggers (OWASP CSV injection)
+# spreadsheet formula triggers (OWASP CSV injection), and their full-width forms (common practice)
+FORMULA_START = ("=", "+", "-", "@", "\t", "\r", "\uff1d", "\uff0b", "\uff0d", "\uff20")
 
 
 def csv_cell(value: str) -> str:

@@ -5,6 +5,7 @@ from __future__ import annotations
 from typing import Any
 
 from fieldcomp import CAUTION, __version__
+from fieldcomp.views.numbers import finite, ratio_json, ratio_text
 
 REPAIR_CAUTION = (
     "The engineer of record decides whether to accept, repair or hold the pour. Repairs follow the "
@@ -20,7 +21,7 @@ TIMING_TEXT = {
 
 
 def _num(value: float, digits: int = 3) -> float | None:
-    return None if value != value or value in (float("inf"), float("-inf")) else float(round(value, digits))
+    return finite(value, digits)
 
 
 def _station(beam, x: float | None) -> str:
@@ -55,7 +56,7 @@ def _governing_station(r) -> float:
 def _governing(r) -> dict[str, Any]:
     gov = r.governing
     return {"id": gov.id, "check": gov.name, "clause": gov.clause, "authority": str(gov.authority), "level": str(gov.level),
-            "ratio": _num(gov.ratio), "station_in": _at(r.beam, _governing_station(r))}
+            **ratio_json(gov.ratio), "station_in": _at(r.beam, _governing_station(r))}
 
 
 def _acceptance_json(review) -> dict[str, Any] | None:
@@ -199,7 +200,7 @@ def findings_text(job_name: str, job_path: str, review, records: list[dict[str, 
         f"  as built: sum Qn {r.sum_qn_left:.0f} / {r.sum_qn_right:.0f} kips left/right of max moment "
         f"(at {at(float(r.x[k]))}); composite {r.composite_ratio:.0%}; "
         f"I_LB {r.i_lb:,.0f} in4, I_equiv {r.i_equiv:,.0f} in4",
-        f"  strength: least capacity/demand {ratio:.2f} at {at(station)}; live-load deflection "
+        f"  strength: least capacity/demand {ratio_text(ratio)} at {at(station)}; live-load deflection "
         f"{format_inches(r.live_deflection)} vs {format_inches(b.span / b.limits.live_ratio)}; "
         f"longest gap between working studs {before.anchor_gap:.1f} in",
         "  checks as built (ratio = demand / capacity):",
@@ -207,7 +208,7 @@ def findings_text(job_name: str, job_path: str, review, records: list[dict[str, 
     lines += check_lines(before.checks)
     lines += [f"  note  [{f.clause}] {f.message}" for f in before.flags]
     gov = before.governing
-    lines.append(f"  verdict (as built): {before.verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f} "
+    lines.append(f"  verdict (as built): {before.verdict.upper()} (governing: {gov.name}, ratio {ratio_text(gov.ratio)} "
                  f"at {at(_governing_station(before))}; {gov.clause}; {gov.authority})")
     lines.append("")
     lines += remedy_lines(review, at)

@@ -11,10 +11,11 @@ from engine.model.results import Check, Level
 from engine.finished.evaluate import BeamResult
 from engine.model.units import format_ft_in, format_inches
 from fieldcomp import CAUTION
+from fieldcomp.views.numbers import finite, ratio_json, ratio_text
 
 
-def _num(value: float, digits: int = 3) -> float:
-    return float(round(value, digits))
+def _num(value: float, digits: int = 3) -> float | None:
+    return finite(value, digits)
 
 
 def beam_json(r: BeamResult) -> dict[str, Any]:
@@ -56,14 +57,14 @@ def beam_json(r: BeamResult) -> dict[str, Any]:
 
 def check_json(c: Check) -> dict[str, Any]:
     return {"id": c.id, "name": c.name, "clause": c.clause, "authority": str(c.authority), "level": str(c.level),
-            "demand": _num(c.demand), "capacity": _num(c.capacity), "unit": c.unit, "ratio": _num(c.ratio),
+            "demand": _num(c.demand), "capacity": _num(c.capacity), "unit": c.unit, **ratio_json(c.ratio),
             "passed": c.passed, "station_in": None if c.station is None else _num(c.station, 2)}
 
 
 def governing_json(c: Check) -> dict[str, Any]:
     """The check that decides a verdict, for JSON records."""
     return {"id": c.id, "check": c.name, "clause": c.clause, "authority": str(c.authority), "level": str(c.level),
-            "ratio": _num(c.ratio), "station_in": None if c.station is None else _num(c.station, 2)}
+            **ratio_json(c.ratio), "station_in": None if c.station is None else _num(c.station, 2)}
 
 
 def _value(v: float, unit: str) -> str:
@@ -82,7 +83,7 @@ _WORD = {Level.PASS: "pass", Level.REVIEW: "REVIEW", Level.FAIL: "FAIL"}
 def check_line(c: Check) -> str:
     """One check: level, ratio, name, demand vs capacity, [clause; authority]."""
     where = f" @ {format_ft_in(c.station)}" if c.station is not None else ""
-    return (f"  {_WORD[c.level]:6}  {c.ratio:5.2f}  {c.name}{where}: {_value(c.demand, c.unit)} vs "
+    return (f"  {_WORD[c.level]:6}  {ratio_text(c.ratio):>5}  {c.name}{where}: {_value(c.demand, c.unit)} vs "
             f"{_value(c.capacity, c.unit)}   [{c.clause}; {c.authority}]")
 
 
@@ -102,7 +103,7 @@ def check_lines(checks: tuple[Check, ...] | list[Check]) -> list[str]:
 def verdict_line(label: str, verdict: Level, gov: Check) -> str:
     """The verdict with the check that decides it."""
     where = f" at {format_ft_in(gov.station)}" if gov.station is not None else ""
-    return (f"  {label}: {verdict.upper()} (governing: {gov.name}, ratio {gov.ratio:.2f}{where}; "
+    return (f"  {label}: {verdict.upper()} (governing: {gov.name}, ratio {ratio_text(gov.ratio)}{where}; "
             f"{gov.clause}; {gov.authority})")
 
 

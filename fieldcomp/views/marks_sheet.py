@@ -13,6 +13,7 @@ from engine.studs.detailing import DECK_ANCHOR_CLAUSE
 from engine.studs.ribs import printed_station
 from engine.studs.sheet_data import SheetData, anchor_ribs, mark_rows, slot_word, station_origin_text, totals
 from fieldcomp.views.csv_safety import csv_cell
+from fieldcomp.views.numbers import ratio_text
 
 
 def studs_text(sheet: SheetData) -> str:
@@ -36,7 +37,7 @@ def summary_lines(sheet: SheetData) -> list[str]:
     for c in sheet.checks:
         where = f" at {format_ft_in(printed_station(sheet.beam, c.station))}" if c.station is not None else ""
         word = {"pass": "pass", "review": "REVIEW", "fail": "FAIL"}[c.level]
-        lines.append(f"{word} {c.ratio:.2f}  {c.name}{where}  [{c.clause}; {c.authority}]")
+        lines.append(f"{word} {ratio_text(c.ratio)}  {c.name}{where}  [{c.clause}; {c.authority}]")
     anchors = anchor_ribs(sheet)
     if anchors:
         lines.append(f"deck weld or fastener by others at ribs without studs: {', '.join(map(str, anchors))} "

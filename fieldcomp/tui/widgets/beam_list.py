@@ -8,6 +8,7 @@ from textual.widgets import OptionList
 from textual.widgets.option_list import Option
 
 from fieldcomp.tui.messages import BeamSelected
+from fieldcomp.views.numbers import ratio_text
 
 
 class BeamList(OptionList):
@@ -33,7 +34,7 @@ class BeamList(OptionList):
             style = {"pass": "bold green", "fail": "bold red", "error": "bold magenta"}.get(word, "dim")
             text.append(f" {word:<5}", style=style)
             if ratio is not None:
-                text.append(f" {ratio:4.2f}", style="dim")
+                text.append(f" {ratio_text(ratio):>4}", style="dim")
             rows.append(Option(text, id=f"beam-{k}"))
         with self.prevent(OptionList.OptionHighlighted):
             self.set_options(rows)

@@ -7,12 +7,13 @@ from rich.text import Text
 from engine.model.results import Check
 from fieldcomp.tui.widgets.fmt import station, value
 from fieldcomp.tui.widgets.table import Table
+from fieldcomp.views.numbers import ratio_text
 
 
 def check_row(c: Check) -> tuple[Text, Text, str, str, str, str]:
     word = Text("pass", style="green") if c.passed else Text("FAIL", style="bold red")
     where = f" @ {station(c.station)}" if c.station is not None else ""
-    return (word, Text(f"{c.ratio:5.2f}", style="" if c.passed else "bold red"), c.name + where,
+    return (word, Text(f"{ratio_text(c.ratio):>5}", style="" if c.passed else "bold red"), c.name + where,
             value(c.demand, c.unit), value(c.capacity, c.unit), c.clause)
 
 

@@ -16,6 +16,7 @@ from textual.widgets import Input, Label, Select, Static
 
 from fieldcomp.jobs.model import Job
 from fieldcomp.tui.messages import EditRequested
+from fieldcomp.tui.plain import plain
 from fieldcomp.tui.session import JobSession, Path_, field_text
 
 
@@ -117,7 +118,7 @@ class FieldForm(Vertical):
                 with widget.prevent(Select.Changed):
                     if spec.choices_from:
                         ids = [item.id for item in getattr(job, spec.choices_from)]
-                        widget.set_options([(i, i) for i in ids])
+                        widget.set_options([(plain(i), i) for i in ids])
                     widget.value = text if text else Select.NULL
             elif isinstance(widget, Input) and widget.value != text:
                 with widget.prevent(Input.Changed):
@@ -136,7 +137,7 @@ class FieldForm(Vertical):
         return self.by_id.get(widget_id or "")
 
     def _problem(self, text: str) -> None:
-        self.query_one(".form--problem", Static).update(text)
+        self.query_one(".form--problem", Static).update(plain(text))
 
     def on_input_changed(self, event: Input.Changed) -> None:
         event.stop()

@@ -8,12 +8,14 @@ from textual.widgets import Static
 
 from engine.model.inputs import Method
 from fieldcomp.tui.outcome import BeamOutcome
+from fieldcomp.tui.plain import plain
 from fieldcomp.tui.session import JobSession
 from fieldcomp.tui.widgets.checks_table import ChecksTable
 from fieldcomp.tui.widgets.field_form import FieldForm, FieldSpec
 from fieldcomp.tui.widgets.fmt import station
 from fieldcomp.tui.widgets.pane_base import Pane
 from fieldcomp.tui.widgets.plot import Series, TerminalPlot
+from fieldcomp.views.numbers import ratio_text
 
 LENGTH = "a length with units: 32'-6 1/2\", 45 ft, 6.5 in, 1650 mm"
 BEAM_FIELDS = (
@@ -72,17 +74,17 @@ class BeamPane(Pane):
         b, gov = r.beam, r.governing
         word = Text(" PASS ", style="bold reverse green") if r.verdict == "pass" else Text(" FAIL ", style="bold reverse red")
         head.update(Text.assemble(f"{b.mark}  {b.shape.name}  span {station(b.span)}  {b.method}   ", word,
-                                  f"   governing: {gov.name}, ratio {gov.ratio:.2f}"))
+                                  f"   governing: {gov.name}, ratio {ratio_text(gov.ratio)}"))
         k = r.critical
         word_cap = "phi Mn" if b.method == Method.LRFD else "Mn/Omega"
         word_dem = "Mu" if b.method == Method.LRFD else "Ma"
-        self.query_one("#beam-summary", Static).update(
+        self.query_one("#beam-summary", Static).update(plain(
             f"b_eff {station(r.b_eff)}   studs {r.groups.total}, Qn {r.qn_per_stud:.1f} kip (weakest)   "
             f"sum Qn {r.sum_qn_left:.0f}/{r.sum_qn_right:.0f} kip   composite {r.composite_ratio:.0%}   "
             f"PNA in {r.pna}   I_LB {r.i_lb:,.0f} in4   {word_dem} {r.demand[k] / 12:,.0f} / "
-            f"{word_cap} {r.capacity[k] / 12:,.0f} kip-ft at {station(r.x[k])}")
+            f"{word_cap} {r.capacity[k] / 12:,.0f} kip-ft at {station(r.x[k])}"))
         plot.plot([Series(f"{word_dem} demand", r.x, r.demand / 12.0, hatch=True, over=r.demand > r.capacity, tone=4),
                    Series(f"{word_cap} available", r.x, r.capacity / 12.0, tone=0)],
                   b.span, unit="kip-ft", fmt=lambda v: f"{v:,.0f} k-ft")
         self.query_one(ChecksTable).show(r.checks)
-        self.query_one("#beam-flags", Static).update("\n".join(f"note [{f.clause}] {f.message}" for f in r.flags))
+        self.query_one("#beam-flags", Static).update(plain("\n".join(f"note [{f.clause}] {f.message}" for f in r.flags)))

@@ -9,6 +9,7 @@ from textual.widgets import Static
 
 from engine.model.units import format_inches
 from fieldcomp.tui.outcome import BeamOutcome
+from fieldcomp.tui.plain import plain
 from fieldcomp.tui.session import JobSession
 from fieldcomp.tui.widgets.checks_table import ChecksTable
 from fieldcomp.tui.widgets.field_form import FieldForm, FieldSpec
@@ -69,15 +70,15 @@ class CamberPane(Pane):
                  if d.camber > 0 else Text(" no camber ", style="bold reverse"))
         tol = f"  shop tolerance -0 / +{format_inches(d.tolerance)}" if d.camber > 0 else ""
         head.update(Text.assemble(f"{b.mark}  {b.shape.name}  ", order, tol))
-        self.query_one("#camber-reason", Static).update(
+        self.query_one("#camber-reason", Static).update(plain(
             f"{d.reason}.  Predicted pre-composite dead-load deflection at midspan {signed_inches(d.predicted)} "
-            f"(constant thickness would give {signed_inches(con.at_midspan(con.no_ponding))}).")
+            f"(constant thickness would give {signed_inches(con.at_midspan(con.no_ponding))})."))
         envelope.set_rows([(o.case, format_inches(o.camber), signed_inches(o.deflection), signed_inches(o.top_of_slab),
                             signed_inches(o.thickness),
                             Text(signed_inches(o.stud_cover), style="bold red" if o.warnings else ""),
                             f"{o.extra_concrete / IN3_PER_FT3:.1f} ft3") for o in con.outcomes])
         self.query_one("#camber-warnings", Static).update(
-            "\n".join(f"{o.case}: {w}" for o in con.outcomes for w in o.warnings))
+            plain("\n".join(f"{o.case}: {w}" for o in con.outcomes for w in o.warnings)))
         self._profile(con)
         self.query_one(ChecksTable).show(con.checks)
 

@@ -12,6 +12,7 @@ from textual.binding import Binding
 from textual.widgets import Button, Static
 
 from fieldcomp.tui.outcome import BeamOutcome
+from fieldcomp.tui.plain import plain
 from fieldcomp.tui.session import JobSession
 from fieldcomp.tui.widgets.checks_table import ChecksTable
 from fieldcomp.tui.widgets.field_form import FieldSpec
@@ -20,6 +21,7 @@ from fieldcomp.tui.widgets.pane_base import ROW_KEYS, Pane
 from fieldcomp.tui.widgets.plot import Series, TerminalPlot
 from fieldcomp.tui.widgets.row_editor import RowEditor
 from fieldcomp.tui.widgets.strip import StripMark, StudStrip, legend
+from fieldcomp.views.numbers import ratio_text
 
 FINDING_FIELDS = (
     FieldSpec("kind", ("kind",), "What the inspector found.",
@@ -109,7 +111,7 @@ class FindingsPane(Pane):
 
     def show_job(self, session: JobSession, index: int) -> None:
         self.query_one(RowEditor).show(session, index)
-        self.query_one("#findings-head", Static).update(f"{session.job.beam[index].mark}: stud inspection findings")
+        self.query_one("#findings-head", Static).update(plain(f"{session.job.beam[index].mark}: stud inspection findings"))
 
     def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
         verdict = self.query_one("#findings-verdict", Static)
@@ -128,8 +130,8 @@ class FindingsPane(Pane):
         b, r, gov = ab.beam, ab.result, ab.governing
         low, at = ab.min_strength_ratio
         word = Text(" PASS ", style="bold reverse green") if ab.verdict == "pass" else Text(" FAIL ", style="bold reverse red")
-        verdict.update(Text.assemble("As built: ", word, f"  governing: {gov.name}, ratio {gov.ratio:.2f};  "
-                                     f"least capacity / demand {low:.2f} at {station(at)};  "
+        verdict.update(Text.assemble("As built: ", word, f"  governing: {gov.name}, ratio {ratio_text(gov.ratio)};  "
+                                     f"least capacity / demand {ratio_text(low)} at {station(at)};  "
                                      f"{ab.layout.total} working studs of {ab.designed.total} designed"))
         repair = outcome.repair.value if outcome.repair is not None else None
         strip.draw(b.span, ab.designed.x, as_built_marks(ab, outcome.finding_slots, repair), ends=(b.ribs.reference_end, b.ribs.far_end),
@@ -146,7 +148,7 @@ class FindingsPane(Pane):
         plot.plot(series, b.span, fmt=lambda v: f"{v:,.0f} k-ft")
         repair_text.update(self._repair_text(outcome, ab, repair))
         self.query_one(ChecksTable).show(ab.checks)
-        self.query_one("#findings-effects", Static).update(self._effects(b.findings, ab.flags))
+        self.query_one("#findings-effects", Static).update(plain(self._effects(b.findings, ab.flags)))
 
     @staticmethod
     def _repair_text(outcome: BeamOutcome, ab, repair) -> Text:
@@ -171,7 +173,7 @@ class FindingsPane(Pane):
                            f"add {int(repair.added[k])}\n")
             after = repair.after
             out.append(f"  after repair: {after.verdict.upper()}, governing {after.governing.name} "
-                       f"{after.governing.ratio:.2f}\n")
+                       f"{ratio_text(after.governing.ratio)}\n")
         for alt in repair.alternatives:
             out.append(f"  option: {alt}\n", style="yellow")
         out.append("Field repairs need the engineer of record's approval.", style="dim")

@@ -9,6 +9,7 @@ from textual.app import ComposeResult
 from textual.widgets import Static
 
 from fieldcomp.tui.outcome import BeamOutcome
+from fieldcomp.tui.plain import plain
 from fieldcomp.tui.session import JobSession
 from fieldcomp.tui.widgets.field_form import FieldSpec
 from fieldcomp.tui.widgets.fmt import signed_inches, station
@@ -16,6 +17,7 @@ from fieldcomp.tui.widgets.pane_base import ROW_KEYS, Pane
 from fieldcomp.tui.widgets.plot import Series, TerminalPlot
 from fieldcomp.tui.widgets.row_editor import RowEditor
 from fieldcomp.tui.widgets.table import Table
+from fieldcomp.views.numbers import ratio_text
 
 IN3_PER_FT3 = 1728.0  # unit conversion
 STAGE_FIELDS = (
@@ -68,7 +70,7 @@ class PourPane(Pane):
         self.query_one(RowEditor).show(session, index)
         beam = session.job.beam[index]
         self.query_one("#pour-head", Static).update(
-            f"{beam.mark}: pour plan, screed {beam.screed}, construction live {beam.construction_live_psf:g} psf")
+            plain(f"{beam.mark}: pour plan, screed {beam.screed}, construction live {beam.construction_live_psf:g} psf"))
 
     def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
         table = self.query_one("#pour-steps", Table)
@@ -87,7 +89,7 @@ class PourPane(Pane):
             ratio = st.demand / st.capacity if st.capacity > 0 else float("inf")
             rows.append((st.name, f"{st.day:g}", where, st.screed if st.kind != "erection" else "",
                           signed_inches(st.deflection), signed_inches(st.cumulative), signed_inches(st.cumulative_cured),
-                          signed_inches(st.live_deflection), Text(f"{ratio:.2f}", style="" if ratio <= 1 else "bold red"),
+                          signed_inches(st.live_deflection), Text(ratio_text(ratio), style="" if ratio <= 1 else "bold red"),
                           f"{st.stress:.1f}", f"{st.ponded_volume / IN3_PER_FT3:.1f}"))
         table.set_rows(rows)
         x, names = con.x, [st.name for st in con.stages]
@@ -102,4 +104,4 @@ class PourPane(Pane):
         if con.ponded_weight > 0:
             ponding = (f"Level screed: {con.ponded_weight:.2f} kip of concrete ponds beyond the nominal thickness "
                        f"({con.ponding_extra_psf:.1f} psf over the tributary area, {con.ponded_share:.0%} of the slab). ")
-        notes.update(ponding + f"Bracing while wet: {con.bracing.note}")
+        notes.update(plain(ponding + f"Bracing while wet: {con.bracing.note}"))

@@ -12,6 +12,7 @@ from textual.containers import Horizontal
 from textual.widgets import Button, Input, Label, Select, Static
 
 from fieldcomp.tui.outcome import BeamOutcome
+from fieldcomp.tui.plain import plain
 from fieldcomp.tui.session import JobSession
 from fieldcomp.tui.widgets.pane_base import Pane
 
@@ -100,7 +101,7 @@ class SheetPane(Pane):
             head.update(Text(f"{outcome.beam.mark}: {why}", style="bold red" if error else "italic"))
             preview.update("")
             return
-        head.update(f"{outcome.beam.mark}: {sheet.title.lower()}, dated {sheet.date}")
+        head.update(plain(f"{outcome.beam.mark}: {sheet.title.lower()}, dated {sheet.date}"))
         preview.update(Text(marks_text(sheet)))
 
     def on_select_changed(self, event: Select.Changed) -> None:
@@ -156,5 +157,5 @@ class SheetPane(Pane):
             self.app.notify(f"Not written: {exc.strerror or exc}", severity="error")
             return
         where = str(files[0][0]) if len(files) == 1 else f"{len(files)} files in {files[0][0].parent}"
-        self.query_one("#sheet-status", Static).update(f"Wrote {where}")
+        self.query_one("#sheet-status", Static).update(plain(f"Wrote {where}"))
         self.app.notify(f"Wrote {where}")

@@ -7,6 +7,7 @@ from textual.app import ComposeResult
 from textual.widgets import Static
 
 from fieldcomp.tui.outcome import BeamOutcome
+from fieldcomp.tui.plain import plain
 from fieldcomp.tui.widgets.checks_table import ChecksTable
 from fieldcomp.tui.widgets.fmt import station
 from fieldcomp.tui.widgets.pane_base import Pane
@@ -49,17 +50,17 @@ class StudsPane(Pane):
         b, lay = outcome.beam, placed.layout
         anchors = outcome.deck_anchors
         mode = "count from the drawings" if placed.mode == "drawings" else "count designed"
-        head.update(f"{b.mark}: {lay.total} studs ({mode}); sum Qn {placed.provided_left:.0f} kip toward "
-                    f"{b.ribs.reference_end}, {placed.provided_right:.0f} kip toward {b.ribs.far_end}; "
-                    f"required {placed.required_sum_qn:.0f} kip each side")
+        head.update(plain(f"{b.mark}: {lay.total} studs ({mode}); sum Qn {placed.provided_left:.0f} kip toward "
+                          f"{b.ribs.reference_end}, {placed.provided_right:.0f} kip toward {b.ribs.far_end}; "
+                          f"required {placed.required_sum_qn:.0f} kip each side"))
         strip.draw(b.span, lay.x, layout_marks(lay, anchors), ends=(b.ribs.reference_end, b.ribs.far_end),
                    keep_out=(b.ribs.keep_out_start, b.ribs.keep_out_end))
         kinds = {"stud"} | ({"anchor"} if anchors.any() else set())
         self.query_one("#studs-legend", Static).update(legend(kinds))
         short = self.query_one("#studs-shortfall", Static)
-        short.update(placed.shortfall or "")
+        short.update(plain(placed.shortfall or ""))
         short.display = bool(placed.shortfall)
-        self.query_one("#studs-marks-title", Static).update(f"Marks ({station_origin_text(b)})")
+        self.query_one("#studs-marks-title", Static).update(plain(f"Marks ({station_origin_text(b)})"))
         rows = []
         for n, x, count, side, qn, anchor in zip(lay.number, lay.x, lay.count, lay.side, lay.qn, anchors):
             at = station(float(printed_station(b, float(x))))
@@ -69,4 +70,4 @@ class StudsPane(Pane):
                 rows.append((str(n), at, "0", Text("deck weld (no stud)", style="dim"), ""))
         table.set_rows(rows)
         self.query_one(ChecksTable).show(placed.checks)
-        self.query_one("#studs-flags", Static).update("\n".join(f"note [{f.clause}] {f.message}" for f in placed.flags))
+        self.query_one("#studs-flags", Static).update(plain("\n".join(f"note [{f.clause}] {f.message}" for f in placed.flags)))

@@ -2,12 +2,16 @@
 
 from __future__ import annotations
 
+from rich.text import Text
 from textual.widgets import DataTable
+
+from engine.model.text import printable
 
 
 class Table(DataTable):
-    """Columns given at creation. Display tables (the default) take no focus and show no cursor;
-    `rows=True` makes a table whose row cursor picks a row to edit."""
+    """Columns given at creation; text cells are shown as they are, never read as markup. Display
+    tables (the default) take no focus and show no cursor; `rows=True` makes a table whose row
+    cursor picks a row to edit."""
 
     DEFAULT_CSS = "Table { height: auto; max-height: 24; }"
 
@@ -28,4 +32,4 @@ class Table(DataTable):
         self.shown = rows
         self.clear()
         for row in rows:
-            self.add_row(*row)
+            self.add_row(*(Text(printable(cell), end="") if isinstance(cell, str) else cell for cell in row))

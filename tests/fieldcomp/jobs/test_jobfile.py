@@ -58,7 +58,7 @@ def test_demo_and_minimal_load():
     "old, new, field, words",
     [
         ('span = "30 ft"', 'span = "30"', "'span'", "needs a unit"),
-        ('span = "30 ft"', "span = 30", "'span'", "string"),
+        ('span = "30 ft"', "span = 30", "'span'", "needs a unit"),
         ('count = 20', 'count = "many"', "'studs.count'", ""),
         ('shape = "W18X35"', 'shape = "W18X36"', "'shape'", "W18X35"),
         ('slab = "S"\n[beam', 'slab = "T"\n[beam', "'slab'", "no slab"),
