@@ -175,7 +175,9 @@ def _check_whole(save: Save, folder: Path, old: dict[str, bytes], new: dict[str,
     return "mixed" if len(sides) > 1 else sides.pop() if sides else "old"
 
 
-def _kill_at_random_lines(save: Save, tmp_path: Path, kills: int) -> set[str]:
+def _kill_at_random_lines(save: Save, tmp_path: Path, kills: int) -> tuple[set[str], int, int]:
+    """Kills at `kills` random lines of the write path (the first and last among them); returns
+    the outcomes seen, the distinct lines killed at and the lines the write path runs."""
     old, new, lines = _expected(save, tmp_path, "lines")
     assert new != old and lines > 5, (save.name, lines)
     rng = random.Random(save.name)
@@ -188,7 +190,7 @@ def _kill_at_random_lines(save: Save, tmp_path: Path, kills: int) -> set[str]:
         status = _child(save, folder, kill_at=k)
         assert os.WIFSIGNALED(status) and os.WTERMSIG(status) == signal.SIGKILL, (save.name, k, status)
         outcomes.add(_check_whole(save, folder, old, new, f"kill -9 at write-path line {k} of {lines}"))
-    return outcomes
+    return outcomes, len(moments), lines
 
 
 def _kill_after_random_delays(save: Save, tmp_path: Path, kills: int) -> int:
@@ -223,7 +225,7 @@ def _kill_after_random_delays(save: Save, tmp_path: Path, kills: int) -> int:
 
 @pytest.mark.parametrize("save", SAVES, ids=[s.name for s in SAVES])
 def test_kill_9_at_random_moments_leaves_every_file_whole(save, tmp_path):
-    outcomes = _kill_at_random_lines(save, tmp_path, kills=5)
+    outcomes, _, _ = _kill_at_random_lines(save, tmp_path, kills=5)
     assert "old" in outcomes and ({"new", "mixed"} & outcomes), outcomes  # the kills reached both sides
     _kill_after_random_delays(save, tmp_path, kills=2)
 
@@ -233,7 +235,8 @@ def test_kill_9_long_run(tmp_path):
     started = time.perf_counter()
     figures = []
     for save in SAVES:
-        outcomes = _kill_at_random_lines(save, tmp_path, kills=100)
+        outcomes, killed, lines = _kill_at_random_lines(save, tmp_path, kills=100)
         landed = _kill_after_random_delays(save, tmp_path, kills=100)
-        figures.append(f"{save.name}: 100 line kills ({', '.join(sorted(outcomes))}), 100 timed kills ({landed} mid-save)")
+        figures.append(f"{save.name}: kills at {killed} of its {lines} write-path lines ({', '.join(sorted(outcomes))}), "
+                       f"100 after random delays ({landed} landed mid-save)")
     print(f"\nkill -9 long run in {time.perf_counter() - started:.0f} s:\n  " + "\n  ".join(figures))
