@@ -56,12 +56,14 @@ class BeamOutcome:
 
     @property
     def verdict(self) -> str:
-        """One word for the beam list: 'fail' if any computed part fails, 'error' if the
-        finished beam could not be computed."""
+        """One word for the beam list: the worst of pass / review / fail over the computed parts
+        (finished, construction, as built), 'error' if the finished beam could not be computed."""
+        from engine.model.results import worst
+
         if self.result is None:
             return "error"
         parts = [self.result, self.construction.value, self.as_built.value]
-        return "fail" if any(p is not None and p.verdict == "fail" for p in parts) else "pass"
+        return str(worst(p.verdict for p in parts if p is not None))
 
     @property
     def governing_ratio(self) -> float | None:

@@ -31,7 +31,8 @@ class BeamList(OptionList):
         rows = []
         for k, (mark, (word, ratio)) in enumerate(zip(marks, verdicts)):
             text = Text(f"{mark:<11.11}")
-            style = {"pass": "bold green", "fail": "bold red", "error": "bold magenta"}.get(word, "dim")
+            style = {"pass": "bold green", "review": "bold yellow", "fail": "bold red",
+                     "error": "bold magenta"}.get(word, "dim")
             text.append(f" {word:<5}", style=style)
             if ratio is not None:
                 text.append(f" {ratio_text(ratio):>4}", style="dim")

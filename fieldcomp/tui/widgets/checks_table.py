@@ -11,10 +11,11 @@ from fieldcomp.views.numbers import ratio_text
 
 
 def check_row(c: Check) -> tuple[Text, Text, str, str, str, str]:
-    word = Text("pass", style="green") if c.passed else Text("FAIL", style="bold red")
+    style = {"pass": "green", "review": "bold yellow", "fail": "bold red"}[c.level]
+    word = Text({"pass": "pass", "review": "REVIEW", "fail": "FAIL"}[c.level], style=style)
     where = f" @ {station(c.station)}" if c.station is not None else ""
-    return (word, Text(f"{ratio_text(c.ratio):>5}", style="" if c.passed else "bold red"), c.name + where,
-            value(c.demand, c.unit), value(c.capacity, c.unit), c.clause)
+    return (word, Text(f"{ratio_text(c.ratio):>5}", style="" if c.passed else style), c.name + where,
+            value(c.demand, c.unit), value(c.capacity, c.unit), f"{c.clause}; {c.authority}")
 
 
 class ChecksTable(Table):
