@@ -23,7 +23,7 @@ import pytest
 
 from tests.fieldcomp.adversarial_cases import COMMANDS, Finding, make_case, run_case
 
-CI_CASES = range(0, 500)
+CI_CASES = range(0, 350)
 LONG_CASES = int(os.environ.get("FIELDCOMP_ADVERSARIAL_CASES", "40000"))
 LONG_FIRST = 1_000_000  # the long run's cases do not repeat the CI slice's
 WORKERS = 4  # two cores; the cases wait on fsync about half the time
@@ -48,7 +48,7 @@ def test_ci_slice_finds_nothing(tmp_path):
         ran.update(case.commands)
         findings += run_case(case, tmp_path / str(number))
     assert not findings, _report(findings)
-    assert set(ran) == set(COMMANDS) and min(ran.values()) >= 80, ran  # every command, many times
+    assert set(ran) == set(COMMANDS) and min(ran.values()) >= 70, ran  # every command, many times
 
 
 def _worker(numbers: range) -> tuple[int, list[Finding], dict[str, int]]:
