@@ -1,4 +1,4 @@
-"""Camber pane: the camber to order and why, the outcome at both ends of the shop tolerance,
+"""Camber pane: the camber to order and why, the outcome at both ends of the delivered band,
 the construction-stage checks, warnings; and the camber schedule of every beam of the job."""
 
 from __future__ import annotations
@@ -39,7 +39,8 @@ class CamberPane(Pane):
     def build(self) -> ComposeResult:
         yield Static("", classes="pane--head", id="camber-head")
         yield Static("", id="camber-reason")
-        yield Static("Outcome at midspan, both ends of the shop tolerance (AISC 303 6.4.4)", classes="pane--section")
+        yield Static("Outcome at midspan, both ends of the delivered band, 75 % to +tolerance (AISC 303 6.4.4)",
+                     classes="pane--section")
         yield Table("case", "camber", "wet deflection", "top of slab vs supports", "slab over beam", "stud cover",
                     "extra concrete", id="camber-envelope")
         yield Static("", id="camber-warnings", classes="pane--warn")
@@ -68,17 +69,17 @@ class CamberPane(Pane):
         b, d = con.beam, con.camber
         order = (Text(f" order camber {format_inches(d.camber)} ", style="bold reverse")
                  if d.camber > 0 else Text(" no camber ", style="bold reverse"))
-        tol = f"  shop tolerance -0 / +{format_inches(d.tolerance)}" if d.camber > 0 else ""
+        tol = f"  delivered 75 % to +{format_inches(d.tolerance)}" if d.camber > 0 else ""
         head.update(Text.assemble(f"{b.mark}  {b.shape.name}  ", order, tol))
         self.query_one("#camber-reason", Static).update(plain(
             f"{d.reason}.  Predicted pre-composite dead-load deflection at midspan {signed_inches(d.predicted)} "
             f"(constant thickness would give {signed_inches(con.at_midspan(con.no_ponding))})."))
-        envelope.set_rows([(o.case, format_inches(o.camber), signed_inches(o.deflection), signed_inches(o.top_of_slab),
+        envelope.set_rows([(f"{o.case}, {o.stiffness}", format_inches(o.camber), signed_inches(o.deflection), signed_inches(o.top_of_slab),
                             signed_inches(o.thickness),
                             Text(signed_inches(o.stud_cover), style="bold red" if o.warnings else ""),
                             f"{o.extra_concrete / IN3_PER_FT3:.1f} ft3") for o in con.outcomes])
         self.query_one("#camber-warnings", Static).update(
-            plain("\n".join(f"{o.case}: {w}" for o in con.outcomes for w in o.warnings)))
+            plain("\n".join(dict.fromkeys(f"{o.case}: {w}" for o in con.outcomes for w in o.warnings))))
         self._profile(con)
         self.query_one(ChecksTable).show(con.checks)
 
