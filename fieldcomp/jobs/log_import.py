@@ -16,7 +16,7 @@ from __future__ import annotations
 
 import hashlib
 from collections import defaultdict
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from pathlib import Path
 from typing import Any
 
@@ -110,29 +110,30 @@ def _dump(model: Any) -> dict[str, Any]:
     return model.model_dump(mode="json", exclude_defaults=True, exclude_none=True)
 
 
-def import_log(job_path: str, mark: str, csv_path: str) -> ImportResult:
-    """Add the new findings of an inspection log to beam `mark` and write the job (atomic, .bak
-    kept). Every row is checked first, against the file format and the beam's layout; on any
-    error, and when every row is already recorded, nothing is written. Raises CsvImportError,
-    JobFileError or ChangedOnDiskError."""
+@dataclass(frozen=True, slots=True)
+class ImportPlan:
+    """The rows of a log to add to beam `index` (row number, finding), the rows already recorded
+    (row number, 1-based finding), the reports to add, and the job with them (validated)."""
+
+    index: int
+    added: list[tuple[int, FindingIn]]
+    recorded: list[tuple[int, int]]
+    reports: list[ReportIn]
+    updated: Job
+
+
+def plan_import(job: Job, index: int, log: InspectionLog, job_path: str = "<job>",
+                log_path: str = "<csv>") -> ImportPlan:
+    """Which rows of `log` are new to beam `index` of `job`; the new ones are checked against
+    the layout the findings apply to (engine.pipeline.field_layout) and raise CsvImportError
+    naming each row that contradicts it."""
     from engine.field.as_built import FindingError, apply_findings, finding_slot
     from engine.pipeline import as_poured, field_layout
-    from fieldcomp.jobs.jobfile import ChangedOnDiskError, load_job
-    from fieldcomp.jobs.jobfile import JobFileError
-    from fieldcomp.jobs.to_engine import require_in_scope, to_engine
 
-    loaded = load_job(job_path)
-    job = loaded.job
-    index = next((i for i, b in enumerate(job.beam) if b.mark == mark), None)
-    if index is None:
-        marks = ", ".join(b.mark for b in job.beam)
-        raise JobFileError(job_path, [("", f"no beam with mark {mark!r}; marks: {marks}")])
-    require_in_scope([b for b in to_engine(job, job_path) if b.mark == mark], job_path)
-    log = read_log(csv_path)
     beam_in = job.beam[index]
     every = [f for _, f in log.rows]
     merged = _engine_beam(_with(job, index, beam_in.finding + every, beam_in.report + new_reports(beam_in, every)),
-                          mark, job_path)
+                          beam_in.mark, job_path)
     beam = as_poured(merged)[0]
     designed = field_layout(beam)[0]
     slots: list[Any] = []
@@ -146,27 +147,47 @@ def import_log(job_path: str, mark: str, csv_path: str) -> ImportResult:
     new, recorded = match_recorded(list(zip(beam_in.finding, slots[:have])),
                                    [(row, f, s) for (row, f), s in zip(log.rows, slots[have:])], columns)
     added = [log.rows[i] for i in new]
-    result = ImportResult(job_path, mark, str(csv_path), log.separator_name, added, recorded, [], log.warnings)
-    if not added:
-        return result
     findings = [f for _, f in added]
     reports = new_reports(beam_in, findings)
     updated = _with(job, index, beam_in.finding + findings, beam_in.report + reports)
-    target = _engine_beam(updated, mark, job_path)
-    try:
-        apply_findings(beam, designed, target.findings)
-    except FindingError:
-        existing = list(beam.findings[:have])
-        fresh = [beam.findings[have + i] for i in new]
-        raise CsvImportError(csv_path, _rows_against_layout(beam, designed, existing, added, fresh),
-                             log.separator) from None
+    if added:
+        try:
+            apply_findings(beam, designed, _engine_beam(updated, beam_in.mark, job_path).findings)
+        except FindingError:
+            existing = list(beam.findings[:have])
+            fresh = [beam.findings[have + i] for i in new]
+            raise CsvImportError(log_path, _rows_against_layout(beam, designed, existing, added, fresh),
+                                 log.separator) from None
+    return ImportPlan(index, added, recorded, reports, updated)
+
+
+def import_log(job_path: str, mark: str, csv_path: str) -> ImportResult:
+    """Add the new findings of an inspection log to beam `mark` and write the job (atomic, .bak
+    kept). Every row is checked first, against the file format and the beam's layout; on any
+    error, and when every row is already recorded, nothing is written. Raises CsvImportError,
+    JobFileError or ChangedOnDiskError."""
+    from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError, load_job
+    from fieldcomp.jobs.to_engine import require_in_scope, to_engine
+
+    loaded = load_job(job_path)
+    job = loaded.job
+    index = next((i for i, b in enumerate(job.beam) if b.mark == mark), None)
+    if index is None:
+        marks = ", ".join(b.mark for b in job.beam)
+        raise JobFileError(job_path, [("", f"no beam with mark {mark!r}; marks: {marks}")])
+    require_in_scope([b for b in to_engine(job, job_path) if b.mark == mark], job_path)
+    log = read_log(csv_path)
+    plan = plan_import(job, index, log, job_path, str(csv_path))
+    result = ImportResult(job_path, mark, str(csv_path), log.separator_name, plan.added, plan.recorded, plan.reports,
+                          log.warnings)
+    if not plan.added:
+        return result
     p = Path(job_path)
     data = p.read_bytes()
     if hashlib.sha256(data).hexdigest() != loaded.digest:
         raise ChangedOnDiskError(f"{p} changed on disk since it was read; not overwritten")
-    tables = [("report", _dump(r)) for r in reports] + [("finding", _dump(f)) for f in findings]
-    how = _write(p, data, index, len(job.beam), tables, updated)
-    return ImportResult(job_path, mark, str(csv_path), log.separator_name, added, recorded, reports, log.warnings, how)
+    tables = [("report", _dump(r)) for r in plan.reports] + [("finding", _dump(f)) for _, f in plan.added]
+    return replace(result, written=_write(p, data, index, len(job.beam), tables, plan.updated))
 
 
 def _engine_beam(job: Job, mark: str, job_path: str):

@@ -78,17 +78,36 @@ class FindingsEditor(RowEditor):
                                      "Columns: kind, rib or station, count, note, date, reported_by."), self.import_csv)
 
     def import_csv(self, path: Path | None) -> None:
-        from fieldcomp.jobs.inspection_log import CsvImportError, read_findings_csv
+        """Add the log's new rows (fieldcomp.jobs.log_import.plan_import: rows already recorded
+        are left out, each new row checked against the layout) as one edit, after the reports
+        they name that the beam lacks. Text from the file is shown as written (markup off)."""
+        from fieldcomp.jobs.inspection_log import CsvImportError, read_log
+        from fieldcomp.jobs.jobfile import JobFileError
+        from fieldcomp.jobs.log_import import plan_import
+        from fieldcomp.tui.messages import RowsSet
 
-        if path is None:
+        if path is None or self.session is None:
             return
+        index = self.beam_index
         try:
-            rows = read_findings_csv(path)
-        except CsvImportError as exc:
-            self.app.notify(str(exc), title="Not imported", severity="error", timeout=12)
+            log = read_log(path)
+            plan = plan_import(self.session.job, index, log, self.session.where, str(path))
+        except (CsvImportError, JobFileError) as exc:
+            self.app.notify(str(exc), title="Not imported", severity="error", timeout=12, markup=False)
             return
-        items = [f.model_dump(mode="json", exclude_defaults=True, exclude_none=True) for _, f in rows]
-        self.add(items, f"import {len(items)} finding(s) from {path.name}")
+        for warning in log.warnings:
+            self.app.notify(f"{path.name}: {warning}", title="Column ignored", severity="warning", markup=False)
+        recorded = f"{len(plan.recorded)} row(s) already recorded" if plan.recorded else ""
+        if not plan.added:
+            self.app.notify(f"Already recorded: every row of {path.name} is a finding of this beam already; "
+                            "nothing added.", title="Nothing imported", markup=False)
+            return
+        if plan.reports:
+            reports = [r.model_dump(mode="json", exclude_defaults=True) for r in plan.updated.beam[index].report]
+            self.post_message(RowsSet(("beam", index, "report"), reports,
+                                      f"add report(s) {', '.join(r.number for r in plan.reports)} from {path.name}"))
+        items = [f.model_dump(mode="json", exclude_defaults=True, exclude_none=True) for _, f in plan.added]
+        self.add(items, f"import {len(items)} finding(s) from {path.name}" + (f" ({recorded})" if recorded else ""))
 
 
 class FindingsPane(Pane):

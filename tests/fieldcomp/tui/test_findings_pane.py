@@ -134,3 +134,32 @@ def test_findings_pane_after_the_pour(snap_compare, tmp_path):
         pilot.app.workbench.query_one("#findings-repair").scroll_visible(animate=False)
         await pilot.pause()
     assert snap_compare(demo_app(tmp_path, "after-pour"), terminal_size=(170, 48), run_before=run_before)
+
+
+def test_the_workbench_import_leaves_out_rows_already_recorded_and_adds_the_reports_named(tmp_path):
+    """Beam 3B-105 (index 5): ribs 3 and 4 hold one stud each in fieldcomp's layout
+    (tests/fieldcomp/test_import_edges.py)."""
+    log = tmp_path / "log.csv"
+    log.write_text("kind;rib;report;weather\nmissing;3;SI-09;rain\nweak-side;4;SI-09;rain\n")
+
+    async def flow() -> None:
+        app = demo_app(tmp_path, None)
+        async with app.run_test(size=SIZE) as pilot:
+            await show_findings(pilot)
+            app.select_beam(5)
+            for _ in range(3):
+                await app.workers.wait_for_complete()
+                await pilot.pause()
+            editor = app.workbench.query_one("#findings-rows")
+            editor.import_csv(log)
+            await pilot.pause()
+            beam = app.session.job.beam[5]
+            assert [(f.kind, f.rib, f.report) for f in beam.finding] == [("missing", 3, "SI-09"), ("weak-side", 4, "SI-09")]
+            assert [r.number for r in beam.report] == ["SI-09"]
+            notes = [n.message for n in app._notifications]
+            assert any("column 4 ('weather') ignored" in n for n in notes)
+            editor.import_csv(log)  # the same log again
+            await pilot.pause()
+            assert len(app.session.job.beam[5].finding) == 2
+            assert any(n.message.startswith("Already recorded: every row of log.csv") for n in app._notifications)
+    asyncio.run(flow())
