@@ -50,14 +50,17 @@ def patch_text(text: str, old: BaseModel, new: BaseModel) -> str:
 def patch_table(table: Any, old: BaseModel, new: BaseModel) -> bool:
     """Make the tomlkit table (document, table or inline table) that reads as `old` read as
     `new`; True when anything was written."""
-    changed = False
+    freed: list[int] = []  # where cleared keys stood: a key set in the same edit takes the place
+    removed = [name for name in type(new).model_fields
+               if name in table and (getattr(new, name) is None or name not in new.model_fields_set)]
+    for name in removed:  # cleared: unset means the default, which is never written
+        freed += _place_of(table, name)
+        remove_block(table, name)
+    changed = bool(removed)
     for name in type(new).model_fields:
         before, after = getattr(old, name), getattr(new, name)
         present = name in table
-        if after is None or (present and name not in new.model_fields_set):
-            if present:  # cleared: the key goes (unset means the default, which is never written)
-                remove_block(table, name)
-                changed = True
+        if after is None or name in removed:
             continue
         if isinstance(after, BaseModel):
             if present:
@@ -72,9 +75,17 @@ def patch_table(table: Any, old: BaseModel, new: BaseModel) -> bool:
                 add_block(table, name, [minimal(row) for row in after])
                 changed = True
         elif after != before:
-            set_leaf(table, name, after)
+            set_leaf(table, name, after, freed)
             changed = True
     return changed
+
+
+def _place_of(table: Any, key: str) -> list[int]:
+    """The body index of plain key `key` in a (non-inline) table, to put a replacing key there."""
+    if isinstance(table, (InlineTable, Array)) or isinstance(table[key], (Table, AoT)):
+        return []
+    body = table if isinstance(table, Container) else table.value
+    return [i for i, (k, _) in enumerate(body.body) if k is not None and k.key == key][:1]
 
 
 def patch_rows(table: Any, key: str, before: list[BaseModel], after: list[BaseModel]) -> bool:
@@ -121,21 +132,23 @@ def minimal(model: BaseModel) -> dict[str, Any]:
     return out
 
 
-def set_leaf(table: Any, key: str, value: Any) -> None:
+def set_leaf(table: Any, key: str, value: Any, freed: list[int] | None = None) -> None:
     """Write one value, in the form the file gave the old one where the value allows it (a
-    whole number stays written without a decimal point, a literal string stays literal); the
-    comment on its line stays."""
+    whole number is written without a decimal point unless the old value had one, a literal
+    string stays literal); the comment on its line stays."""
     old = table.get(key) if key in table else None
     item = _leaf_item(value, old)
     if old is not None:
         item.trivia.comment_ws, item.trivia.comment = old.trivia.comment_ws, old.trivia.comment
         table[key] = item
     else:
-        add_key(table, key, item)
+        add_key(table, key, item, freed.pop(0) if freed else None)
+        if freed:
+            freed[:] = [i + 1 for i in freed]
 
 
 def _leaf_item(value: Any, old: Item | None) -> Item:
-    if isinstance(value, float) and value.is_integer() and isinstance(old, Integer):
+    if isinstance(value, float) and value.is_integer() and abs(value) < 2**53 and (old is None or isinstance(old, Integer)):
         return tomlkit.item(int(value))
     if (isinstance(value, str) and isinstance(old, String) and old.type == StringType.SLL
             and "'" not in value and value.isprintable()):
@@ -143,17 +156,18 @@ def _leaf_item(value: Any, old: Item | None) -> Item:
     return tomlkit.item(value)
 
 
-def add_key(table: Any, key: str, item: Item) -> None:
-    """A key the table did not have, after its last plain key (before its sub-tables and before
-    any comment that introduces them)."""
+def add_key(table: Any, key: str, item: Item, at: int | None = None) -> None:
+    """A key the table did not have: at body index `at` (where a key it replaces stood), else
+    after its last plain key (before its sub-tables and any comment that introduces them)."""
     if isinstance(table, (InlineTable, Array)):
         table[key] = item
         return
     body: Container = table if isinstance(table, Container) else table.value
-    at = 0
-    for i, (k, v) in enumerate(body.body):
-        if k is not None and not isinstance(v, (Table, AoT)):
-            at = i + 1
+    if at is None:
+        at = 0
+        for i, (k, v) in enumerate(body.body):
+            if k is not None and not isinstance(v, (Table, AoT)):
+                at = i + 1
     if at < len(body.body):
         body._insert_at(at, key, item)  # tomlkit's own insert: no blank line added
     else:
