@@ -132,8 +132,7 @@ def insert_row(rows: AoT | Array, at: int, data: dict[str, Any]) -> None:
     if isinstance(rows, Array):
         rows.insert(at, _inline(data))
         return
-    n = len(rows)
-    gap = _peek_gap(rows[at - 1] if 0 < at < n else rows[n - 2] if at == n and n >= 2 else rows[0]) if n >= 2 or 0 < at < n else []
+    gap = _between(rows, at)
     row = new_block(data, aot_element=True)
     if at > 0:
         prev = deep(rows[at - 1])
@@ -144,6 +143,17 @@ def insert_row(rows: AoT | Array, at: int, data: dict[str, Any]) -> None:
     else:
         rows.insert(0, row)
         push_tail(deep(row), gap)
+
+
+def _between(rows: AoT, at: int) -> Tail:
+    """The gap a row added at `at` leaves before the next: that between the rows around it
+    (the last two rows' for a new last row, the first two's for a new first one); none with one row."""
+    n = len(rows)
+    if 0 < at < n:
+        return _peek_gap(rows[at - 1])
+    if n < 2:
+        return []
+    return _peek_gap(rows[n - 2] if at == n else rows[0])
 
 
 def remove_row(rows: AoT | Array, at: int) -> None:

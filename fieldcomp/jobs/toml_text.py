@@ -95,9 +95,8 @@ def patch_rows(table: Any, key: str, before: list[BaseModel], after: list[BaseMo
         remove_block(table, key)
         return True
     rows = table[key]
-    was, now = [r.model_dump_json() for r in before], [r.model_dump_json() for r in after]
     changed = False
-    for tag, i1, i2, j1, j2 in reversed(SequenceMatcher(None, was, now, autojunk=False).get_opcodes()):
+    for tag, i1, i2, j1, j2 in reversed(_aligned(before, after)):
         kept = min(i2 - i1, j2 - j1) if tag in ("equal", "replace") else 0
         for k in range(kept):
             changed |= patch_table(rows[i1 + k], before[i1 + k], after[j1 + k])
@@ -108,6 +107,27 @@ def patch_rows(table: Any, key: str, before: list[BaseModel], after: list[BaseMo
             insert_row(rows, i1 + kept + n, minimal(after[j]))
             changed = True
     return changed
+
+
+def _aligned(before: list[BaseModel], after: list[BaseModel]) -> list[tuple[str, int, int, int, int]]:
+    """Old rows matched to new ones (difflib opcodes): whole rows first, then, among rows that
+    differ, by their first field (a beam's mark, a slab's id, a pour's name), so an edited row
+    is patched in place of itself rather than of a removed neighbour."""
+    ops: list[tuple[str, int, int, int, int]] = []
+    whole = SequenceMatcher(None, [r.model_dump_json() for r in before], [r.model_dump_json() for r in after],
+                            autojunk=False)
+    for tag, i1, i2, j1, j2 in whole.get_opcodes():
+        if tag != "replace":
+            ops.append((tag, i1, i2, j1, j2))
+            continue
+        ident = SequenceMatcher(None, [_first(r) for r in before[i1:i2]], [_first(r) for r in after[j1:j2]],
+                                autojunk=False)
+        ops += [(t, i1 + a1, i1 + a2, j1 + b1, j1 + b2) for t, a1, a2, b1, b2 in ident.get_opcodes()]
+    return ops
+
+
+def _first(row: BaseModel) -> str:
+    return repr(getattr(row, next(iter(type(row).model_fields))))
 
 
 def _rows(value: Any) -> bool:
