@@ -4,6 +4,7 @@ as .bak), errors that name the file, the beam and the field."""
 from __future__ import annotations
 
 import difflib
+import functools
 import hashlib
 import os
 import tomllib
@@ -20,7 +21,8 @@ from fieldcomp.jobs.kind_messages import KIND_ERRORS, kind_message
 from fieldcomp.jobs.file_kinds import FileKindError, read_regular
 from fieldcomp.jobs.nesting import JOB_NESTING, MAX_NESTING, deep_line, deep_path
 from fieldcomp.jobs.model import Job
-from fieldcomp.jobs.toml_text import BOM, minimal, patch_text
+from fieldcomp.jobs.toml_groups import patch_blocks
+from fieldcomp.jobs.toml_text import BOM, join_form, minimal, patch_text, split_form
 from engine.model.errors import FieldcompError
 from engine.model.text import printable
 
@@ -93,12 +95,24 @@ def dump_job(job: Job, previous: str | None = None) -> str:
     the job is written plainly with only what is not a default."""
     if previous is not None:
         try:
-            merged = patch_text(previous, parse_job(previous.removeprefix(BOM)), job)
+            old = _parsed(previous)
+            bom, crlf, body = split_form(previous)
+            fast = patch_blocks(body, old, job)  # each rewritten block read back already
+            if fast is not None:
+                return join_form(bom, crlf, fast)
+            merged = patch_text(previous, old, job)
             if parse_job(merged.removeprefix(BOM)) == job:
                 return merged
         except (JobFileError, TOMLKitError, LookupError, TypeError, ValueError):
             pass  # the previous text is not a job any more, or tomlkit cannot patch it: written plainly
     return tomli_w.dumps(minimal(job))
+
+
+@functools.lru_cache(maxsize=2)
+def _parsed(text: str) -> Job:
+    """The job a text says (a session's saved text is patched again at every save and every
+    recovery write: parsed once)."""
+    return parse_job(text.removeprefix(BOM))
 
 
 def job_text(data: bytes) -> str:

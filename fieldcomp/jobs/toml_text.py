@@ -96,7 +96,7 @@ def patch_rows(table: Any, key: str, before: list[BaseModel], after: list[BaseMo
         return True
     rows = table[key]
     changed = False
-    for tag, i1, i2, j1, j2 in reversed(_aligned(before, after)):
+    for tag, i1, i2, j1, j2 in reversed(aligned(before, after)):
         kept = min(i2 - i1, j2 - j1) if tag in ("equal", "replace") else 0
         for k in range(kept):
             changed |= patch_table(rows[i1 + k], before[i1 + k], after[j1 + k])
@@ -109,10 +109,12 @@ def patch_rows(table: Any, key: str, before: list[BaseModel], after: list[BaseMo
     return changed
 
 
-def _aligned(before: list[BaseModel], after: list[BaseModel]) -> list[tuple[str, int, int, int, int]]:
+def aligned(before: list[BaseModel], after: list[BaseModel]) -> list[tuple[str, int, int, int, int]]:
     """Old rows matched to new ones (difflib opcodes): whole rows first, then, among rows that
     differ, by their first field (a beam's mark, a slab's id, a pour's name), so an edited row
     is patched in place of itself rather than of a removed neighbour."""
+    if len(before) == len(after) and [_first(r) for r in before] == [_first(r) for r in after]:
+        return [("replace", 0, len(before), 0, len(after))]  # the same rows, edited or not: each patched in place
     ops: list[tuple[str, int, int, int, int]] = []
     whole = SequenceMatcher(None, [r.model_dump_json() for r in before], [r.model_dump_json() for r in after],
                             autojunk=False)

@@ -91,7 +91,7 @@ def test_injected_os_failures_keep_the_old_file(tmp_path, monkeypatch, fail):
         raise OSError(28, "No space left on device")
 
     if fail == "write":
-        monkeypatch.setattr(jf, "patch_text", boom)  # rendering the new text fails
+        monkeypatch.setattr(jf, "patch_blocks", boom)  # rendering the new text fails
     else:
         monkeypatch.setattr(at.os, fail, boom)
     with pytest.raises(OSError):

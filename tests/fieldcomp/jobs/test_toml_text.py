@@ -1,4 +1,5 @@
-"""Job-file text patched in place (fieldcomp.jobs.toml_text): only the values that differ are
+"""Job-file text patched in place (fieldcomp.jobs.toml_text, and block by block:
+fieldcomp.jobs.toml_groups): only the values that differ are
 rewritten, rows come and go as whole blocks, comments, spacing, line endings and the byte-order
 mark stay. The reference for "the same document" is the TOML 1.0.0 specification as read by
 Python's tomllib (every patched text is parsed back and compared with the edited job), and for
@@ -15,6 +16,7 @@ from hypothesis import strategies as st
 
 from fieldcomp.jobs.jobfile import parse_job
 from fieldcomp.jobs.model import FindingIn
+from fieldcomp.jobs.toml_groups import patch_blocks, split_blocks
 from fieldcomp.jobs.toml_text import BOM, join_form, minimal, patch_text, split_form
 
 # An invented job written the way people write by hand: comments everywhere, aligned values,
@@ -180,8 +182,8 @@ def test_rows_added_removed_and_edited_at_random_read_back_as_the_edited_job(edi
     row that stays."""
     job = parse_job(DEMO_TEXT)
     beams = list(job.beam)
-    for what, b, i in edits:
-        b %= len(beams)
+    for what, pick, i in edits:
+        b = pick % len(beams)
         rows = list(beams[b].finding)
         if what == "add":
             rows.insert(min(i, len(rows)), FindingIn(kind="added", rib=1 + i, note=f"added {i}"))
@@ -200,3 +202,42 @@ def test_rows_added_removed_and_edited_at_random_read_back_as_the_edited_job(edi
         if line.startswith("[[beam]]") and "#" in line:
             mark = DEMO_TEXT.split(line, 1)[1].split('mark = "', 1)[1].split('"', 1)[0]
             assert (line in out) == (mark in kept), line
+
+
+@settings(max_examples=60, deadline=None)
+@given(ROW_EDITS)
+def test_block_by_block_patching_writes_what_the_whole_document_patch_writes(edits):
+    """The fast path (only the changed top-level blocks parsed) and the whole-document patch
+    give the same text; so the fast path inherits everything tested of the other."""
+    job = parse_job(DEMO_TEXT)
+    beams = list(job.beam)
+    for n, (what, pick, i) in enumerate(edits):
+        b = pick % len(beams)
+        if what == "remove" and len(beams) > 1:
+            del beams[b]
+        elif what == "add":
+            beams.insert(b, beams[b].model_copy(update={"mark": f"new-{n}"}))
+        else:
+            beams[b] = beams[b].model_copy(update={"live_psf": float(10 + i), "finding": beams[b].finding[:i]})
+    new = job.model_copy(update={"beam": beams})
+    fast = patch_blocks(DEMO_TEXT, job, new)
+    assert fast is not None and fast == patched(DEMO_TEXT, new)
+
+
+@pytest.mark.parametrize("text", [
+    'x = """two\nlines"""\n[project]\nname = "a"\n',  # a multi-line string could hide a header
+    '[project]\nname = "a"\n["beam"]\n',  # a quoted header
+    'name = "a"\n[project]\n',  # a key before the first table
+    '[[beam]]\nmark = "a"\n[slab]\n[beam.studs]\n',  # a sub-table away from its table
+    '[project]\nname = "a"',  # no newline at the end
+])
+def test_text_that_is_not_plain_blocks_is_left_to_the_whole_document_patch(text):
+    assert split_blocks(text) is None
+
+
+def test_blocks_keep_their_trailing_comments_apart():
+    head, blocks = split_blocks(ODD)
+    assert head == "# hand-written job, odd spacing on purpose\n"
+    assert [b.key for b in blocks] == ["project", "slab", "beam", "beam"]
+    assert blocks[2].trailer == "\n# the second beam\n" and blocks[2].core.endswith('note = "bent"}]\n')
+    assert head + "".join(b.core + b.trailer for b in blocks) == ODD
