@@ -21,7 +21,7 @@ from fieldcomp.jobs.kind_messages import KIND_ERRORS, kind_message
 from fieldcomp.jobs.file_kinds import FileKindError, read_regular
 from fieldcomp.jobs.nesting import JOB_NESTING, MAX_NESTING, deep_line, deep_path
 from fieldcomp.jobs.model import Job
-from fieldcomp.jobs.toml_groups import patch_blocks
+from fieldcomp.jobs.toml_top_level import patch_blocks
 from fieldcomp.jobs.toml_text import BOM, join_form, minimal, patch_text, split_form
 from engine.model.errors import FieldcompError
 from engine.model.text import printable

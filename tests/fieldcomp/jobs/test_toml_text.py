@@ -1,5 +1,5 @@
 """Job-file text patched in place (fieldcomp.jobs.toml_text, and block by block:
-fieldcomp.jobs.toml_groups): only the values that differ are
+fieldcomp.jobs.toml_top_level): only the values that differ are
 rewritten, rows come and go as whole blocks, comments, spacing, line endings and the byte-order
 mark stay. The reference for "the same document" is the TOML 1.0.0 specification as read by
 Python's tomllib (every patched text is parsed back and compared with the edited job), and for
@@ -16,7 +16,7 @@ from hypothesis import strategies as st
 
 from fieldcomp.jobs.jobfile import parse_job
 from fieldcomp.jobs.model import FindingIn
-from fieldcomp.jobs.toml_groups import patch_blocks, split_blocks
+from fieldcomp.jobs.toml_top_level import patch_blocks, split_blocks
 from fieldcomp.jobs.toml_text import BOM, join_form, minimal, patch_text, split_form
 
 # An invented job written the way people write by hand: comments everywhere, aligned values,
