@@ -4,7 +4,6 @@ as .bak), errors that name the file, the beam and the field."""
 from __future__ import annotations
 
 import difflib
-import functools
 import hashlib
 import os
 import tomllib
@@ -85,7 +84,8 @@ def load_job(path: str | os.PathLike[str]) -> LoadedJob:
     except UnicodeDecodeError as exc:
         utf16 = "; it looks like UTF-16: save it as UTF-8" if data[:2] in (b"\xff\xfe", b"\xfe\xff") else ""
         raise JobFileError(p, [("", f"not UTF-8 text (byte {exc.start}){utf16}")]) from None
-    return LoadedJob(p, parse_job(text.removeprefix(BOM), p), hashlib.sha256(data).hexdigest(), text)
+    job = parse_job(text.removeprefix(BOM), p)
+    return LoadedJob(p, _remember(text, job), hashlib.sha256(data).hexdigest(), text)
 
 
 def dump_job(job: Job, previous: str | None = None) -> str:
@@ -108,11 +108,21 @@ def dump_job(job: Job, previous: str | None = None) -> str:
     return tomli_w.dumps(minimal(job))
 
 
-@functools.lru_cache(maxsize=2)
+_PARSED: dict[str, Job] = {}  # the last texts loaded or patched, and the jobs they say
+
+
 def _parsed(text: str) -> Job:
     """The job a text says (a session's saved text is patched again at every save and every
-    recovery write: parsed once)."""
-    return parse_job(text.removeprefix(BOM))
+    recovery write: parsed once, or not at all when it was just loaded)."""
+    job = _PARSED.get(text)
+    return job if job is not None else _remember(text, parse_job(text.removeprefix(BOM)))
+
+
+def _remember(text: str, job: Job) -> Job:
+    while len(_PARSED) >= 2:
+        _PARSED.pop(next(iter(_PARSED)), None)
+    _PARSED[text] = job
+    return job
 
 
 def job_text(data: bytes) -> str:
