@@ -110,7 +110,7 @@ def remove_block(table: Any, key: str) -> None:
     """Remove a key, table or rows; a removed block's tail (the gap or comment before what came
     after it) stays in the file."""
     item = table[key]
-    if isinstance(table, InlineTable) or not isinstance(item, (Table, AoT)) or isinstance(item, InlineTable):
+    if isinstance(table, InlineTable) or not isinstance(item, (Table, AoT)):
         del table[key]
         return
     body = _container(table)
