@@ -33,6 +33,7 @@ class ImportedBeam:
     notes: list[str] = field(default_factory=list)  # written as comments above the beam
     girder: bool = False
     slab_key: float | None = None  # overall slab thickness (in) under the beam, when the model has one
+    studs: int | str | None = None  # a stud count the schedule gives (first import only: studs are the engineer's)
 
 
 def length_text(inches: float) -> str:

@@ -85,7 +85,7 @@ def beam_values(record: ImportedBeam, taken: dict[str, Any], slab: str, first: b
         if key in geometry:
             values[key] = geometry.pop(key)
     values["slab"] = slab
-    if first:
+    if first and all(record.ends):
         values["reference_end"], values["far_end"] = record.ends
     loads = {k: taken[k] for k in FROM_TEMPLATE if k in taken}
     if not taken:
@@ -98,6 +98,9 @@ def beam_values(record: ImportedBeam, taken: dict[str, Any], slab: str, first: b
     if record.girder:
         loads["deck_orientation"] = "parallel"
         comments["deck_orientation"] = f"{CONFIRM}: deck ribs taken parallel to a girder (the deck spans between the beams framing in)"
+    if record.studs is not None:
+        loads["studs"] = loads.get("studs", {}) | {"count": record.studs}
+        comments.setdefault("studs.*", {})["count"] = "from the schedule"
     framing = geometry.pop("framing", [])
     values |= {k: v for k, v in loads.items() if k != "studs"} | geometry
     values["studs"] = loads.get("studs", {})
