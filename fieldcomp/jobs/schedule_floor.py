@@ -27,7 +27,7 @@ COORDINATES = ("x1", "y1", "x2", "y2")
 # Header names each key answers to, compared without case, spaces, punctuation or a unit in brackets.
 HEADERS: dict[str, tuple[str, ...]] = {
     "mark": ("mark", "beam", "beammark", "piecemark", "membermark", "tag", "id"),
-    "shape": ("shape", "size", "section", "profile", "beamsize", "member"),
+    "shape": ("shape", "size", "section", "profile", "beamsize", "membersize", "member"),
     "span": ("span", "length", "spanlength", "beamspan"),
     "spacing": ("spacing", "beamspacing", "spacingbothsides"),
     "spacing_left": ("spacingleft", "leftspacing"),
