@@ -7,6 +7,7 @@ from __future__ import annotations
 
 import argparse
 import os
+import stat
 from pathlib import Path
 
 from fieldcomp.cli.common import EXIT_PASS, EXIT_REVIEW, fail_input, fail_output
@@ -23,7 +24,8 @@ def register(sub) -> None:
     p.add_argument("--template", metavar="JOB", help="job whose deck, slab, loads and studs the beams take")
     p.add_argument("--template-beam", metavar="MARK", help="the template's beam to take loads and studs from (default its first)")
     p.add_argument("--map", action="append", default=[], metavar="KEY=COLUMN",
-                   help="schedule: the column holding KEY (mark, shape, span, spacing, spacing_left, edge_left, level, studs, x1 ...)")
+                   help="schedule: the column holding KEY (mark, shape, span, spacing, spacing_left, edge_left, "
+                        "level, studs, x1 ...)")
 
 
 def _kind(path: Path) -> str:
@@ -33,6 +35,8 @@ def _kind(path: Path) -> str:
     if suffix in (".csv", ".txt", ".xlsx", ".xlsm"):
         return "schedule"
     try:
+        if not stat.S_ISREG(os.stat(path).st_mode):
+            return "schedule"  # not opened here (a FIFO would block): the reader refuses it by its kind
         with open(path, "rb") as fh:
             head = fh.read(16)
     except OSError:

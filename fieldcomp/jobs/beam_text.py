@@ -124,12 +124,13 @@ def set_framing(block: list[str], framing: list[dict[str, Any]]) -> None:
     """Replace the block's [[beam.framing]] tables (or its one-line framing = [...]) by `framing`."""
     heads = [(i, name) for i, name, _ in _headers(block) if i > 0]
     cuts = []
-    for n, (i, name) in enumerate(heads):
+    for n, (at, name) in enumerate(heads):
         if name == "beam.framing":
-            end = _trim(block, i, heads[n + 1][0]) if n + 1 < len(heads) else len(block)
-            while i > 0 and not block[i - 1].strip():
-                i -= 1
-            cuts.append((i, end))
+            end = _trim(block, at, heads[n + 1][0]) if n + 1 < len(heads) else len(block)
+            start = at
+            while start > 0 and not block[start - 1].strip():
+                start -= 1  # the blank lines before it go with it
+            cuts.append((start, end))
     for i, end in reversed(cuts):
         del block[i:end]
     first = cuts[0][0] if cuts else None

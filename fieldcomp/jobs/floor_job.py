@@ -77,7 +77,8 @@ def from_layout(beams: list[FloorBeam], level: str, notes: dict[str, list[str]])
         values["source_id"] = m.source_id
         for where, support in zip(("reference end", "far end"), b.supports):
             if not support:
-                beam_notes.append(f"{where}: no supporting column or girder found in the model; span taken to the modelled end of the steel")
+                beam_notes.append(f"{where}: no supporting column or girder found in the model; "
+                                  "span taken to the modelled end of the steel")
         records.append(ImportedBeam(m.mark, values, (_end_name(b.supports[0]), _end_name(b.supports[1])),
                                     beam_notes, bool(b.framing), b.slab.thickness if b.slab else None))
     written = {r.mark for r in records}

@@ -94,10 +94,12 @@ def beam_values(record: ImportedBeam, taken: dict[str, Any], slab: str, first: b
         comments["studs.*"] = {k: CONFIRM for k in _PLACEHOLDER_STUDS}
     elif isinstance(loads.get("studs", {}).get("count"), int):
         loads["studs"] = loads["studs"] | {"count": "design"}
-        comments["studs.*"] = {"count": f"{CONFIRM}: the template's count is for its own beam; give the drawings' count or keep design"}
+        comments["studs.*"] = {"count": f"{CONFIRM}: the template's count is for its own beam; "
+                                        "give the drawings' count or keep design"}
     if record.girder:
         loads["deck_orientation"] = "parallel"
-        comments["deck_orientation"] = f"{CONFIRM}: deck ribs taken parallel to a girder (the deck spans between the beams framing in)"
+        comments["deck_orientation"] = (f"{CONFIRM}: deck ribs taken parallel to a girder "
+                                        "(the deck spans between the beams framing in)")
     if record.studs is not None:
         loads["studs"] = loads.get("studs", {}) | {"count": record.studs}
         comments.setdefault("studs.*", {})["count"] = "from the schedule"
@@ -109,7 +111,8 @@ def beam_values(record: ImportedBeam, taken: dict[str, Any], slab: str, first: b
     return values, comments
 
 
-def slab_tables(source: Source, template: Job | None, base_slab: str | None) -> tuple[list[dict[str, Any]], dict[float, str], list[str], dict[str, dict[str, str]]]:
+def slab_tables(source: Source, template: Job | None, base_slab: str | None
+                ) -> tuple[list[dict[str, Any]], dict[float, str], list[str], dict[str, dict[str, str]]]:
     """(slab tables, slab id per overall thickness, notes, comments per slab id). The topping is
     the model's overall thickness less the deck's rib height (the whole thickness for a solid slab)."""
     ribs = ({d.id: parse_length(d.rib_height) for d in template.deck} if template
@@ -129,7 +132,8 @@ def slab_tables(source: Source, template: Job | None, base_slab: str | None) -> 
         topping = t - rib
         gids = ", ".join(g for g, th in source.slabs if round_to_sixteenth(th) == t)
         if topping <= 0.0:
-            notes.append(f"slab {gids}: {length_text(t)} overall is not thicker than the deck ribs ({length_text(rib)}); topping not taken from it")
+            notes.append(f"slab {gids}: {length_text(t)} overall is not thicker than the deck ribs "
+                         f"({length_text(rib)}); topping not taken from it")
             continue
         slab = base if n == 0 else dict(base) | {"id": f"{base['id']}-{n + 1}"}
         if n > 0:
@@ -152,21 +156,25 @@ def job_text(source: Source, records: list[ImportedBeam], template: Job | None, 
              "# a re-import updates those fields only. Loads, studs, pours, findings and camber settings are yours."]
     lines += [f"# {printable(b)}." for b in source.basis]
     if template is None:
-        lines.append(f"# No template job: deck, slab, studs and loads are placeholders marked {CONFIRM}. Confirm them before using any result.")
+        lines.append(f"# No template job: deck, slab, studs and loads are placeholders marked {CONFIRM}. "
+                     "Confirm them before using any result.")
     else:
-        lines.append("# Deck, slab, studs and loads from the template job" + (f" (beam {template_mark})" if template_mark else "") + ".")
+        which = f" (beam {template_mark})" if template_mark else ""
+        lines.append(f"# Deck, slab, studs and loads from the template job{which}.")
     left_out = source.left_out + slab_notes
     if left_out:
         lines.append("# Not read from the source (left out, not guessed):")
         lines += [f"#   {printable(p)}" for p in left_out]
-    project = template.project.model_dump(mode="json", exclude_unset=True) if template else {"name": source.project[:200] or "Imported floor", "method": "LRFD"}
+    project = (template.project.model_dump(mode="json", exclude_unset=True) if template
+               else {"name": source.project[:200] or "Imported floor", "method": "LRFD"})
     lines += ["", *table_lines("project", project, {} if template else {"method": CONFIRM}, array=False)]
-    decks = [d.model_dump(mode="json", exclude_unset=True) for d in template.deck] if template else [dict(_PLACEHOLDER_DECK)]
+    decks = ([d.model_dump(mode="json", exclude_unset=True) for d in template.deck] if template
+             else [dict(_PLACEHOLDER_DECK)])
     for deck in decks:
         lines += ["", *table_lines("deck", deck, {} if template else {k: CONFIRM for k in deck if k != "id"})]
     for slab in slabs:
         lines += ["", *table_lines("slab", slab, slab_comments.get(slab["id"], {}))]
-    default_slab = slabs[0]["id"] if not taken.get("slab") else next((s["id"] for s in slabs if s["id"] == taken["slab"]), slabs[0]["id"])
+    default_slab = next((s["id"] for s in slabs if s["id"] == taken.get("slab")), slabs[0]["id"])
     for record in records:
         slab = slab_ids.get(round_to_sixteenth(record.slab_key)) if record.slab_key is not None else None
         notes = list(record.notes)

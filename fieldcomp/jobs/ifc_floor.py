@@ -65,7 +65,7 @@ def open_model(path: str | os.PathLike[str]) -> Any:
         raise IfcReadError(path, "not an IFC file in the STEP text form (ISO-10303-21); export .ifc, not .ifczip or .ifcxml")
     try:
         return ifcopenshell.file.from_string(data.decode("utf-8", errors="replace"))
-    except Exception as exc:  # noqa: BLE001 - the parser's own error types vary by version
+    except Exception as exc:
         raise IfcReadError(path, f"not readable as IFC: {exc}") from None
 
 
@@ -76,7 +76,7 @@ def storey_names(model: Any) -> list[str]:
 
 
 def _contents(storey: Any) -> set[Any]:
-    import ifcopenshell.util.element as element
+    from ifcopenshell.util import element
 
     return element.get_decomposition(storey)
 
@@ -128,7 +128,7 @@ def _note(found: StoreyFraming, element: Any, text: str) -> None:
 
 
 def _placement(element: Any) -> np.ndarray:
-    import ifcopenshell.util.placement as placement
+    from ifcopenshell.util import placement
 
     if element.ObjectPlacement is None:
         return np.eye(4)
@@ -136,7 +136,7 @@ def _placement(element: Any) -> np.ndarray:
 
 
 def _axis_matrix(position: Any) -> np.ndarray:
-    import ifcopenshell.util.placement as placement
+    from ifcopenshell.util import placement
 
     return np.eye(4) if position is None else np.asarray(placement.get_axis2placement(position), dtype=float)
 

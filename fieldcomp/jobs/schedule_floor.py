@@ -91,7 +91,7 @@ def _xlsx_rows(p: Path, data: bytes) -> list[list[str]]:
 
     try:
         book = openpyxl.load_workbook(io.BytesIO(data), read_only=True, data_only=True)
-    except Exception as exc:  # noqa: BLE001 - a damaged or foreign zip: openpyxl raises several kinds
+    except Exception as exc:
         raise ScheduleError(p, f"not readable as an .xlsx workbook: {exc}") from None
     sheet = book.worksheets[0]
     rows = [[_cell(v) for v in row] for row in sheet.iter_rows(values_only=True, max_row=MAX_ROWS + 1)]

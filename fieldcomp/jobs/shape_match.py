@@ -69,5 +69,6 @@ def match_section(section: Section) -> tuple[WShape, str]:
     if not fits:
         raise ShapeMatchError(f"profile {section.name!r} ({section.dimensions_text()}) matches no W shape of the table")
     if len(fits) > 1 and abs(_misfit(section, fits[0]) - _misfit(section, fits[1])) < 1e-9:
-        raise ShapeMatchError(f"profile {section.name!r} ({section.dimensions_text()}) matches {fits[0].name} and {fits[1].name} equally")
+        raise ShapeMatchError(f"profile {section.name!r} ({section.dimensions_text()}) matches "
+                              f"{fits[0].name} and {fits[1].name} equally")
     return fits[0], f"profile {section.name!r} matched to {fits[0].name} by its dimensions ({section.dimensions_text()})"

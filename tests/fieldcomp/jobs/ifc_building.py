@@ -23,7 +23,7 @@ import ifcopenshell.api.project
 import ifcopenshell.api.root
 import ifcopenshell.api.spatial
 import ifcopenshell.api.unit
-import ifcopenshell.api as api
+from ifcopenshell import api
 import ifcopenshell.guid
 
 FT = 12.0  # in per ft
@@ -99,7 +99,8 @@ def write_building(path: Path, schema: str = "IFC4", unit: str = "mm", pieces: l
     k = UNITS[unit]
     f = api.project.create_file(version=schema)
     if schema == "IFC2X3":  # every IfcRoot has an owner history there
-        user = f.createIfcPersonAndOrganization(f.createIfcPerson(FamilyName="Tester"), f.createIfcOrganization(Name="Fieldcomp tests"))
+        user = f.createIfcPersonAndOrganization(f.createIfcPerson(FamilyName="Tester"),
+                                                f.createIfcOrganization(Name="Fieldcomp tests"))
         app = f.createIfcApplication(user.TheOrganization, "0.1", "fieldcomp tests", "fieldcomp-tests")
         ifcopenshell.api.owner.settings.get_user = lambda _f: user
         ifcopenshell.api.owner.settings.get_application = lambda _f: app
@@ -158,12 +159,17 @@ def _beam(f, body, storey, piece: Piece, k: float) -> None:
     beam.ObjectPlacement = f.createIfcLocalPlacement(storey.ObjectPlacement,
                                                      _axes(f, (x1 * k, y1 * k, z * k), (ux, uy, 0.0), (-uy, ux, 0.0)))
     profile = (_i_profile(f, piece.profile, piece.shape, k) if piece.shape else
-               f.createIfcRectangleProfileDef("AREA", piece.profile, f.createIfcAxis2Placement2D(f.createIfcCartesianPoint([0.0, 0.0])),
+               f.createIfcRectangleProfileDef("AREA", piece.profile,
+                                              f.createIfcAxis2Placement2D(f.createIfcCartesianPoint([0.0, 0.0])),
                                               12.0 * k, 0.5 * k))
     solid = f.createIfcExtrudedAreaSolid(profile, _axes(f, (0, 0, 0)), f.createIfcDirection([0.0, 0.0, 1.0]), length * k)
     rep = f.createIfcShapeRepresentation(body, "Body", "SweptSolid", [solid])
     beam.Representation = f.createIfcProductDefinitionShape(None, None, [rep])
     api.spatial.assign_container(f, products=[beam], relating_structure=storey)
+
+
+def _body(f, context, solid):
+    return f.createIfcProductDefinitionShape(None, None, [f.createIfcShapeRepresentation(context, "Body", "SweptSolid", [solid])])
 
 
 def _column(f, body, origin, mark, at, k, n):
@@ -172,7 +178,7 @@ def _column(f, body, origin, mark, at, k, n):
     column.ObjectPlacement = f.createIfcLocalPlacement(origin, _axes(f, (at[0] * k, at[1] * k, 0.0)))
     solid = f.createIfcExtrudedAreaSolid(_i_profile(f, "W10X49", "W10X49", k), _axes(f, (0, 0, 0)),
                                          f.createIfcDirection([0.0, 0.0, 1.0]), ELEVATIONS["Roof"] * k)
-    column.Representation = f.createIfcProductDefinitionShape(None, None, [f.createIfcShapeRepresentation(body, "Body", "SweptSolid", [solid])])
+    column.Representation = _body(f, body, solid)
     return column
 
 
@@ -184,5 +190,5 @@ def _slab(f, body, storey, k):
     curve = f.createIfcPolyline([f.createIfcCartesianPoint([x * FT * k, y * FT * k]) for x, y in corners])
     profile = f.createIfcArbitraryClosedProfileDef("AREA", None, curve)
     solid = f.createIfcExtrudedAreaSolid(profile, _axes(f, (0, 0, 0)), f.createIfcDirection([0.0, 0.0, 1.0]), SLAB * k)
-    slab.Representation = f.createIfcProductDefinitionShape(None, None, [f.createIfcShapeRepresentation(body, "Body", "SweptSolid", [solid])])
+    slab.Representation = _body(f, body, solid)
     api.spatial.assign_container(f, products=[slab], relating_structure=storey)

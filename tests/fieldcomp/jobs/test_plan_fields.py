@@ -18,8 +18,10 @@ def with_beam_lines(lines: str) -> str:
 def test_plan_level_source_and_framing_read_back():
     text = with_beam_lines('level = "Level 2"\nsource_id = "2xQ$n5SLP5MBLyL442paFx"\n'
                            'plan = { x1 = "-6 ft", y1 = "0 in", x2 = "24 ft", y2 = "1.5 m" }')
-    text = text.replace("[beam.studs]", '[[beam.framing]]\nmark = "B-2"\nat = "10 ft"\nend = "far-end"\nside = "left"\n\n[beam.studs]')
-    text += '\n[[beam]]\nmark = "B-2"\nshape = "W12X19"\nspan = "10 ft"\nedge_left = "1 ft"\nedge_right = "1 ft"\nslab = "SLAB-1"\n[beam.studs]\nlength = "5 1/4 in"\ncount = 8\n'
+    framing = '[[beam.framing]]\nmark = "B-2"\nat = "10 ft"\nend = "far-end"\nside = "left"\n\n'
+    text = text.replace("[beam.studs]", framing + "[beam.studs]")
+    text += ('\n[[beam]]\nmark = "B-2"\nshape = "W12X19"\nspan = "10 ft"\nedge_left = "1 ft"\nedge_right = "1 ft"\n'
+             'slab = "SLAB-1"\n[beam.studs]\nlength = "5 1/4 in"\ncount = 8\n')
     job = parse_job(text)
     b = job.beam[0]
     assert (b.level, b.source_id) == ("Level 2", "2xQ$n5SLP5MBLyL442paFx")

@@ -51,7 +51,7 @@ def engineers_job(tmp_path):
 
 def test_reimport_changes_geometry_lines_only_and_keeps_the_engineers_work(tmp_path):
     before = engineers_job(tmp_path)
-    recs, source = records(tmp_path, moved_and_added(), "revised.ifc")
+    recs, _ = records(tmp_path, moved_and_added(), "revised.ifc")
     result = reimport(before, parse_job(before), recs, "Level 2", None)
     assert [c.split(":")[0] for c in result.changed] == ["G-1", "G-2", "G-3", "G-4", "B-2", "B-3", "B-4", "B-5", "B-6"]
     changed = dict(c.split(": ", 1) for c in result.changed)

@@ -26,7 +26,7 @@ def write(tmp_path, text, name="sched.csv"):
 
 
 def test_csv_by_header_names_with_units_as_written(tmp_path):
-    beams, problems, notes = read_schedule(write(tmp_path, CSV), {})
+    beams, _, notes = read_schedule(write(tmp_path, CSV), {})
     by = {b.mark: b for b in beams}
     assert sorted(by) == ["B-10", "B-12", "B-15"]
     assert by["B-10"].values["span"] == "30 ft"  # a bare number takes the header's unit
