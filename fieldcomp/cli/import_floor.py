@@ -106,7 +106,8 @@ def run(args: argparse.Namespace) -> int:
             raise ValueError(f"{args.source}: no beam could be read" + "".join(f"\n  {p}" for p in info.left_out))
         if out.exists():
             previous = read_regular(out, MAX_BYTES, "job files")
-            result = reimport(previous.decode("utf-8-sig"), load_job(out).job, records, info.level, template)
+            result = reimport(previous.decode("utf-8-sig"), load_job(out).job, records, info.level, template,
+                              args.template_beam, tuple(info.slabs))
             text = result.text
         else:
             text = job_text(info, records, template, args.template_beam)
@@ -125,7 +126,7 @@ def run(args: argparse.Namespace) -> int:
         print(f"not read: {line}")
     if previous is not None:
         _print_changes(out, result)
-        return EXIT_REVIEW if info.left_out or result.gone else EXIT_PASS
+        return EXIT_REVIEW if info.left_out or result.gone or result.slabs else EXIT_PASS
     girders = sum(r.girder for r in records)
     confirm = text.count(CONFIRM)
     print(f"wrote {out}: {len(records)} beam(s) ({girders} girder(s)) from {args.source}"
@@ -146,3 +147,5 @@ def _print_changes(out: Path, result) -> None:
         print(f"  added   {line}")
     for line in result.gone:
         print(f"  kept    {line}")
+    for line in result.slabs:
+        print(f"  check   {line}")

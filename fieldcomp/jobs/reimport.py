@@ -11,7 +11,7 @@ from typing import Any
 from engine.model.shapes import ShapeNotFoundError, get_shape
 from engine.model.units import UnitError, parse_length
 from fieldcomp.jobs.beam_text import beam_spans, delete_key, set_framing, set_key
-from fieldcomp.jobs.floor_job import GEOMETRY, ImportedBeam
+from fieldcomp.jobs.floor_job import GEOMETRY, ImportedBeam, length_text
 from fieldcomp.jobs.floor_text import CONFIRM, beam_values, printable, table_lines
 from fieldcomp.jobs.jobfile import parse_job
 from fieldcomp.jobs.model import Job, coordinate_inches
@@ -25,6 +25,7 @@ class Reimport:
     changed: list[str] = field(default_factory=list)  # "B-3: span 30'-0" -> 32'-0"" ...
     added: list[str] = field(default_factory=list)
     gone: list[str] = field(default_factory=list)
+    slabs: list[str] = field(default_factory=list)  # source slabs whose thickness differs from the job's
     unchanged: int = 0
 
 
@@ -105,8 +106,10 @@ def _engineers(job: Job) -> dict[str, dict[str, Any]]:
 
 
 def reimport(previous: str, job: Job, records: list[ImportedBeam], level: str | None,
-             template: Job | None) -> Reimport:
-    """The job text after re-importing `records` into `previous` (which loads as `job`)."""
+             template: Job | None, template_mark: str | None = None, slabs: tuple[tuple[str, float], ...] = ()) -> Reimport:
+    """The job text after re-importing `records` into `previous` (which loads as `job`). The
+    source's slab thicknesses (`slabs`: id, overall in) are compared, not written: a slab's
+    topping depends on the deck, which is the engineer's."""
     lines = previous.splitlines(keepends=True)
     if lines and not lines[-1].endswith("\n"):
         lines[-1] += "\n"
@@ -142,9 +145,10 @@ def reimport(previous: str, job: Job, records: list[ImportedBeam], level: str | 
     for i, b in enumerate(job.beam):
         if i not in edits and b.source_id and b.source_id not in imported and (level is None or b.level in (None, level)):
             result.gone.append(f"{b.mark} ({b.source_id}): no longer in the source; kept, with all its fields")
+    result.slabs = _slab_changes(job, slabs)
     text = "".join(lines)
     for record in new_records:
-        text += "\n" + "\n".join(_new_block(record, job, template)) + "\n"
+        text += "\n" + "\n".join(_new_block(record, job, template, template_mark)) + "\n"
         result.added.append(f"{record.mark}: {record.values.get('shape')}, span {record.values.get('span')}")
     updated = parse_job(text)
     kept, now = _engineers(job), _engineers(updated)
@@ -155,12 +159,22 @@ def reimport(previous: str, job: Job, records: list[ImportedBeam], level: str | 
     return result
 
 
-def _new_block(record: ImportedBeam, job: Job, template: Job | None) -> list[str]:
+def _slab_changes(job: Job, slabs: tuple[tuple[str, float], ...]) -> list[str]:
+    """Source slabs whose overall thickness no slab of the job has (topping + deck rib height)."""
+    ribs = {d.id: parse_length(d.rib_height) for d in job.deck}
+    overall = {s.id: parse_length(s.topping) + ribs.get(s.deck or "", 0.0) for s in job.slab}
+    shown = ", ".join(f"{k} {length_text(v)}" for k, v in overall.items())
+    return [f"slab {gid}: {length_text(t)} overall in the source; no slab of the job is ({shown}): not changed, "
+            "edit its topping if the slab changed" for gid, t in slabs
+            if all(abs(t - v) >= 1.0 / 32.0 for v in overall.values())]
+
+
+def _new_block(record: ImportedBeam, job: Job, template: Job | None, template_mark: str | None) -> list[str]:
     """A new beam: loads and studs from the template, else from a beam of the job of its kind
     (girder or not), marked to confirm."""
     notes = list(record.notes)
     if template is not None:
-        source = template.beam[0]
+        source = next((b for b in template.beam if b.mark == template_mark), template.beam[0])
         slab = source.slab if source.slab in {s.id for s in job.slab} else job.slab[0].id
     else:
         kind = [b for b in job.beam if bool(b.framing) == record.girder]

@@ -94,8 +94,10 @@ SLAB = 6.25  # in, overall (3 in deck ribs + 3 1/4 in topping)
 
 
 def write_building(path: Path, schema: str = "IFC4", unit: str = "mm", pieces: list[Piece] | None = None,
-                   slab: bool = True) -> Path:
-    """Write the building to `path` in `schema` with the project length unit `unit`."""
+                   slab: bool = True, axis_only: tuple[str, ...] = ()) -> Path:
+    """Write the building to `path` in `schema` with the project length unit `unit`. Beams named
+    in `axis_only` get an 'Axis' polyline and their profile as a material profile set (IFC4)
+    instead of an extruded body."""
     k = UNITS[unit]
     f = api.project.create_file(version=schema)
     if schema == "IFC2X3":  # every IfcRoot has an owner history there
@@ -126,7 +128,7 @@ def write_building(path: Path, schema: str = "IFC4", unit: str = "mm", pieces: l
         storeys[name] = s
     pieces = level2() if pieces is None else pieces
     for piece in pieces:
-        _beam(f, body, storeys[piece.level], piece, k)
+        _beam(f, body, storeys[piece.level], piece, k, piece.mark in axis_only)
     columns = [_column(f, body, origin, f"C-{x // 30 + 1}{'AB'[y // 36]}", (x * FT, y * FT), k, 100 + i)
                for i, (x, y) in enumerate((x, y) for x in (0, 30, 60) for y in (0, 36))]
     api.spatial.assign_container(f, products=columns, relating_structure=storeys["Level 1"])
@@ -147,7 +149,7 @@ def _i_profile(f, name, shape, k):
                                        bf * k, d * k, tw * k, tf * k)
 
 
-def _beam(f, body, storey, piece: Piece, k: float) -> None:
+def _beam(f, body, storey, piece: Piece, k: float, axis_only: bool = False) -> None:
     beam = api.root.create_entity(f, ifc_class="IfcBeam", name=piece.mark)
     beam.GlobalId = piece.gid
     (x1, y1), (x2, y2) = ((a * FT, b * FT) for a, b in (piece.start, piece.end))
@@ -162,9 +164,17 @@ def _beam(f, body, storey, piece: Piece, k: float) -> None:
                f.createIfcRectangleProfileDef("AREA", piece.profile,
                                               f.createIfcAxis2Placement2D(f.createIfcCartesianPoint([0.0, 0.0])),
                                               12.0 * k, 0.5 * k))
-    solid = f.createIfcExtrudedAreaSolid(profile, _axes(f, (0, 0, 0)), f.createIfcDirection([0.0, 0.0, 1.0]), length * k)
-    rep = f.createIfcShapeRepresentation(body, "Body", "SweptSolid", [solid])
-    beam.Representation = f.createIfcProductDefinitionShape(None, None, [rep])
+    if axis_only:
+        ends = [f.createIfcCartesianPoint([0.0, 0.0, 0.0]), f.createIfcCartesianPoint([0.0, 0.0, length * k])]
+        axis = f.createIfcShapeRepresentation(body, "Axis", "Curve3D", [f.createIfcPolyline(ends)])
+        beam.Representation = f.createIfcProductDefinitionShape(None, None, [axis])
+        steel = f.createIfcMaterial("A992")
+        usage = f.createIfcMaterialProfileSetUsage(
+            f.createIfcMaterialProfileSet(piece.profile, None, [f.createIfcMaterialProfile(piece.profile, None, steel, profile)]))
+        f.createIfcRelAssociatesMaterial(ifcopenshell.guid.new(), None, None, None, [beam], usage)
+    else:
+        solid = f.createIfcExtrudedAreaSolid(profile, _axes(f, (0, 0, 0)), f.createIfcDirection([0.0, 0.0, 1.0]), length * k)
+        beam.Representation = _body(f, body, solid)
     api.spatial.assign_container(f, products=[beam], relating_structure=storey)
 
 

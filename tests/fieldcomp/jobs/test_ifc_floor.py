@@ -13,7 +13,7 @@ from tests.fieldcomp.jobs.ifc_building import write_building
 
 
 def read(tmp_path, schema="IFC4", unit="mm", level="Level 2", **kw):
-    path = write_building(tmp_path / f"annex-{schema}-{unit}.ifc", schema, unit, **kw)
+    path = write_building(tmp_path / f"annex-{schema}-{unit}-{len(kw)}.ifc", schema, unit, **kw)
     return read_storey(path, open_model(path), level)
 
 
@@ -32,6 +32,19 @@ def test_every_schema_and_unit_gives_the_same_floor_in_inches(tmp_path, schema, 
     assert beams["B-7"].sides["right"] == ("edge", pytest.approx(12.0))
     assert [(f.mark, round(f.at, 6)) for f in beams["G-2"].framing] == [("B-5", 120.0), ("B-6", 240.0)]
     assert [s.thickness for s in storey.slabs] == [pytest.approx(6.25)]
+
+
+def test_an_axis_curve_with_a_material_profile_set_reads_as_the_body_does(tmp_path):
+    """IFC4: B-6 and G-4 drawn as an 'Axis' polyline with an IfcMaterialProfileSetUsage give the
+    same floor as when drawn with an extruded body."""
+    plain = read(tmp_path)
+    axis = read(tmp_path, pieces=None, axis_only=("B-6", "G-4"))
+    assert axis.problems == plain.problems
+
+    def key(storey):
+        return sorted((m.mark, m.shape, *(round(v, 6) for v in (*m.start, *m.end, m.z))) for m in storey.members)
+
+    assert key(axis) == key(plain) and len(key(axis)) == 11
 
 
 def test_what_cannot_be_read_is_reported_with_its_global_id(tmp_path):

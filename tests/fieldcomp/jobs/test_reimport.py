@@ -105,3 +105,14 @@ def test_set_key_keeps_the_comment_and_refuses_a_value_over_lines():
     assert block[-1] == 'level = "Level 2"\n'
     with pytest.raises(BeamTextError, match="more than one line"):
         set_key(['[[beam]]\n', 'plan = { x1 = "0 in",\n', '  y1 = "0 in" }\n'], "plan", {"x1": "1 in"})
+
+
+def test_a_slab_of_another_thickness_is_reported_not_written(tmp_path):
+    """The job's slab: 3 1/4 in topping on 3 in ribs = 6 1/4 in overall; a source slab of 6 1/2 in is
+    reported (its topping depends on the deck, which is the engineer's)."""
+    before = engineers_job(tmp_path)
+    recs, _ = records(tmp_path, level2(), "same.ifc")
+    result = reimport(before, parse_job(before), recs, "Level 2", None, None, (("S-9", 6.5), ("S-2", 6.25)))
+    assert result.slabs == ["slab S-9: 6 1/2\" overall in the source; no slab of the job is (SLAB-1 6 1/4\"): "
+                            "not changed, edit its topping if the slab changed"]
+    assert result.text == before
