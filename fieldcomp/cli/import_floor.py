@@ -54,7 +54,7 @@ def _same_file(a: Path, b: Path) -> bool:
 def _read(args: argparse.Namespace):
     """(records, Source, problems) from the IFC model or the schedule."""
     from fieldcomp.jobs.floor_job import SIDE_BASIS, SPAN_BASIS
-    from fieldcomp.jobs.floor_text import Source
+    from fieldcomp.jobs.floor_text import Source, printable
 
     source = Path(args.source)
     if _kind(source) == "ifc":
@@ -67,7 +67,7 @@ def _read(args: argparse.Namespace):
         records, problems = from_layout(lay_out(storey.members, storey.posts, storey.slabs), storey.level, storey.notes)
         problems = [str(p) for p in storey.problems] + problems
         project = next((p.Name for p in model.by_type("IfcProject") if p.Name), source.stem)
-        info = Source(str(source), f"{storey.schema} model, length unit {storey.unit}", project, storey.level,
+        info = Source(str(source), f"{storey.schema} model, length unit {storey.unit}", printable(project), storey.level,
                       [SPAN_BASIS, SIDE_BASIS], problems, [(s.source_id, s.thickness) for s in storey.slabs])
         return records, info
     from fieldcomp.jobs.schedule_floor import read_schedule

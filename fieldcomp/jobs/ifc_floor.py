@@ -98,7 +98,7 @@ def read_storey(path: str | os.PathLike[str], model: Any, level: str | None) -> 
         raise IfcReadError(path, f"no storey named {level!r}; storeys with beams: {', '.join(names)}")
     scale = units.calculate_unit_scale(model) / _METRES_PER_INCH  # project length unit -> in
     unit = units.get_project_unit(model, "LENGTHUNIT")
-    found = StoreyFraming(model.schema, _unit_name(unit), level)
+    found = StoreyFraming(model.schema, _unit_name(unit), "".join(ch for ch in level if ch.isprintable())[:60])
     contents = sorted(_contents(storey), key=lambda e: e.GlobalId)
     for element in contents:
         if element.is_a("IfcBeam"):
@@ -260,6 +260,11 @@ def _read_beam(element: Any, scale: float, found: StoreyFraming) -> None:
     mark = (element.Name or element.Tag or "").strip()
     if not mark:
         return _problem(found, element, "no mark: the beam has neither a Name nor a Tag")
+    if len(mark) > 40 or not mark.isprintable():
+        return _problem(found, element, "its Name is not a mark of up to 40 printable characters")
+    if any(m.mark == mark for m in found.members):
+        first = next(m.source_id for m in found.members if m.mark == mark)
+        return _problem(found, element, f"mark {mark!r} is also the mark of {first} on this storey")
     if how:
         _note(found, element, how)
     z = float(max(a[2], b[2]))

@@ -9,7 +9,7 @@ import pytest
 from fieldcomp.jobs.floor_geometry import lay_out
 from fieldcomp.jobs.floor_job import from_layout
 from fieldcomp.jobs.ifc_floor import IfcReadError, open_model, read_storey
-from tests.fieldcomp.jobs.ifc_building import write_building
+from tests.fieldcomp.jobs.ifc_building import Piece, level2, write_building
 
 
 def read(tmp_path, schema="IFC4", unit="mm", level="Level 2", **kw):
@@ -98,3 +98,11 @@ def test_not_an_ifc_file(tmp_path):
     bad.write_text("hello")
     with pytest.raises(IfcReadError, match="not an IFC file"):
         open_model(bad)
+
+
+def test_a_repeated_mark_is_reported_not_renamed(tmp_path):
+    extra = Piece("B-2", "W18X35", "W18X35", (5, 0.7 / 12), (5, 36 - 0.7 / 12), "Level 2", "1" * 22)
+    storey = read(tmp_path, pieces=[*level2(), extra])
+    [problem] = [p for p in storey.problems if p.global_id == "1" * 22]
+    assert problem.reason == "mark 'B-2' is also the mark of 000000000000000000000C on this storey"
+    assert [m.source_id for m in storey.members if m.mark == "B-2"] == ["000000000000000000000C"]
