@@ -126,7 +126,8 @@ def run(args: argparse.Namespace) -> int:
         print(f"not read: {line}")
     if previous is not None:
         _print_changes(out, result)
-        return EXIT_REVIEW if info.left_out or result.gone or result.slabs else EXIT_PASS
+        copied = result.added and template is None  # new beams took loads from a beam of the job: to confirm
+        return EXIT_REVIEW if info.left_out or result.gone or result.slabs or copied else EXIT_PASS
     girders = sum(r.girder for r in records)
     confirm = text.count(CONFIRM)
     print(f"wrote {out}: {len(records)} beam(s) ({girders} girder(s)) from {args.source}"

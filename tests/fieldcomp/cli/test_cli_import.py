@@ -105,3 +105,16 @@ def test_import_help(capsys):
     with pytest.raises(SystemExit):
         main(["import", "--help"])
     assert "--template" in capsys.readouterr().out
+
+
+def test_schedule_reimport_updates_the_span_and_keeps_the_studs(tmp_path, capsys):
+    schedule = tmp_path / "framing.csv"
+    schedule.write_text("Mark,Size,Span (ft),Spacing,Studs\nB-1,W18X35,30,10 ft,24\n")
+    job = tmp_path / "floor.toml"
+    run(["import", str(schedule), "-o", str(job)], capsys)
+    job.write_text(job.read_text().replace("count = 24  # from the schedule", "count = 28  # S-201 rev 2"))
+    schedule.write_text("Mark,Size,Span (ft),Spacing,Studs\nB-1,W18X35,31,10 ft,24\nB-2,W16X26,20,10 ft,\n")
+    code, out, _ = run(["import", str(schedule), "-o", str(job)], capsys)
+    assert code == 3  # B-2 took its loads and studs from B-1: to confirm
+    assert "  changed B-1: span 30 ft -> 31 ft" in out and "  added   B-2: W16X26, span 20 ft" in out
+    assert "count = 28  # S-201 rev 2" in job.read_text()
