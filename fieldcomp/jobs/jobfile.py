@@ -292,5 +292,11 @@ def _check_references(job: Job, path: str | os.PathLike[str]) -> None:
         if b.slab not in slabs:
             problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'slab'",
                              f"no slab with id {_short(b.slab)}" + _hint(b.slab, slabs)))
+    for i, b in enumerate(job.beam):
+        for k, f in enumerate(b.framing):
+            if f.mark == b.mark or f.mark not in marks:
+                problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'framing[{k}].mark'",
+                                 "names the beam itself" if f.mark == b.mark
+                                 else f"no beam with mark {_short(f.mark)}" + _hint(f.mark, marks)))
     if problems:
         raise JobFileError(path, problems)
