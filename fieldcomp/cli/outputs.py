@@ -41,6 +41,34 @@ def issue_of(job_name: str, prefix: str, revision: str | None, date: str | None)
     return Issue(job_name, prefix, revision or "0", date or datetime.date.today().isoformat(), CAUTION)
 
 
-def add_issue_options(parser) -> None:
+def add_issue_options(parser, with_date: bool = False) -> None:
     """--revision and (unless the verb has it) --date for the PDF title block."""
     parser.add_argument("--revision", metavar="TEXT", help="revision printed in the PDF title block (default 0)")
+    if with_date:
+        parser.add_argument("--date", metavar="TEXT", help="issue date printed in the PDF title block (default: today)")
+
+
+def calc_package(path: str, job_path: str, job_name: str, beams, revision: str | None, date: str | None) -> None:
+    """The calculation package (PDF) of `beams` for the engineer of record."""
+    from engine.pipeline import as_poured, evaluate_beam
+    from fieldcomp.views.pdf_calc import calc_pdf
+
+    results = []
+    for b in beams:
+        poured, construction = as_poured(b)
+        results.append((evaluate_beam(poured), construction))
+    write_output(path, calc_pdf(issue_of(job_name, "CP", revision, date), results), [job_path])
+
+
+def camber_order(pdf_path: str | None, csv_path: str | None, job_path: str, job_name: str, beams,
+                 revision: str | None, date: str | None) -> None:
+    """The fabricator's camber order list as PDF and / or CSV."""
+    from fieldcomp import CAUTION
+    from engine.construction.evaluate import evaluate_construction
+    from fieldcomp.views.schedules import camber_csv, camber_pdf
+
+    pieces = [(b, evaluate_construction(b).camber) for b in beams]
+    if pdf_path:
+        write_output(pdf_path, camber_pdf(issue_of(job_name, "CL", revision, date), pieces), [job_path])
+    if csv_path:
+        write_output(csv_path, camber_csv(pieces, CAUTION), [job_path])

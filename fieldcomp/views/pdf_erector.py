@@ -68,7 +68,7 @@ def _instructions(pdf: SheetPdf, sheet: SheetData, lengths, y: float, width: flo
     y += 0.16
     lines: list[tuple[str, float]] = []
     if sheet.instructions:
-        lines = [(s, 8 if s.startswith(("METHOD:", "RE-TEST:")) else 13) for s in sheet.instructions]
+        lines = [(s, 8 if s.startswith(("METHOD:", "RE-TEST:")) else 11) for s in sheet.instructions]
     if lengths is not None:
         lines.append((stud_order_text(sheet, lengths), 13))
         lines += [(s.upper(), 12) for s in side_runs(mark_rows(sheet), slot_word(sheet.beam))]
@@ -78,8 +78,8 @@ def _instructions(pdf: SheetPdf, sheet: SheetData, lengths, y: float, width: flo
 
 
 def _table(pdf: SheetPdf, sheet: SheetData, y: float, width: float, bottom: float) -> float:
-    rows = mark_rows(sheet)
     extra = sheet.lost is not None or sheet.added is not None
+    rows = [r for r in mark_rows(sheet) if not extra or r.lost or r.added]  # a repair lists only what changes
     word = slot_word(sheet.beam).upper()
     heads = [word, "STATION", "STUDS"] + (["LOST", "ADD"] if extra else []) + ["SIDE OF RIB" if word == "RIB" else "WHERE"]
     widths = [0.42, 0.8, 0.5] + ([0.42, 0.42] if extra else []) + [1.2]
@@ -232,10 +232,10 @@ def crew_page(pdf: SheetPdf, sheet: SheetData, camber=None, lengths=None) -> Non
     y = _instructions(pdf, sheet, lengths, y + 0.02, RIGHT - LEFT)
     table_w = RIGHT - LEFT - 3.9
     y_el = BOTTOM - elevation_height(sheet)
-    bottom = y_el - (0.5 if lengths is not None else 0.25) - (0.44 if sheet.approval else 0.0)
+    bottom = y_el - (0.5 if lengths is not None else 0.55) - (0.44 if sheet.approval else 0.0)
     end = _table(pdf, sheet, y, table_w, bottom)
     rib_detail(pdf, sheet, lengths, RIGHT - 3.8, y)
-    yy = max(end, y + 1.6) + 0.04
+    yy = max(end, y + (1.6 if lengths is not None else 1.2)) + 0.04
     if lengths is not None:
         yy = pdf.paragraph(LEFT, yy, RIGHT - LEFT, deck_weld_text(sheet, anchor_ribs(sheet)), 9, "B")
     for note in sheet.notes:
@@ -248,7 +248,7 @@ def crew_page(pdf: SheetPdf, sheet: SheetData, camber=None, lengths=None) -> Non
         pdf.words(LEFT + 0.06, yy + 0.33, "name ____________________  date __________  disposition: accepted / repair ordered / "
                   "repaired / re-inspected   signature ____________________", 8)
         yy += 0.44
-    elevation(pdf, sheet, max(yy, y_el))
+    elevation(pdf, sheet, y_el)
 
 
 def elevation_height(sheet: SheetData) -> float:

@@ -122,6 +122,15 @@ class SheetPdf(FPDF):
         self.multi_cell(width, size / 72 * 1.25, latin(text))
         return self.get_y()
 
+    def fit(self, text: str, width: float) -> str:
+        """`text` in Latin-1, shortened with '...' to fit `width` in the current font."""
+        t = latin(text)
+        if self.get_string_width(t) <= width:
+            return t
+        while t and self.get_string_width(t + "...") > width:
+            t = t[:-1]
+        return t + "..."
+
     def output_bytes(self) -> bytes:
         return bytes(self.output())
 

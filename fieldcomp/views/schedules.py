@@ -19,16 +19,16 @@ STUD_COLUMNS = ("mark", "studs", "diameter", "diameter_in", "length_before_weldi
 TOTAL_COLUMNS = ("diameter", "length_before_welding", "quantity")
 
 
-def camber_rows(sheets) -> list[list]:
-    """One row per beam: mark, shape, span (work points), camber to order and its tolerance
-    (AISC 303-16 6.4.4: -0 / +tolerance, measured in the shop, unstressed), and why none."""
+def camber_rows(pieces) -> list[list]:
+    """One row per (beam, engine.construction.camber.CamberDecision): mark, shape, span (work
+    points), camber to order and its tolerance (AISC 303-16 6.4.4: -0 / +tolerance, measured in
+    the shop, unstressed), and why none."""
     rows = []
-    for e in sheets:
-        b, c = e.sheet.beam, e.camber
+    for b, c in pieces:
         ordered = c.camber > 0.0
         rows.append([b.mark, b.shape.name, format_ft_in(b.span), round(b.span, 4),
                      format_inches(c.camber) if ordered else "none", round(c.camber, 4),
-                     f"-0 / +{format_inches(c.tolerance)}" if ordered else "", round(c.tolerance, 4),
+                     f"0 to +{format_inches(c.tolerance)}" if ordered else "", round(c.tolerance, 4),
                      "" if ordered else c.reason.removeprefix("not cambered: ")])
     return rows
 
@@ -64,8 +64,8 @@ def _csv(header, rows, tail, caution: str) -> str:
     return out.getvalue()
 
 
-def camber_csv(sheets, caution: str) -> str:
-    return _csv(CAMBER_COLUMNS, camber_rows(sheets), [], caution)
+def camber_csv(pieces, caution: str) -> str:
+    return _csv(CAMBER_COLUMNS, camber_rows(pieces), [], caution)
 
 
 def stud_csv(sheets, caution: str) -> str:
@@ -102,10 +102,10 @@ def _table(pdf: SheetPdf, title: str, heads: list[tuple[str, float]], rows: list
                 y = pdf.paragraph(LEFT, y, RIGHT - LEFT, note, 8) + 0.02
 
 
-def camber_pdf(issue, sheets) -> bytes:
-    """The fabricator's camber order list."""
+def camber_pdf(issue, pieces) -> bytes:
+    """The fabricator's camber order list of (beam, camber decision) pairs."""
     pdf = SheetPdf(issue, "Camber order list")
-    rows = [[r[0], r[1], r[2], r[4], r[6], r[8]] for r in camber_rows(sheets)]
+    rows = [[r[0], r[1], r[2], r[4], r[6], r[8]] for r in camber_rows(pieces)]
     heads = [("MARK", 1.1), ("SHAPE", 1.0), ("SPAN (WORK POINTS)", 1.5), ("CAMBER TO ORDER", 1.4), ("TOLERANCE", 1.2),
              ("NOTE", 3.8)]
     _table(pdf, "Camber order list", heads, rows, [
