@@ -55,7 +55,7 @@ def pages(path: Path) -> list[str]:
     doc = pypdfium2.PdfDocument(str(path))
     for i in range(len(doc)):
         image = doc[i].render(scale=0.5).to_pil().convert("L")
-        dark = image.histogram()[:128]; dark = sum(dark)
+        dark = sum(image.histogram()[:128])
         assert dark > 0.002 * image.width * image.height, (path.name, i)
     return [p.extract_text() for p in pypdf.PdfReader(str(path)).pages]
 
