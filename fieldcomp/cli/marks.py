@@ -74,12 +74,12 @@ def _write(args: argparse.Namespace, erectors: list, job_name: str, date: str) -
     from fieldcomp.cli.outputs import issue_of, write_output, write_per_beam
     from fieldcomp.views.dxf_elevation import elevation_dxf
     from fieldcomp.views.marks_sheet import marks_csv
-    from fieldcomp.views.marks_svg import marks_svg
+    from fieldcomp.views.erector_svg import erector_svg
     from fieldcomp.views.pdf_erector import erector_pdf
     from fieldcomp.views.schedules import stud_csv, stud_pdf
 
     inputs = [args.job]
-    per_beam = ((args.svg, "--svg", lambda e: marks_svg(e.sheet), ".svg"), (args.csv, "--csv", lambda e: marks_csv(e.sheet), ".csv"),
+    per_beam = ((args.svg, "--svg", erector_svg, ".svg"), (args.csv, "--csv", lambda e: marks_csv(e.sheet), ".csv"),
                 (args.dxf, "--dxf", lambda e: elevation_dxf(e.sheet, e.lengths), ".dxf"))
     for option, name, render, ext in per_beam:
         if option is None:

@@ -38,7 +38,7 @@ def made(tmp_path_factory) -> Path:
     shutil.copyfile(DEMO, job)
     date = ["--date", "2026-12-04", "--revision", "B"]
     runs = [["marks", str(job), "--all", "--pdf", str(out / "es.pdf"), "--dxf", str(out / "dxf"),
-             "--schedule", str(out / "ss.pdf")] + date,
+             "--schedule", str(out / "ss.pdf"), "--svg", str(out / "svg")] + date,
             ["marks", str(job), "--all", "--schedule", str(out / "ss.csv")],
             ["findings", str(job), "--beam", "3B-103", "--pdf", str(out / "rs.pdf")] + date,
             ["camber", str(job), "--pdf", str(out / "cl.pdf"), "--order-csv", str(out / "cl.csv"), "--csv",
@@ -178,3 +178,22 @@ def test_plan_svg_and_pdf(made):
     (text,) = pages(made / "plan.pdf")
     frame(text, "FP", 1, 1)
     assert all(m in text for m in MARKS)
+
+
+def test_erector_svg_sheets_render_and_put_the_crew_first(made):
+    job, beams = load_inputs(str(DEMO))
+    for beam in beams:
+        svg = (made / "svg" / f"{beam.mark}.svg").read_text()
+        png = bytes(resvg_py.svg_to_bytes(svg_string=svg, dpi=96.0, background="#ffffff"))
+        image = Image.open(io.BytesIO(png)).convert("L")
+        assert sum(image.histogram()[:128]) > 0.002 * image.width * image.height, beam.mark
+        root = ET.fromstring(svg.encode())
+        words = [t.text or "" for t in root.iter("{http://www.w3.org/2000/svg}text")]
+        flat = " ".join(words)
+        assert words[0] == "DO THIS" and words[1].startswith(f"BEAM {beam.mark}: ")
+        e = erector_sheet(job.project.name, beam, "2026-12-04", CAUTION)
+        ratio = beam.span / 8.8  # the elevation's 880 drawing units are 8.8 in of paper
+        assert f"(1:{ratio:.0f})" in flat and "SIDE OF THE RIB" in flat and "after welding" in flat.lower()
+        assert ("CAMBER" in flat) and ("NOT CAMBERED" in flat) == (e.camber.camber == 0)
+        assert "STRENGTH ALONG THE SPAN" not in flat and "AISC 360-22 I3.2a" not in flat  # moved to the package
+        assert " ".join(CAUTION.split()[:6]) in flat
