@@ -37,14 +37,16 @@ def stud_order_text(sheet: SheetData, lengths) -> str:
 
 
 def side_runs(rows: list[MarkRow], word: str) -> list[str]:
-    """Consecutive rows on one side as 'ribs 2-15: toward grid 2' (one line per run)."""
-    out: list[tuple[int, int, str]] = []
+    """Rows in a run on one side as 'ribs 2-15: toward grid 2', or 'ribs 1-39 as listed: in
+    flute' when some ribs of the run hold no stud (one line per run)."""
+    out: list[tuple[int, int, int, str]] = []
     for r in rows:
-        if out and out[-1][2] == r.side:
-            out[-1] = (out[-1][0], r.slot, r.side)
+        if out and out[-1][3] == r.side:
+            out[-1] = (out[-1][0], r.slot, out[-1][2] + 1, r.side)
         else:
-            out.append((r.slot, r.slot, r.side))
-    return [f"{word}s {a}-{b}: {side}" if a != b else f"{word} {a}: {side}" for a, b, side in out]
+            out.append((r.slot, r.slot, 1, r.side))
+    return [f"{word} {a}: {side}" if a == b else f"{word}s {a}-{b}{'' if n == b - a + 1 else ' as listed'}: {side}"
+            for a, b, n, side in out]
 
 
 def _header(pdf: SheetPdf, sheet: SheetData, camber) -> float:
@@ -124,11 +126,12 @@ def rib_detail(pdf: SheetPdf, sheet: SheetData, lengths, x: float, y: float) -> 
     each named by the end it is toward, with its length before and after welding."""
     b = sheet.beam
     deck = b.slab.deck
-    pdf.words(x, y + 0.1, "SIDE OF THE RIB - section along the beam, scale 2\" = 1'-0\" (1:6)", 7, grey=True)
     if deck is None or b.deck_case != DeckCase.PERPENDICULAR:
-        where = "studs in the deck flute along the beam" if deck is not None else "studs on the flange, solid slab"
-        pdf.words(x, y + 0.35, where, 9, "B")
+        pdf.words(x, y + 0.1, "WHERE THE STUDS STAND", 7, grey=True)
+        where = "in the deck flute along the beam" if deck is not None else "on the top flange (solid slab)"
+        pdf.words(x, y + 0.35, f"studs {where}, in a row", 9, "B")
         return
+    pdf.words(x, y + 0.1, "SIDE OF THE RIB - section along the beam, scale 2\" = 1'-0\" (1:6)", 7, grey=True)
     sides = sorted({str(s) for s in sheet.layout.side[sheet.layout.count > 0]} or {"center"})
     s = DETAIL_SCALE
     hr, wt, wb = deck.rib_height * s, deck.rib_top_width * s, deck.rib_bottom_width * s

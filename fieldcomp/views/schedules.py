@@ -13,20 +13,21 @@ from engine.model.units import format_ft_in, format_inches
 from fieldcomp.views.csv_safety import csv_cell
 from fieldcomp.views.pdf_page import BOTTOM, LEFT, RIGHT, TOP, SheetPdf
 
-CAMBER_COLUMNS = ("mark", "shape", "span", "span_in", "camber", "camber_in", "tolerance", "tolerance_plus_in", "note")
+CAMBER_COLUMNS = ("mark", "shape", "length", "length_in", "span", "span_in", "camber", "camber_in", "tolerance", "tolerance_plus_in", "note")
 STUD_COLUMNS = ("mark", "studs", "diameter", "diameter_in", "length_before_welding", "length_before_in",
                 "length_after_welding", "length_after_in", "deck_welds", "deck_weld_ribs")
 TOTAL_COLUMNS = ("diameter", "length_before_welding", "quantity")
 
 
 def camber_rows(pieces) -> list[list]:
-    """One row per (beam, engine.construction.camber.CamberDecision): mark, shape, span (work
-    points), camber to order and its tolerance (AISC 303-16 6.4.4: -0 / +tolerance, measured in
+    """One row per (beam, engine.construction.camber.CamberDecision): mark, shape, length of the
+    piece, span (work points), camber to order and its tolerance (AISC 303-16 6.4.4: -0 / +tolerance, measured in
     the shop, unstressed), and why none."""
     rows = []
     for b, c in pieces:
         ordered = c.camber > 0.0
-        rows.append([b.mark, b.shape.name, format_ft_in(b.span), round(b.span, 4),
+        rows.append([b.mark, b.shape.name, format_ft_in(b.steel_length), round(b.steel_length, 4),
+                     format_ft_in(b.span), round(b.span, 4),
                      format_inches(c.camber) if ordered else "none", round(c.camber, 4),
                      f"0 to +{format_inches(c.tolerance)}" if ordered else "", round(c.tolerance, 4),
                      "" if ordered else c.reason.removeprefix("not cambered: ")])
@@ -94,7 +95,8 @@ def _table(pdf: SheetPdf, title: str, heads: list[tuple[str, float]], rows: list
             y += 0.22
             x = x0
             for (_, w), cell in zip(heads, row):
-                pdf.words(x, y, cell, 10, "B" if x == x0 else "")
+                pdf.set_font("Helvetica", "B" if x == x0 else "", 10)
+                pdf.text(x, y, pdf.fit(cell, w - 0.08))
                 x += w
         y += 0.2
         if k == len(chunks) - 1:
@@ -105,9 +107,9 @@ def _table(pdf: SheetPdf, title: str, heads: list[tuple[str, float]], rows: list
 def camber_pdf(issue, pieces) -> bytes:
     """The fabricator's camber order list of (beam, camber decision) pairs."""
     pdf = SheetPdf(issue, "Camber order list")
-    rows = [[r[0], r[1], r[2], r[4], r[6], r[8]] for r in camber_rows(pieces)]
-    heads = [("MARK", 1.1), ("SHAPE", 1.0), ("SPAN (WORK POINTS)", 1.5), ("CAMBER TO ORDER", 1.4), ("TOLERANCE", 1.2),
-             ("NOTE", 3.8)]
+    rows = [[r[0], r[1], r[2], r[4], r[6], r[8], r[10]] for r in camber_rows(pieces)]
+    heads = [("MARK", 0.95), ("SHAPE", 0.9), ("LENGTH", 0.95), ("SPAN (WORK POINTS)", 1.3), ("CAMBER TO ORDER", 1.2),
+             ("TOLERANCE", 0.95), ("NOTE", 3.75)]
     _table(pdf, "Camber order list", heads, rows, [
         "Camber at midspan, crown up, measured in the shop with the member unstressed; tolerance -0 / +1/2 in up to 50 ft "
         "of length, plus 1/8 in per 10 ft or fraction beyond (AISC 303-16 6.4.4).",

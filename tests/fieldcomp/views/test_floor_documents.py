@@ -76,7 +76,8 @@ def test_erector_booklet_one_page_per_beam_crew_first(made):
         frame(text, "ES", k, len(MARKS))
         flat = " ".join(text.split())
         e = erector_sheet(job.project.name, beam, "2026-12-04", CAUTION)
-        assert flat.index("DO THIS") < flat.index("SIDE OF THE RIB") < flat.index("ELEVATION - scale")
+        detail = "SIDE OF THE RIB" if beam.deck_case == "perpendicular" else "WHERE THE STUDS STAND"
+        assert flat.index("DO THIS") < flat.index(detail) < flat.index("ELEVATION - scale")
         assert beam.mark in flat and "after welding" in flat.lower()
         for ribs in e.deck_weld_ribs:
             assert f"{ribs} @ " in flat
@@ -117,13 +118,14 @@ def test_camber_order_list_pdf_and_csv(made):
     (text,) = pages(made / "cl.pdf")
     frame(text, "CL", 1, 1)
     rows = list(csv.reader(io.StringIO((made / "cl.csv").read_text())))
-    assert rows[0][:5] == ["mark", "shape", "span", "span_in", "camber"]
+    assert rows[0][:7] == ["mark", "shape", "length", "length_in", "span", "span_in", "camber"]
     assert rows[-1][0] == "caution"
     by_mark = {r[0]: r for r in rows[1:-1]}
     assert set(by_mark) == set(MARKS)
     # AISC 303-16 6.4.4: members up to 50 ft: -0 / +1/2 in (3B-102 41'-6", 3B-106 44'-9")
-    assert by_mark["3B-102"][4:7] == ['1"', "1.0", '0 to +1/2"'] and by_mark["3B-106"][6] == '0 to +1/2"'
-    assert by_mark["3B-103"][4] == "none" and by_mark["3B-103"][8] == "spandrel"
+    assert by_mark["3B-102"][6:9] == ['1"', "1.0", '0 to +1/2"'] and by_mark["3B-106"][8] == '0 to +1/2"'
+    assert by_mark["3B-103"][6] == "none" and by_mark["3B-103"][10] == "spandrel"
+    assert by_mark["3B-102"][2] == by_mark["3B-102"][4] == "41'-6\""  # no end setback in the demo: length = span
     assert next(csv.reader(io.StringIO((made / "cs.csv").read_text())))[0] == "mark"  # header on the first row
 
 
