@@ -39,7 +39,9 @@ def input_lines(r, c) -> list[tuple[str, str]]:
             ("studs", f"{r.groups.total} placed, {format_inches(b.studs.diameter)} dia x {format_inches(b.studs.length)} "
                       f"installed, Fu {b.studs.fu:g} ksi, {b.studs.position} position"),
             ("camber", f"{format_inches(c.camber.camber)} ordered ({c.camber.reason})" if c.camber.camber > 0
-             else c.camber.reason)]
+             else c.camber.reason),
+            ("findings", f"{len(b.findings)} stud finding(s) recorded: this package is the beam as designed; the beam "
+                         "as built is in the findings report (fieldcomp findings)" if b.findings else "none recorded")]
 
 
 def result_lines(r, c) -> list[tuple[str, str]]:
@@ -57,9 +59,13 @@ def result_lines(r, c) -> list[tuple[str, str]]:
                         f"{verdict_of(c.checks)}")]
 
 
-def _plot(pdf: SheetPdf, x0: float, y0: float, w: float, h: float, title: str, xs, curves, unit: str, down: bool) -> None:
-    """Curves over the span in a box; `down` draws positive values downward (deflection)."""
+def _plot(pdf: SheetPdf, x0: float, y0: float, w: float, h: float, title: str, xs, curves, unit: str, down: bool,
+          ends: tuple[str, str]) -> None:
+    """Curves over the span in a box, the ends named; `down` draws positive values downward."""
     pdf.words(x0, y0 - 0.06, title, 7, grey=True)
+    pdf.words(x0, y0 + h + 0.17, ends[0], 7)
+    pdf.set_font("Helvetica", "", 7)
+    pdf.text(x0 + w - pdf.get_string_width(pdf.fit(ends[1], 3.0)), y0 + h + 0.17, pdf.fit(ends[1], 3.0))
     pdf.set_line_width(0.008)
     pdf.set_draw_color(*GREY)
     pdf.rect(x0, y0, w, h)
@@ -74,8 +80,11 @@ def _plot(pdf: SheetPdf, x0: float, y0: float, w: float, h: float, title: str, x
             pdf.set_dash_pattern(dash=0.06, gap=0.04)
         pdf.polyline(pts)
         pdf.set_dash_pattern()
-        lx = x0 + 0.1 + 2.4 * j
+        lx = x0 + 2.2 + 2.4 * j
+        if dash:
+            pdf.set_dash_pattern(dash=0.06, gap=0.04)
         pdf.line(lx, y0 + h + 0.14, lx + 0.25, y0 + h + 0.14)
+        pdf.set_dash_pattern()
         peak = float(np.max(values))
         pdf.words(lx + 0.3, y0 + h + 0.17, f"{name} (max {peak:,.2f} {unit})", 7)
     pdf.set_draw_color(*INK)
@@ -134,13 +143,14 @@ def calc_pages(pdf: SheetPdf, r, c) -> None:
     ph = (BOTTOM - y - 1.25) / 2
     w = x1 - x0
     design = "phi Mn" if r.beam.method == "LRFD" else "Mn / Omega"
+    ends = (f"{r.beam.ribs.reference_end} (reference end)", r.beam.ribs.far_end)
     _plot(pdf, x0, y + 0.25, w, ph, f"STRENGTH ALONG THE SPAN (kip-ft): demand and available strength {design} with the "
           "slab force available at each station (AISC 360-22 I3.2a, I8.2c)", r.x,
-          [("demand", r.demand / 12, RED, False), (f"{design}", r.capacity / 12, INK, False)], "kip-ft", False)
+          [("demand", r.demand / 12, RED, False), (f"{design}", r.capacity / 12, INK, False)], "kip-ft", False, ends)
     _plot(pdf, x0, y + ph + 0.85, w, ph, "DEFLECTION WHILE THE CONCRETE IS WET (in, downward), on the bare steel; the "
           "camber answers the dead-load profile", c.x,
           [("pre-composite dead load", c.wet_deflection, BLUE, False), ("with construction live", c.total_deflection, RED, True)],
-          "in", True)
+          "in", True, ends)
     _checks(pdf, r, c)
 
 
