@@ -138,7 +138,7 @@ def rib_detail(pdf: SheetPdf, sheet: SheetData, lengths, x: float, y: float) -> 
     stud_h = (lengths.after if lengths is not None else b.studs.length) * s
     top = y + 0.35 + stud_h - hr + 0.1
     for k, side in enumerate(sides):
-        cx = x + 0.95 + 1.95 * k
+        cx = x + 0.9 + 1.85 * k
         base = top + hr
         pdf.set_line_width(0.012)
         pdf.set_draw_color(*GREY)
