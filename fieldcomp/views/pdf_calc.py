@@ -108,30 +108,39 @@ def check_rows(r, c) -> list[tuple[str, object]]:
 
 
 def _checks(pdf: SheetPdf, r, c) -> None:
+    """Every check, one row each (the check's name and clause wrapped, never cut), on as many
+    sheets as they need."""
     heads = [("PHASE", 0.72), ("CHECK", 2.75), ("DEMAND", 0.8), ("CAPACITY", 0.8), ("RATIO", 0.42), ("LEVEL", 0.5),
              ("CLAUSE", 3.0), ("AUTHORITY", 0.9)]
-    rows = check_rows(r, c)
-    per = int((BOTTOM - TOP - 0.7) / 0.17)
-    for start in range(0, len(rows), per):
-        x0, y0, _, _ = pdf.sheet(f"beam {r.beam.mark}, checks")
-        pdf.words(x0, y0 + 0.25, f"{r.beam.mark} - EVERY CHECK, WITH ITS CLAUSE AND AUTHORITY", 12, "B")
-        y = y0 + 0.55
-        x = x0
-        for head, w in heads:
-            pdf.words(x, y, head, 6, grey=True)
-            x += w
-        for phase, k in rows[start:start + per]:
-            y += 0.17
-            cells = [phase, k.name, f"{_number(k.demand)} {k.unit}", f"{_number(k.capacity)} {k.unit}", ratio_text(k.ratio),
-                     str(k.level).upper(), k.clause, str(k.authority)]
+    pdf.set_font("Helvetica", "", 6.5)
+    rows = []
+    for phase, k in check_rows(r, c):
+        cells = [[phase], pdf.wrap(k.name, heads[1][1] - 0.06), [f"{_number(k.demand)} {k.unit}"],
+                 [f"{_number(k.capacity)} {k.unit}"], [ratio_text(k.ratio)], [str(k.level).upper()],
+                 pdf.wrap(k.clause, heads[6][1] - 0.06), [str(k.authority)]]
+        rows.append((k, cells))
+    y = BOTTOM  # start a sheet at once
+    for k, cells in rows:
+        height = 0.11 * max(len(cell) for cell in cells) + 0.05
+        if y + height > BOTTOM - 0.1:
+            x0, y0, _, _ = pdf.sheet(f"beam {r.beam.mark}, checks")
+            pdf.words(x0, y0 + 0.25, f"{r.beam.mark} - EVERY CHECK, WITH ITS CLAUSE AND AUTHORITY", 12, "B")
+            y = y0 + 0.55
             x = x0
-            for j, ((_, w), cell) in enumerate(zip(heads, cells)):
-                bold = j == 5 and k.level != "pass"
-                pdf.set_text_color(*(RED if bold else INK))
-                pdf.set_font("Helvetica", "B" if bold else "", 6.0 if j == 6 else 6.5)
-                pdf.text(x, y, pdf.fit(cell, w - 0.05))
+            for head, w in heads:
+                pdf.words(x, y, head, 6, grey=True)
                 x += w
-            pdf.set_text_color(*INK)
+            y += 0.06
+        x = x0
+        for j, ((_, w), cell) in enumerate(zip(heads, cells)):
+            bold = j == 5 and k.level != "pass"
+            pdf.set_text_color(*(RED if bold else INK))
+            pdf.set_font("Helvetica", "B" if bold else "", 6.5)
+            for n, line in enumerate(cell):
+                pdf.text(x, y + 0.11 * (n + 1), pdf.fit(line, w - 0.04))
+            x += w
+        pdf.set_text_color(*INK)
+        y += height
 
 
 def calc_pages(pdf: SheetPdf, r, c) -> None:

@@ -131,6 +131,20 @@ class SheetPdf(FPDF):
             t = t[:-1]
         return t + "..."
 
+    def wrap(self, text: str, width: float) -> list[str]:
+        """`text` in Latin-1 broken into lines of at most `width` in the current font (words kept
+        whole unless one alone is wider)."""
+        lines: list[str] = []
+        line = ""
+        for word in latin(text).split():
+            trial = f"{line} {word}".strip()
+            if line and self.get_string_width(trial) > width:
+                lines.append(line)
+                line = word
+            else:
+                line = trial
+        return [*lines, line] if line or not lines else lines
+
     def output_bytes(self) -> bytes:
         return bytes(self.output())
 
