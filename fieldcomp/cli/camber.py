@@ -7,7 +7,7 @@ import argparse
 from functools import partial
 
 from fieldcomp import CAUTION, __version__
-from fieldcomp.cli.common import EXIT_INPUT, exit_code, fail_input, fail_output, load_inputs, tally
+from fieldcomp.cli.common import exit_code, fail_input, fail_output, load_inputs, tally
 from fieldcomp.cli.outputs import add_issue_options
 
 

@@ -28,7 +28,8 @@ def register(sub) -> None:
     which.add_argument("--all", action="store_true", help="every beam (then --svg / --csv name folders)")
     m.add_argument("--svg", metavar="PATH", help="write the sheet (SVG) here (a folder with --all)")
     m.add_argument("--csv", metavar="PATH", help="write the marks (CSV) here (a folder with --all)")
-    m.add_argument("--pdf", metavar="PATH", help="write the erector stud sheets (PDF) here: a page per beam, a booklet with --all")
+    m.add_argument("--pdf", metavar="PATH",
+                   help="write the erector stud sheets (PDF) here: a page per beam, a booklet with --all")
     m.add_argument("--dxf", metavar="PATH", help="write the beam elevation (DXF, inches) here (a folder with --all)")
     m.add_argument("--schedule", metavar="PATH", help="write the stud schedule of these beams here (.csv or .pdf)")
     m.add_argument("--date", metavar="TEXT", help="date printed on the sheet (default: today, YYYY-MM-DD)")

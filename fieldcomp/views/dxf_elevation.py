@@ -52,9 +52,10 @@ def elevation_dxf(sheet: SheetData, lengths=None) -> str:
     dia = b.studs.diameter
     lost = sheet.lost if sheet.lost is not None else [0] * lay.x.size
     offset = deck.stud_offset if deck is not None and b.deck_case == DeckCase.PERPENDICULAR else 0.0
+    weak = b.studs.position == "weak"  # either side works: the better side is drawn (as the erector sheet)
     for i, xi in enumerate(lay.x):
         n = int(lay.count[i] - lost[i])
-        side = {"reference": -1.0, "far": 1.0}.get(str(lay.side[i]), 0.0)
+        side = {"reference": -1.0, "far": 1.0}.get(str(lay.side[i]), 0.0) * (-1.0 if weak else 1.0)
         for j in range(n):
             c = shift + float(xi) + side * offset + 1.5 * dia * (j - (n - 1) / 2)
             msp.add_lwpolyline([(c - dia / 2, 0), (c - dia / 2, length - 0.375), (c + dia / 2, length - 0.375),
@@ -77,6 +78,7 @@ def elevation_dxf(sheet: SheetData, lengths=None) -> str:
             (f"{station_origin_text(b)}; x = station (in), y up from the top of the steel", 2.0),
             (f"{lay.total} studs {format_inches(dia)} dia x {format_inches(length)} after welding", 2.0),
             (f"left: {b.ribs.reference_end} (reference end)   right: {b.ribs.far_end}", 2.0),
+            *([("weak-position design: either side of the rib works; the better side is drawn", 2.0)] if weak else []),
             (f"job: {sheet.job}   date: {sheet.date}", 2.0), (f"CAUTION: {sheet.caution}", 1.5)]
     y = base + 20.0
     for line, h in reversed(text):

@@ -12,7 +12,7 @@ from engine.model.results import verdict_of, worst
 from engine.model.units import format_ft_in, format_inches
 from engine.studs.ribs import printed_station
 from fieldcomp.views.numbers import ratio_text
-from fieldcomp.views.pdf_page import BOTTOM, GREY, INK, LEFT, RIGHT, TOP, SheetPdf
+from fieldcomp.views.pdf_page import BOTTOM, GREY, INK, SheetPdf
 
 RED, BLUE = (170, 40, 30), (30, 70, 150)
 
@@ -74,8 +74,8 @@ def _plot(pdf: SheetPdf, x0: float, y0: float, w: float, h: float, title: str, x
     for j, (name, values, colour, dash) in enumerate(curves):
         pdf.set_draw_color(*colour)
         pdf.set_line_width(0.018)
-        pts = [(x0 + w * float(xi - xs[0]) / span, (y0 + h * float(v) / top * 0.9) if down else (y0 + h * (1 - 0.9 * float(v) / top)))
-               for xi, v in zip(xs, values)]
+        share = [0.9 * float(v) / top for v in values]
+        pts = [(x0 + w * float(xi - xs[0]) / span, y0 + h * (f if down else 1 - f)) for xi, f in zip(xs, share)]
         if dash:
             pdf.set_dash_pattern(dash=0.06, gap=0.04)
         pdf.polyline(pts)

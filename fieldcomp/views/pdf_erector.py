@@ -132,17 +132,15 @@ def rib_detail(pdf: SheetPdf, sheet: SheetData, lengths, x: float, y: float) -> 
         pdf.words(x, y + 0.35, f"studs {where}, in a row", 9, "B")
         return
     pdf.words(x, y + 0.1, "SIDE OF THE RIB - section along the beam, scale 2\" = 1'-0\" (1:6)", 7, grey=True)
-    sides = sorted({str(s) for s in sheet.layout.side[sheet.layout.count > 0]} or {"center"})
     s = DETAIL_SCALE
     hr, wt, wb = deck.rib_height * s, deck.rib_top_width * s, deck.rib_bottom_width * s
     stud_h = (lengths.after if lengths is not None else b.studs.length) * s
     top = y + 0.35 + stud_h - hr + 0.1
-    for k, side in enumerate(sides):
+    for k, (side, label, note) in enumerate(rib_sides(sheet)):
         cx = x + 0.9 + 1.85 * k
         base = top + hr
         pdf.set_line_width(0.012)
         pdf.set_draw_color(*GREY)
-        pitch = deck.pitch * s
         reach = wt / 2 + 0.35
         pdf.line(cx - reach, base, cx + reach, base)  # the top flange
         pdf.polyline([(cx - reach, top), (cx - wt / 2, top), (cx - wb / 2, base), (cx + wb / 2, base),
@@ -150,11 +148,7 @@ def rib_detail(pdf: SheetPdf, sheet: SheetData, lengths, x: float, y: float) -> 
         pdf.set_draw_color(*INK)
         offset = {"reference": -1.0, "far": 1.0}.get(side, 0.0) * deck.stud_offset * s
         _stud(pdf, cx + offset, base, stud_h, b.studs.diameter * s)
-        if side == "center":
-            label = "centre of rib"
-        else:
-            end = b.ribs.reference_end if side == "reference" else b.ribs.far_end
-            label = f"stud toward {end}"
+        if side != "center":
             arrow = -1.0 if side == "reference" else 1.0
             ax = cx + arrow * 0.5
             pdf.set_line_width(0.015)
@@ -162,9 +156,27 @@ def rib_detail(pdf: SheetPdf, sheet: SheetData, lengths, x: float, y: float) -> 
             pdf.line(ax, base + 0.16, ax - arrow * 0.07, base + 0.12)
             pdf.line(ax, base + 0.16, ax - arrow * 0.07, base + 0.20)
         pdf.words(cx - 0.9, base + 0.34, label, 8, "B")
+        pdf.words(cx - 0.9, base + 0.46, note, 7)
         if lengths is not None:
-            pdf.words(cx - 0.9, base + 0.47, f"{format_inches(lengths.after)} after welding "
+            pdf.words(cx - 0.9, base + 0.58, f"{format_inches(lengths.after)} after welding "
                       f"({format_inches(lengths.before)} before)", 7)
+
+
+def rib_sides(sheet: SheetData) -> list[tuple[str, str, str]]:
+    """(side of the rib to draw, label, note) for each side the sheet's studs use. Where the
+    design takes the weak position (either side works; engine.studs.sheet_data.side_text) the
+    better side is drawn, and the note says either side works."""
+    b, lay = sheet.beam, sheet.layout
+    out = []
+    for side in sorted({str(v) for v in lay.side[lay.count > 0]} or {"center"}):
+        if side == "center":
+            out.append(("center", "stud at the centre of the rib", ""))
+            continue
+        weak = b.studs.position == "weak"
+        drawn = {"reference": "far", "far": "reference"}[side] if weak else side
+        end = b.ribs.reference_end if drawn == "reference" else b.ribs.far_end
+        out.append((drawn, f"stud toward {end}", "better side; either side works" if weak else ""))
+    return out
 
 
 def elevation(pdf: SheetPdf, sheet: SheetData, y: float, x0: float = LEFT, x1: float = RIGHT) -> float:
@@ -202,8 +214,8 @@ def elevation(pdf: SheetPdf, sheet: SheetData, y: float, x0: float = LEFT, x1: f
         px = left + float(xi) * scale
         kinds = [INK] * int(lay.count[i] - lost[i]) + [RED] * int(lost[i]) + [GREEN] * int(added[i])
         for j, colour in enumerate(kinds):
-            _stud(pdf, px + 0.035 * (j - (len(kinds) - 1) / 2), flange, b.studs.length * scale, max(0.012, b.studs.diameter * scale),
-                  colour)
+            _stud(pdf, px + 0.035 * (j - (len(kinds) - 1) / 2), flange, b.studs.length * scale,
+                  max(0.012, b.studs.diameter * scale), colour)
     for r in anchor_ribs(sheet):
         px = left + float(lay.x[r - 1]) * scale
         pdf.set_line_width(0.01)

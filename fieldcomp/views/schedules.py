@@ -13,7 +13,8 @@ from engine.model.units import format_ft_in, format_inches
 from fieldcomp.views.csv_safety import csv_cell
 from fieldcomp.views.pdf_page import BOTTOM, LEFT, RIGHT, TOP, SheetPdf
 
-CAMBER_COLUMNS = ("mark", "shape", "length", "length_in", "span", "span_in", "camber", "camber_in", "tolerance", "tolerance_plus_in", "note")
+CAMBER_COLUMNS = ("mark", "shape", "length", "length_in", "span", "span_in", "camber", "camber_in", "tolerance",
+                  "tolerance_plus_in", "note")
 STUD_COLUMNS = ("mark", "studs", "diameter", "diameter_in", "length_before_welding", "length_before_in",
                 "length_after_welding", "length_after_in", "deck_welds", "deck_weld_ribs")
 TOTAL_COLUMNS = ("diameter", "length_before_welding", "quantity")
