@@ -11,12 +11,19 @@ from pathlib import Path
 
 def write_output(path: str | Path, data: str | bytes, inputs: Sequence[str | Path]) -> None:
     """Write `data` to `path` atomically; refused when `path` is an input of the command.
-    Raises OSError (FileKindError names the path)."""
+    Raises FileKindError (an OSError) naming the path, whatever went wrong."""
     from fieldcomp.jobs.atomic import write_bytes_atomic
     from fieldcomp.jobs.output_names import refuse_inputs
 
+    from fieldcomp.jobs.file_kinds import FileKindError
+
     refuse_inputs(path, list(inputs))
-    write_bytes_atomic(Path(path), data.encode("utf-8") if isinstance(data, str) else data)
+    try:
+        write_bytes_atomic(Path(path), data.encode("utf-8") if isinstance(data, str) else data)
+    except FileKindError:
+        raise
+    except OSError as exc:  # a full disk or a lost mount: the error names the file, not only the reason
+        raise FileKindError(Path(path), f"cannot write: {exc.strerror or exc}; the previous file, if any, is unchanged") from None
 
 
 def write_per_beam(folder: str | Path, items: Sequence, marks: list[str], ext: str,

@@ -75,3 +75,22 @@ def test_outputs_are_atomic_no_temporary_file_is_left(tmp_path, capsys):
     assert main(["camber", str(job), "--csv", str(tmp_path / "c.csv"), "--pdf", str(tmp_path / "c.pdf")]) in (0, 1, 3)
     assert sorted(p.name for p in tmp_path.iterdir()) == ["c.csv", "c.pdf", "job.toml"]
     assert (tmp_path / "c.pdf").read_bytes().startswith(b"%PDF-")
+
+
+def test_a_full_disk_is_reported_naming_the_file_and_leaves_the_old_one(tmp_path, capsys, monkeypatch):
+    import errno
+
+    from fieldcomp.jobs import atomic
+
+    job = tmp_path / "job.toml"
+    shutil.copyfile(DEMO, job)
+    target = tmp_path / "camber.pdf"
+    target.write_bytes(b"old")
+
+    def full(fd):
+        raise OSError(errno.ENOSPC, os.strerror(errno.ENOSPC))
+    monkeypatch.setattr(atomic.os, "fsync", full)
+    assert main(["camber", str(job), "--pdf", str(target)]) == 2
+    err = capsys.readouterr().err
+    assert f"error: {target}: cannot write: No space left on device" in err
+    assert target.read_bytes() == b"old" and sorted(p.name for p in tmp_path.iterdir()) == ["camber.pdf", "job.toml"]
