@@ -40,7 +40,7 @@ def made(tmp_path_factory) -> Path:
     runs = [["marks", str(job), "--all", "--pdf", str(out / "es.pdf"), "--dxf", str(out / "dxf"),
              "--schedule", str(out / "ss.pdf"), "--svg", str(out / "svg")] + date,
             ["marks", str(job), "--all", "--schedule", str(out / "ss.csv")],
-            ["findings", str(job), "--beam", "3B-103", "--pdf", str(out / "rs.pdf")] + date,
+            ["findings", str(job), "--beam", "3B-103", "--pdf", str(out / "rs.pdf"), "--repair-svg", str(out / "rs.svg")] + date,
             ["camber", str(job), "--pdf", str(out / "cl.pdf"), "--order-csv", str(out / "cl.csv"), "--csv",
              str(out / "cs.csv")] + date,
             ["check", str(job), "--beam", "3B-102", "--pdf", str(out / "cp.pdf")] + date,
@@ -91,11 +91,16 @@ def test_erector_booklet_one_page_per_beam_crew_first(made):
     assert 'CAMBER 1" ordered, crown up (shop tolerance -0 / +1/2"' in " ".join(texts[1].split())
 
 
-def test_repair_sheet_pdf_has_the_instructions_and_the_approval_block(made):
+def test_repair_sheet_pdf_and_svg_have_the_instructions_and_the_approval_block(made):
     (text,) = pages(made / "rs.pdf")
     frame(text, "RS", 1, 1)
     flat = " ".join(text.split())
     assert "REPLACE 1, THEN RE-TEST" in flat and "ENGINEER OF RECORD APPROVAL" in flat
+    svg = (made / "rs.svg").read_text()
+    image = Image.open(io.BytesIO(bytes(resvg_py.svg_to_bytes(svg_string=svg, dpi=96.0, background="#ffffff")))).convert("L")
+    assert sum(image.histogram()[:128]) > 0.002 * image.width * image.height
+    words = " ".join(t.text or "" for t in ET.fromstring(svg.encode()).iter("{http://www.w3.org/2000/svg}text"))
+    assert "REPLACE 1, THEN RE-TEST" in words and "ENGINEER OF RECORD APPROVAL" in words
 
 
 def test_calculation_package_lists_every_check_with_clause_and_authority(made):
