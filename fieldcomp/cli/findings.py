@@ -213,13 +213,14 @@ def _rows_against_layout(beam, designed, existing, rows, new) -> list[tuple[int 
 def write_repair_pdf(args: argparse.Namespace, job_name: str, review) -> None:
     """Write the crew's repair sheet as a PDF page (the sheet of `write_sheet`)."""
     from engine.pipeline import field_sheet
+    from engine.studs.stud_lengths import stud_lengths
     from fieldcomp.cli.outputs import issue_of, write_output
     from fieldcomp.views.findings_report import REPAIR_CAUTION
     from fieldcomp.views.pdf_erector import repair_pdf
 
     issue = issue_of(job_name, "RS", args.revision, args.date)
     sheet = field_sheet(job_name, issue.date, review, f"{CAUTION} {REPAIR_CAUTION}")
-    write_output(args.pdf, repair_pdf(issue, sheet), [args.job])
+    write_output(args.pdf, repair_pdf(issue, sheet, stud_lengths(review.before.beam)), [args.job])
 
 
 def write_sheet(path: str, job_name: str, review, job_path: str) -> None:

@@ -65,28 +65,42 @@ def _header(pdf: SheetPdf, sheet: SheetData, camber) -> float:
     return TOP + 1.0
 
 
-def _instructions(pdf: SheetPdf, sheet: SheetData, lengths, y: float, width: float) -> float:
+def _instructions(pdf: SheetPdf, sheet: SheetData, lengths, erector: bool, y: float, width: float) -> float:
     pdf.words(LEFT, y + 0.1, "DO THIS", 7, grey=True)
     y += 0.16
     lines: list[tuple[str, float]] = []
     if sheet.instructions:
-        lines = [(s, 8 if s.startswith(("METHOD:", "RE-TEST:")) else 11) for s in sheet.instructions]
-    if lengths is not None:
+        lines = [(s, 8 if s.startswith(("METHOD:", "RE-TEST:")) else 10.5) for s in sheet.instructions]
+    if erector:
         lines.append((stud_order_text(sheet, lengths), 13))
         lines += [(s.upper(), 12) for s in side_runs(mark_rows(sheet), slot_word(sheet.beam))]
+
     for text, size in lines:
         y = pdf.paragraph(LEFT, y, width, text, size, "B" if size > 8 else "") + 0.02
     return y + 0.04
 
 
-def _table(pdf: SheetPdf, sheet: SheetData, y: float, width: float, bottom: float) -> float:
+MIN_STEP = 0.125  # the closest rows the crew reads (in of paper; 7 pt type)
+
+
+def table_rows(sheet: SheetData) -> list[MarkRow]:
+    """The rows the crew's table lists: every slot with studs; on a repair only what changes."""
     extra = sheet.lost is not None or sheet.added is not None
-    rows = [r for r in mark_rows(sheet) if not extra or r.lost or r.added]  # a repair lists only what changes
+    return [r for r in mark_rows(sheet) if not extra or r.lost or r.added]
+
+
+def _table(pdf: SheetPdf, sheet: SheetData, rows: list[MarkRow], y: float, width: float, bottom: float) -> tuple[float, int]:
+    """The rows from `y` down to `bottom` in as many blocks as fit `width`, in the largest type
+    that fits: (the y below the table, how many rows it holds; the rest go on a next sheet)."""
+    extra = sheet.lost is not None or sheet.added is not None
     word = slot_word(sheet.beam).upper()
     heads = [word, "STATION", "STUDS"] + (["LOST", "ADD"] if extra else []) + ["SIDE OF RIB" if word == "RIB" else "WHERE"]
     widths = [0.42, 0.8, 0.5] + ([0.42, 0.42] if extra else []) + [1.2]
     block_w = sum(widths) + 0.1
-    blocks = max(1, min(int(width // block_w), math.ceil(len(rows) / 8) or 1))
+    room = max(1, int((bottom - y - 0.2) / MIN_STEP))
+    most = max(1, int(width // block_w))
+    blocks = max(1, min(most, math.ceil(len(rows) / 8) or 1, math.ceil(len(rows) / room)))
+    rows = rows[:blocks * room]
     per = max(1, math.ceil(len(rows) / blocks))
     step = min(0.2, (bottom - y - 0.2) / per)
     size = max(6.0, min(11.0, step * 72 * 0.8))
@@ -107,7 +121,7 @@ def _table(pdf: SheetPdf, sheet: SheetData, y: float, width: float, bottom: floa
                 pdf.text(cx, ry, latin(cell))
                 cx += w
             pdf.set_text_color(*INK)
-    return y + 0.14 + step * (per + 1)
+    return y + 0.14 + step * (per + 1), len(rows)
 
 
 def _stud(pdf: SheetPdf, x: float, base: float, height: float, diameter: float, colour=INK) -> None:
@@ -237,33 +251,42 @@ def deck_weld_text(sheet: SheetData, ribs) -> str:
     return f"DECK WELDS by others (puddle weld or specified fastener, AISC 360-22 I3.2c.1(d)) at ribs without studs: {where}"
 
 
-def crew_page(pdf: SheetPdf, sheet: SheetData, camber=None, lengths=None) -> None:
-    """One sheet: the erector sheet when `lengths` are given, else the repair sheet (its own
-    instructions, lost and added studs, the engineer of record's approval block)."""
+def crew_page(pdf: SheetPdf, sheet: SheetData, camber=None, lengths=None, erector: bool = True) -> None:
+    """One sheet: the erector sheet, or (`erector` False) the repair sheet (its own instructions,
+    lost and added studs, the engineer of record's approval block)."""
     pdf.sheet(f"beam {sheet.beam.mark}")
     y = _header(pdf, sheet, camber)
     pdf.set_line_width(0.015)
     pdf.line(LEFT - 0.12, y, RIGHT + 0.12, y)
-    y = _instructions(pdf, sheet, lengths, y + 0.02, RIGHT - LEFT)
+    y = _instructions(pdf, sheet, lengths, erector, y + 0.02, RIGHT - LEFT)
     table_w = RIGHT - LEFT - 3.9
     y_el = BOTTOM - elevation_height(sheet)
-    bottom = y_el - (0.5 if lengths is not None else 0.55) - (0.44 if sheet.approval else 0.0)
-    end = _table(pdf, sheet, y, table_w, bottom)
+    notes = [n for n in sheet.notes if n.startswith(("SHORTFALL", "as built", "after adding"))]
+    bottom = y_el - (0.5 if erector else 0.1) - (0.58 if sheet.approval else 0.0) - 0.15 * len(notes)
+    rows = table_rows(sheet)
+    end, shown = _table(pdf, sheet, rows, y, table_w, bottom)
     rib_detail(pdf, sheet, lengths, RIGHT - 3.8, y)
-    yy = max(end, y + (1.6 if lengths is not None else 1.2)) + 0.04
-    if lengths is not None:
+    yy = (max(end, y + 1.6) if erector else end) + 0.04
+    if shown < len(rows):
+        yy = pdf.paragraph(LEFT, yy - 0.06, RIGHT - LEFT, f"THE TABLE CONTINUES ON THE NEXT SHEET ({slot_word(sheet.beam)}s "
+                           f"{rows[shown].slot} to {rows[-1].slot})", 9, "B")
+    if erector:
         yy = pdf.paragraph(LEFT, yy, RIGHT - LEFT, deck_weld_text(sheet, anchor_ribs(sheet)), 9, "B")
-    for note in sheet.notes:
-        if note.startswith(("SHORTFALL", "as built", "after adding")):
-            yy = pdf.paragraph(LEFT, yy, RIGHT - LEFT, note, 8)
+    for note in notes:
+        yy = pdf.paragraph(LEFT, yy, RIGHT - LEFT, note, 8)
     if sheet.approval:
         pdf.set_line_width(0.015)
-        pdf.rect(LEFT, yy + 0.04, RIGHT - LEFT, 0.36)
+        pdf.rect(LEFT, yy + 0.04, table_w, 0.5)  # beside the rib detail, under the table
         pdf.words(LEFT + 0.06, yy + 0.16, "ENGINEER OF RECORD APPROVAL (required before any work)", 7, grey=True)
-        pdf.words(LEFT + 0.06, yy + 0.33, "name ____________________  date __________  disposition: accepted / repair ordered / "
-                  "repaired / re-inspected   signature ____________________", 8)
-        yy += 0.44
+        pdf.words(LEFT + 0.06, yy + 0.32, "name ____________________  date __________  signature ____________________", 8)
+        pdf.words(LEFT + 0.06, yy + 0.47, "disposition: accepted / repair ordered / repaired / re-inspected", 8)
+        yy += 0.58
     elevation(pdf, sheet, y_el)
+    while shown < len(rows):
+        pdf.sheet(f"beam {sheet.beam.mark}, continued")
+        pdf.words(LEFT, TOP + 0.3, f"{sheet.beam.mark} (continued)", 16, "B")
+        _, more = _table(pdf, sheet, rows[shown:], TOP + 0.45, RIGHT - LEFT, BOTTOM - 0.1)
+        shown += more
 
 
 def elevation_height(sheet: SheetData) -> float:
@@ -281,8 +304,9 @@ def erector_pdf(issue, sheets) -> bytes:
     return pdf.output_bytes()
 
 
-def repair_pdf(issue, sheet: SheetData) -> bytes:
-    """The crew's repair sheet of one beam (engine.pipeline.field_sheet)."""
+def repair_pdf(issue, sheet: SheetData, lengths=None) -> bytes:
+    """The crew's repair sheet of one beam (engine.pipeline.field_sheet), with the stud lengths
+    (engine.studs.stud_lengths) where given."""
     pdf = SheetPdf(issue, "Stud repair sheet")
-    crew_page(pdf, sheet)
+    crew_page(pdf, sheet, None, lengths, erector=False)
     return pdf.output_bytes()

@@ -204,3 +204,18 @@ def test_erector_svg_sheets_render_and_put_the_crew_first(made):
         assert ("CAMBER" in flat) and ("NOT CAMBERED" in flat) == (e.camber.camber == 0)
         assert "STRENGTH ALONG THE SPAN" not in flat and "AISC 360-22 I3.2a" not in flat  # moved to the package
         assert " ".join(CAUTION.split()[:6]) in flat
+
+
+def test_a_long_beam_continues_its_table_on_a_next_sheet_and_lists_every_rib(tmp_path):
+    job = tmp_path / "long.toml"
+    text = DEMO.read_text().replace('span = "44\'-9\\""', 'span = "80\'-0\\""')
+    job.write_text(text.replace("count = 40\n[[beam.pour]]", "count = 140\n[[beam.pour]]"))
+    assert main(["marks", str(job), "--beam", "3B-106", "--pdf", str(tmp_path / "l.pdf"), "--date", "2026-12-04"]) in (0, 1)
+    texts = pages(tmp_path / "l.pdf")
+    assert len(texts) == 2 and "3B-106 (continued)" in texts[1]
+    assert "THE TABLE CONTINUES ON THE NEXT SHEET" in " ".join(texts[0].split())
+    _, (beam,) = load_inputs(str(job), "3B-106")
+    e = erector_sheet("j", beam, "2026-12-04", CAUTION)
+    stations = [f"{int(x // 12)}'-{int(x % 12)}\"" for x in e.sheet.layout.x[e.sheet.layout.count > 0]]
+    both = " ".join(texts)
+    assert all(s in both for s in stations)  # ribs at whole inches here: 0'-6", 1'-6" ...
