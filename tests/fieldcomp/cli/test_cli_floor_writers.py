@@ -7,6 +7,9 @@ import os
 import shutil
 from pathlib import Path
 
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
 from fieldcomp.cli.main import main
 from fieldcomp.jobs.output_names import unique_names
 
@@ -94,3 +97,19 @@ def test_a_full_disk_is_reported_naming_the_file_and_leaves_the_old_one(tmp_path
     err = capsys.readouterr().err
     assert f"error: {target}: cannot write: No space left on device" in err
     assert target.read_bytes() == b"old" and sorted(p.name for p in tmp_path.iterdir()) == ["camber.pdf", "job.toml"]
+
+
+MARK_CHARS = st.sampled_from(list("Bb_-/ .1\\:2"))
+
+
+@settings(max_examples=400, deadline=None)
+@given(st.lists(st.text(MARK_CHARS, min_size=1, max_size=6), min_size=1, max_size=12))
+def test_unique_names_are_unique_case_insensitively_and_safe_for_any_marks(marks):
+    from fieldcomp.jobs.output_names import safe_name
+
+    names = unique_names(marks)
+    assert len(names) == len(marks)
+    assert len({n.casefold() for n in names}) == len(names)  # a case-folding file system keeps every sheet
+    for mark, name in zip(marks, names):
+        assert name == safe_name(mark) or name.startswith(safe_name(mark) + "-")
+        assert "/" not in name and "\\" not in name and ".." not in name
