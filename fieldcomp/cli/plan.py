@@ -69,11 +69,11 @@ def run(args: argparse.Namespace) -> int:
     level = f" - {args.level}" if args.level and args.level not in job.project.name else ""
     title = f"Framing plan - {job.project.name}{level}"
     try:
+        issue = issue_of(job.project.name, "FP", args.revision, args.date)
         if args.svg:
-            write_output(args.svg, plan_svg(placed, title, CAUTION, unplaced), [args.job])
+            write_output(args.svg, plan_svg(issue, placed, title, unplaced), [args.job])
         if args.pdf:
-            write_output(args.pdf, plan_pdf(issue_of(job.project.name, "FP", args.revision, args.date), placed, title, unplaced),
-                         [args.job])
+            write_output(args.pdf, plan_pdf(issue, placed, title, unplaced), [args.job])
     except OSError as exc:
         return fail_output(exc, args.svg if args.svg and not args.pdf else args.pdf)
     print(f"fieldcomp {__version__} - framing plan - job '{job.project.name}' ({args.job})")

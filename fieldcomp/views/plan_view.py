@@ -176,8 +176,10 @@ def _legend(c: _Canvas, x: float, y: float, scale_name: str, unplaced: list[str]
             c.text(x, y, ", ".join(unplaced[k:k + 4]), 6.5)
 
 
-def plan_svg(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str]) -> str:
-    """The plan as an SVG page (11 x 8.5 in; 100 units to the inch) with the caution."""
+def plan_svg(issue, beams: list[PlanBeam], title: str, unplaced: list[str]) -> str:
+    """The plan as an SVG page (11 x 8.5 in; 100 units to the inch) with the caution and a title
+    line (job, revision, issue date, drawn / checked / approved) as the PDF sheet has."""
+    caution = issue.caution
     c = _draw(beams, title, caution, unplaced)
     out = ['<?xml version="1.0" encoding="UTF-8"?>',
            f'<svg xmlns="http://www.w3.org/2000/svg" width="{PAGE_W}in" height="{PAGE_H}in" '
@@ -199,6 +201,10 @@ def plan_svg(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str
     for k, part in enumerate(_wrap("CAUTION: " + clean(caution), 170)):
         out.append(f'<text x="{LEFT * 100:.0f}" y="{(BOTTOM + 0.25 + 0.14 * k) * 100:.0f}" font-family="DejaVu Sans, Arial, '
                    f'sans-serif" font-size="9.7">{escape(part)}</text>')
+    block = (f"JOB {clean(issue.job)}   SHEET framing plan   REV. {clean(issue.revision)}   ISSUED {clean(issue.date)}   "
+             "DRAWN ________   CHECKED ________   APPROVED ________")
+    out.append(f'<text x="{LEFT * 100:.0f}" y="{(PAGE_H - 0.45) * 100:.0f}" font-family="DejaVu Sans, Arial, sans-serif" '
+               f'font-size="11" font-weight="bold">{escape(block)}</text>')
     return "\n".join(out + ["</svg>", ""])
 
 

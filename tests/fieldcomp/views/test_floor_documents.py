@@ -178,6 +178,7 @@ def test_plan_svg_and_pdf(made):
     for grid in "ABCDEF123456":
         assert f" {grid} " in f" {words} "
     assert "SCALE" in words and " N " in words and CAUTION.split(";")[0] in words
+    assert f"JOB {JOB}" in words and "REV. B" in words and "ISSUED 2026-12-04" in words and "APPROVED" in words
     png = bytes(resvg_py.svg_to_bytes(svg_string=svg, dpi=96.0, background="#ffffff"))
     image = Image.open(io.BytesIO(png)).convert("L")
     assert image.size == (1056, 816)  # 11 x 8.5 in at 96 dpi
