@@ -18,34 +18,34 @@ def register(sub) -> None:
     c.add_argument("--csv", metavar="PATH", help="also write the schedule as CSV to PATH")
 
 
-def camber_beam(beam, as_json: bool) -> tuple[str | None, bool, str, list, str]:
-    """(input error or None, whether the construction stage fails, the beam's schedule line, its
-    CSV rows, its report: a JSON list item or text) for one beam; run in worker processes for
-    large jobs."""
+def camber_beam(beam, as_json: bool) -> tuple[str | None, str, object, str]:
+    """(input error or None, the construction stage's verdict, its result, its report: a JSON list
+    item or text) for one beam; run in worker processes for large jobs."""
     from engine.construction.evaluate import evaluate_construction
     from engine.model.units import format_ft_in
     from fieldcomp.cli.parallel import json_item
     from fieldcomp.jobs.jobfile import JobFileError
-    from fieldcomp.views.construction_report import construction_json, construction_text, csv_rows, schedule_text
+    from fieldcomp.views.construction_report import construction_json, construction_text
 
     try:
         r = evaluate_construction(beam)
     except (JobFileError, ValueError) as exc:
-        return str(exc), "fail", "", [], ""
-    line = schedule_text([r]).split("\n", 2)[2]  # below the table head
-    rows = csv_rows([r])[2:]  # below the caution and header rows
+        return str(exc), "fail", None, ""
     if as_json:
-        return None, str(r.verdict), line, rows, json_item(construction_json(r))
+        return None, str(r.verdict), r, json_item(construction_json(r))
     text = f"Beam {r.beam.mark}: {r.beam.shape.name}, span {format_ft_in(r.beam.span)}, {r.beam.method}\n"
-    return None, str(r.verdict), line, rows, text + construction_text(r)
+    return None, str(r.verdict), r, text + construction_text(r)
 
 
 def run(args: argparse.Namespace) -> int:
     import csv
     import io
+    import sys
+    from dataclasses import replace
 
+    from engine.batch import relabel, repeats
     from fieldcomp.jobs.atomic import write_text_atomic
-    from fieldcomp.cli.parallel import json_with_list, map_beams
+    from fieldcomp.cli.parallel import MARK_STAND_IN, map_beams, relabel_report, write_json_with_list
     from fieldcomp.jobs.jobfile import JobFileError
     from fieldcomp.views.finished_report import caution_block
     from fieldcomp.views.construction_report import csv_rows, schedule_text
@@ -54,28 +54,34 @@ def run(args: argparse.Namespace) -> int:
         job, beams = load_inputs(args.job, args.beam)
     except (JobFileError, ValueError) as exc:
         return fail_input(exc)
-    done = map_beams(partial(camber_beam, as_json=args.json), beams)
+    types, which = repeats(beams)  # each beam type computed once, under a stand-in mark
+    done = map_beams(partial(camber_beam, as_json=args.json), [replace(b, mark=MARK_STAND_IN) for b in types])
     error = next((d[0] for d in done if d[0] is not None), None)
     if error is not None:
         return fail_input(ValueError(error))
-    verdicts = [d[1] for d in done]
+    verdicts = [done[k][1] for k in which]
+    results = (relabel(done[k][2], b.mark) for b, k in zip(beams, which))
+    reports = (relabel_report(done[k][3], b.mark, args.json) for b, k in zip(beams, which))
     if args.csv:
         sheet = io.StringIO()
-        csv.writer(sheet).writerows(csv_rows([]) + [row for d in done for row in d[3]])
+        csv.writer(sheet).writerows(csv_rows([]))
+        for r in results:
+            csv.writer(sheet).writerows(csv_rows([r])[2:])  # below the caution and header rows
         try:
             write_text_atomic(args.csv, sheet.getvalue())
         except OSError as exc:
             return fail_output(exc, args.csv)
     if args.json:
-        print(json_with_list({"job": job.project.name, "caution": CAUTION}, "beams", [d[4] for d in done]))
+        write_json_with_list(sys.stdout, {"job": job.project.name, "caution": CAUTION}, "beams", reports)
     else:
         print(f"fieldcomp {__version__} - camber schedule - job '{job.project.name}' ({args.job})")
         print(caution_block())
         print()
-        print("\n".join([schedule_text([])] + [d[2] for d in done]))
-        for d in done:
+        lines = (schedule_text([relabel(done[k][2], b.mark)]).split("\n", 2)[2] for b, k in zip(beams, which))
+        print("\n".join([schedule_text([]), *lines]))  # each beam's line below the table head
+        for report in reports:
             print()
-            print(d[4])
+            print(report)
         print()
         print("construction stage, " + tally([b.mark for b in beams], verdicts))
         if args.csv:
