@@ -18,9 +18,9 @@ def register(sub) -> None:
     c.add_argument("--csv", metavar="PATH", help="also write the schedule as CSV to PATH")
 
 
-def camber_beam(beam, as_json: bool) -> tuple[str | None, str, object, str]:
-    """(input error or None, the construction stage's verdict, its result, its report: a JSON list
-    item or text) for one beam; run in worker processes for large jobs."""
+def camber_beam(beam, as_json: bool, keep: bool = True) -> tuple[str | None, str, object, str]:
+    """(input error or None, the construction stage's verdict, its result (None unless `keep`),
+    its report: a JSON list item or text) for one beam; run in worker processes for large jobs."""
     from engine.construction.evaluate import evaluate_construction
     from engine.model.units import format_ft_in
     from fieldcomp.cli.parallel import json_item
@@ -31,10 +31,11 @@ def camber_beam(beam, as_json: bool) -> tuple[str | None, str, object, str]:
         r = evaluate_construction(beam)
     except (JobFileError, ValueError) as exc:
         return str(exc), "fail", None, ""
+    kept = r if keep else None
     if as_json:
-        return None, str(r.verdict), r, json_item(construction_json(r))
+        return None, str(r.verdict), kept, json_item(construction_json(r))
     text = f"Beam {r.beam.mark}: {r.beam.shape.name}, span {format_ft_in(r.beam.span)}, {r.beam.method}\n"
-    return None, str(r.verdict), r, text + construction_text(r)
+    return None, str(r.verdict), kept, text + construction_text(r)
 
 
 def run(args: argparse.Namespace) -> int:
@@ -55,7 +56,8 @@ def run(args: argparse.Namespace) -> int:
     except (JobFileError, ValueError) as exc:
         return fail_input(exc)
     types, which = repeats(beams)  # each beam type computed once, under a stand-in mark
-    done = map_beams(partial(camber_beam, as_json=args.json), [replace(b, mark=MARK_STAND_IN) for b in types])
+    keep = bool(args.csv) or not args.json  # the schedule lines and CSV rows are made from the results
+    done = map_beams(partial(camber_beam, as_json=args.json, keep=keep), [replace(b, mark=MARK_STAND_IN) for b in types])
     error = next((d[0] for d in done if d[0] is not None), None)
     if error is not None:
         return fail_input(ValueError(error))
