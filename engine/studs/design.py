@@ -43,7 +43,13 @@ def design_layout(beam: BeamInput, suggest: bool = True) -> LayoutResult:
     """Studs rib by rib for one beam: the drawings' count, or with `count = "design"` the fewest
     that give phi Mn >= Mu at every station; singles first, doubles nearest the ends, within
     the limits of AISC 360-22 I8.1, I8.2d and I3.2c.3 (engine.studs.placement). Computed once per
-    beam input (the finished-beam evaluation designs it too); arrays read-only."""
+    beam input (the finished-beam evaluation designs it too); arrays read-only.
+
+    What would close a shortfall is searched for only with `suggest` (for the views that show
+    it); the layout, its checks and its flags are the same without it, the shortfall text then
+    naming only what falls short."""
+    if suggest:
+        return _with_suggestions(beam, design_layout(beam, False))
     need = slab_force_needed(beam)
     slots = beam_slots(beam)
     total = beam.studs.count
@@ -69,7 +75,7 @@ def design_layout(beam: BeamInput, suggest: bool = True) -> LayoutResult:
                             "(project intent; strength is checked by AISC 360-22 I3.2a)",
                             intent, min(provided), "kip", station=need.x_max, kind="detailing",
                             authority=Authority.PROJECT, advisory=True))
-    text = shortfall(beam, need, slots, arr, layout, required, provided, suggest)
+    text = "; ".join(_problems(beam, need, slots, arr, layout, required, provided)) or None
     if text is not None:
         flags.append(Flag(SHORTFALL_CLAUSE, f"stud layout short: {text}"))
     for values in (layout.x, layout.count, layout.position, layout.qn, layout.max_count):
@@ -97,14 +103,14 @@ def envelope_misses(need: Need, layout: StudLayout) -> np.ndarray:
     return np.flatnonzero(~need.short & ((left < low) | (right < low)))
 
 
-def shortfall(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, layout: StudLayout,
-              required: float, provided: tuple[float, float], suggest: bool) -> str | None:
-    """What the placed studs fail to meet, and what would close it; None when all is met."""
-    problems = _problems(beam, need, slots, arr, layout, required, provided)
-    if not problems:
-        return None
-    options = closing_options(beam, need, slots, layout, required) if suggest else []
-    return "; ".join(problems) + (". Would close it: " + "; ".join(options) if options else "")
+def _with_suggestions(beam: BeamInput, placed: LayoutResult) -> LayoutResult:
+    """`placed` (designed without suggestions) with what would close its shortfall, if it has one."""
+    if placed.shortfall is None:
+        return placed
+    options = closing_options(beam, slab_force_needed(beam), beam_slots(beam), placed.layout, placed.required_sum_qn)
+    text = placed.shortfall + (". Would close it: " + "; ".join(options) if options else "")
+    flags = placed.flags[:-1] + (Flag(SHORTFALL_CLAUSE, f"stud layout short: {text}"),)  # the shortfall's flag is last
+    return replace(placed, shortfall=text, flags=flags)
 
 
 def _problems(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, layout: StudLayout,
