@@ -9,7 +9,8 @@ _ASCII_CONTROL = re.compile(r"[\x00-\x09\x0b-\x1f\x7f]")  # what str.isprintable
 
 def printable(text: object) -> str:
     """The text without control characters (kept out of terminals, XML, CSV and PDF)."""
-    return "".join(ch for ch in str(text) if ch.isprintable())
+    text = str(text)
+    return text if text.isprintable() else "".join(ch for ch in text if ch.isprintable())
 
 
 def printable_lines(text: object) -> str:
