@@ -9,7 +9,7 @@ ponded concrete of a level screed, the stud layout, the finished beam: `as_poure
 `evaluate_beam`) and, for a beam with findings, the field review with its repair
 (`field_review`). A lone beam is checked with every engine cache (functools.lru_cache) empty, as
 the workbench meets a beam edited; "in a batch" is the cost per beam of a floor of 200 beams of
-the path, each different (their superimposed dead load differs by 0.01 psf), so no beam is a
+the path (CPU time of this process: see `median_seconds`), each different (their superimposed dead load differs by 0.01 psf), so no beam is a
 repeat of another. The kernel (tools/bench_kernel.py) is bare numpy over beams x stations: the
 limit the engine is measured against. Cold commands run a fresh interpreter on a generated job:
 the demo's beams and a beam whose layout falls short, cycled and renamed ("mixed": the repeats a
@@ -61,7 +61,9 @@ TODAY = {"typical": "3-5 ms", "level screed": "9 ms", "shortfall": "20 ms", "fin
 
 
 def median_seconds(fn, repeat: int, number: int = 1) -> float:
-    return statistics.median(timeit.repeat(fn, repeat=repeat, number=number)) / number
+    """Median CPU time (s) of this process per call: the work is single-threaded, so on an idle
+    machine it is the wall time; on a shared one it leaves out the time others held the cores."""
+    return statistics.median(timeit.repeat(fn, repeat=repeat, number=number, timer=time.process_time)) / number
 
 
 def generated_job(beams: int, distinct: bool = False, shortfall: bool = True) -> str:
@@ -175,10 +177,10 @@ def main() -> None:
         floor = distinct_floor(beam, 60 if quick else 200)
         for b in floor[:3]:
             full_check(b)
-        t0 = time.perf_counter()
+        t0 = time.process_time()
         for b in floor:
             full_check(b)
-        t = (time.perf_counter() - t0) / len(floor)
+        t = (time.process_time() - t0) / len(floor)
         rows.append((f"full check, in a batch, {name}", TODAY[name], f"{t * 1e3:.2f} ms", "0.1 ms",
                      f"{t / k_batch:.0f}x kernel (batched)"))
 

@@ -57,8 +57,9 @@ def run(args: argparse.Namespace) -> int:
         return fail_input(exc)
     types, which = repeats(beams)  # each beam type computed once, under a stand-in mark
     keep = bool(args.csv) or not args.json  # the schedule lines and CSV rows are made from the results
-    done = map_beams(partial(camber_beam, as_json=args.json, keep=keep), [replace(b, mark=MARK_STAND_IN) for b in types])
-    error = next((d[0] for d in done if d[0] is not None), None)
+    stand_ins = [replace(b, mark=MARK_STAND_IN) for b in types]
+    done = map_beams(partial(camber_beam, as_json=args.json, keep=keep), stand_ins, pooled=False)  # see map_beams
+    error = next((relabel_report(d[0], types[k].mark, False) for k, d in enumerate(done) if d[0] is not None), None)
     if error is not None:
         return fail_input(ValueError(error))
     verdicts = [done[k][1] for k in which]

@@ -52,7 +52,7 @@ def run(args: argparse.Namespace) -> int:
         return fail_input(exc)
     types, which = repeats(beams)  # each beam type computed once, under a stand-in mark
     done = map_beams(partial(check_beam, as_json=args.json), [replace(b, mark=MARK_STAND_IN) for b in types])
-    error = next((e for e, _, _ in done if e is not None), None)
+    error = next((relabel_report(e, types[k].mark, False) for k, (e, _, _) in enumerate(done) if e is not None), None)
     if error is not None:
         return fail_input(ValueError(error))
     verdicts = [done[k][1] for k in which]

@@ -28,12 +28,13 @@ MARK_STAND_IN = "\x00mark\x00"
 _MARK_STAND_IN_JSON = json.dumps(MARK_STAND_IN)[1:-1]
 
 
-def map_beams(fn: Callable[[T], R], items: Sequence[T]) -> list[R]:
-    """[fn(item) for item in items], on POOL_WORKERS processes when there are POOL_MIN_BEAMS items
-    or more and the machine has the cores. `fn` must be a module-level function (or a partial
-    of one) and its results picklable."""
+def map_beams(fn: Callable[[T], R], items: Sequence[T], pooled: bool = True) -> list[R]:
+    """[fn(item) for item in items], on POOL_WORKERS processes when `pooled`, there are
+    POOL_MIN_BEAMS items or more and the machine has the cores. `fn` must be a module-level
+    function (or a partial of one) and its results picklable. tools/bench.py times each verb
+    with the pool on and off: it pays for `check`, not for the lighter `camber`."""
     workers = min(POOL_WORKERS, _cores())
-    if len(items) < POOL_MIN_BEAMS or workers < 2:
+    if not pooled or len(items) < POOL_MIN_BEAMS or workers < 2:
         return [fn(item) for item in items]
     # fork starts workers with the engine already imported; elsewhere the platform default
     context = multiprocessing.get_context("fork") if "fork" in multiprocessing.get_all_start_methods() else None
