@@ -4,6 +4,7 @@ here: both sides of every comparison come from the same engine)."""
 
 from __future__ import annotations
 
+import io
 import json
 import sys
 from pathlib import Path
@@ -66,3 +67,23 @@ def test_json_from_pieces_equals_json_dumps(head, items):
     assert json.loads(text) == json.loads(json.dumps({**head, "beams": items}))
     assert len(text.splitlines()) == len(json.dumps({**head, "beams": []}, indent=2).splitlines()) + (
         len(items) + 1 if items else 0)  # one line per item
+
+
+@settings(max_examples=100, deadline=None)
+@given(head=st.dictionaries(st.text(max_size=5).filter(lambda k: k != "beams"), json_values, min_size=1, max_size=3),
+       items=st.lists(json_values, max_size=4))
+def test_json_written_item_by_item_equals_json_printed_whole(head, items):
+    pieces = [parallel.json_item(item) for item in items]
+    out = io.StringIO()
+    parallel.write_json_with_list(out, head, "beams", iter(pieces))
+    assert out.getvalue() == parallel.json_with_list(head, "beams", pieces) + "\n"
+
+
+@given(mark=st.text(min_size=1, max_size=12).filter(lambda m: m.isprintable()))
+def test_a_report_made_under_the_stand_in_reads_as_made_under_the_mark(mark):
+    record = {"mark": parallel.MARK_STAND_IN, "note": f"beam {parallel.MARK_STAND_IN}", "other": "\\u0000mark\\u0000"}
+    made = parallel.json_item(record)
+    assert parallel.relabel_report(made, mark, True) == parallel.json_item(
+        {"mark": mark, "note": f"beam {mark}", "other": "\\u0000mark\\u0000"})
+    text = f"Beam {parallel.MARK_STAND_IN}: W18X35"
+    assert parallel.relabel_report(text, mark, False) == f"Beam {mark}: W18X35"
