@@ -25,7 +25,8 @@ def register(sub) -> None:
     f.add_argument("--json", action="store_true", help="print one JSON object")
     f.add_argument("--repair-svg", metavar="PATH", help="write the repair marks sheet (SVG) here")
     f.add_argument("--import", dest="import_csv", metavar="CSV",
-                   help="first add the findings of an inspection log (CSV) to the beam and save the job")
+                   help="first add the findings of an inspection log (CSV: comma, semicolon or tab) to the beam; "
+                        "rows already recorded are not added again")
     f.add_argument("--as-detailed", dest="detailed_csv", metavar="CSV",
                    help="first set the beam's as-detailed studs (shop drawings) from a marks CSV (rib or station, "
                         "and count columns) and save the job")
@@ -150,56 +151,12 @@ def import_detailed(job_path: str, mark: str, csv_path: str) -> str:
 
 
 def import_log(job_path: str, mark: str, csv_path: str) -> str:
-    """Add the findings of an inspection log to one beam and save the job (atomic, .bak kept).
-    Every row is checked first, against the file format and against the beam's layout; on any
-    error nothing is written. Returns a one-line summary."""
-    from engine.field.as_built import FindingError, apply_findings
-    from engine.pipeline import field_layout
-    from fieldcomp.cli.common import load_inputs
-    from fieldcomp.jobs.inspection_log import CsvImportError, read_findings_csv
-    from fieldcomp.jobs.jobfile import load_job, save_job
-    from fieldcomp.jobs.to_engine import to_engine
+    """Add the new findings of an inspection log to one beam (fieldcomp.jobs.log_import: rows
+    already recorded are not added again; only the new tables are appended to the file, atomic,
+    .bak kept); on any error nothing is written. Returns what it did, warnings first."""
+    from fieldcomp.jobs.log_import import import_log as add_log
 
-    from engine.pipeline import as_poured
-
-    loaded = load_job(job_path)
-    _, (beam,) = load_inputs(job_path, mark)
-    beam = as_poured(beam)[0]
-    rows = read_findings_csv(csv_path)
-    job = loaded.job
-    updated = job.model_copy(update={"beam": [
-        b.model_copy(update={"finding": b.finding + [f for _, f in rows]}) if b.mark == mark else b for b in job.beam]})
-    merged = next(b for b in to_engine(updated, job_path) if b.mark == mark)
-    designed = field_layout(beam)[0]
-    try:
-        apply_findings(merged, designed, merged.findings)
-    except FindingError:
-        existing, new = list(beam.findings), list(merged.findings[len(beam.findings):])
-        raise CsvImportError(csv_path, _rows_against_layout(beam, designed, existing, rows, new)) from None
-    save_job(updated, job_path, expected_digest=loaded.digest)
-    return (f"imported {len(rows)} finding(s) into beam {mark} of {job_path} "
-            f"(previous version kept as {Path(job_path).name}.bak)")
-
-
-def _rows_against_layout(beam, designed, existing, rows, new) -> list[tuple[int | None, str]]:
-    """Every log row that contradicts the layout: added studs first, then the rest in order, each
-    kept only if it fits with what came before."""
-    from engine.field.as_built import FindingError, apply_findings
-
-    problems: list[tuple[int | None, str]] = []
-    try:
-        apply_findings(beam, designed, tuple(existing))
-    except FindingError as exc:
-        return [(None, f"the job's own findings for beam {beam.mark} contradict the layout: {exc}")]
-    kept = list(existing)
-    order = sorted(range(len(new)), key=lambda i: (new[i].kind != "added", i))
-    for i in order:
-        try:
-            apply_findings(beam, designed, tuple(kept + [new[i]]))
-            kept.append(new[i])
-        except FindingError as exc:
-            problems.append((rows[i][0], str(exc).split(": ", 1)[-1] + f" (beam {beam.mark})"))
-    return sorted(problems, key=lambda p: p[0] or 0)
+    return add_log(job_path, mark, csv_path).summary()
 
 
 def write_sheet(path: str, job_name: str, review) -> None:

@@ -28,7 +28,8 @@ from fieldcomp.tui.messages import BeamSelected, EditRequested, OutcomeFinished,
 from fieldcomp.tui.outcome import BeamOutcome, OutcomeCache
 from fieldcomp.tui.screens.help import HelpScreen
 from fieldcomp.tui.screens.workbench import WorkbenchScreen
-from fieldcomp.tui.session import EditRejectedError, JobSession, default_state_dir
+from fieldcomp.tui.recovery import default_state_dir
+from fieldcomp.tui.session import EditRejectedError, JobSession
 
 THEMES = {
     "light": Theme(name="fieldcomp-light", dark=False, primary="#1D5A85", secondary="#56646F", accent="#A8561C",
