@@ -122,8 +122,9 @@ def repair_sheet(job_name: str, date: str, before: AsBuiltResult, repair: Repair
 
 def field_layout(beam: BeamInput) -> tuple[StudLayout, str]:
     """The studs findings apply to, and which they are: the as-detailed layout of the shop drawings
-    where the job gives it (engine.field.detailed), else fieldcomp's own (engine.studs.design)."""
-    grid = design_layout(beam).layout
+    where the job gives it (engine.field.detailed), else fieldcomp's own (engine.studs.design; the
+    layout only, so what would close a shortfall is not searched for)."""
+    grid = design_layout(beam, suggest=False).layout
     if beam.detailed:
         return detailed_layout(beam, grid, beam.detailed), SOURCE_DETAILED
     return grid, SOURCE_FIELDCOMP

@@ -117,7 +117,7 @@ class CamberOutcome:
 
 
 def camber_outcome(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: StagedRun,
-                   camber: float, case: str) -> CamberOutcome:
+                   camber: float, case: str, stiffness: str = "bare steel") -> CamberOutcome:
     """Outcome at midspan for a delivered camber.
     Definitions of this tool; stud cover minimum AISC 360-22 I3.2c.1(b).
 
@@ -151,7 +151,7 @@ def camber_outcome(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: 
     elif cover < STUD_COVER_MIN - 1e-9:
         warnings.append(f"stud cover {format_inches(cover)} at midspan is under the 1/2\" minimum "
                         "(AISC 360-22 I3.2c.1(b))")
-    return CamberOutcome(case, camber, final, top, thickness, cover, extra, tuple(warnings))
+    return CamberOutcome(case, camber, final, top, thickness, cover, extra, tuple(warnings), stiffness)
 
 
 Runs = tuple[StagedRun, StagedRun]  # the construction stage at cambers 0 and 1 (fields are linear in camber)
@@ -175,7 +175,7 @@ def outcome_envelope(beam: BeamInput, plan: PourPlan, bare: Runs, cured: Runs | 
     if measured is not None:
         cases.append((measured, f"measured {format_inches(measured)}"))
     bounds = [(bare, BARE)] + ([(cured, CURED)] if cured is not None else [])
-    return tuple(replace(camber_outcome(beam, plan, runs[0], runs[1], camber, case), stiffness=label)
+    return tuple(camber_outcome(beam, plan, runs[0], runs[1], camber, case, label)
                  for camber, case in cases for runs, label in bounds)
 
 
@@ -203,6 +203,7 @@ def camber_options(beam: BeamInput, plan: PourPlan, bare: Runs, cured: Runs | No
              (decision.camber + step, "one increment more"), (0.0, "none")]
     seen: set[float] = set()
     out = []
+    unmeasured = replace(beam, construction=replace(beam.construction, measured_camber=None))
     for pick, label in picks:
         camber = round(pick, 6)
         if camber < 0.0 or camber in seen:
@@ -210,8 +211,7 @@ def camber_options(beam: BeamInput, plan: PourPlan, bare: Runs, cured: Runs | No
         seen.add(camber)
         tol = camber_tolerance(beam.span) if camber > 0.0 else 0.0
         trial = replace(decision, camber=camber, tolerance=tol)
-        results = outcome_envelope(replace(beam, construction=replace(beam.construction, measured_camber=None)),
-                                   plan, bare, cured, trial)
+        results = outcome_envelope(unmeasured, plan, bare, cured, trial)
         out.append(CamberOption(camber, label, min(o.stud_cover for o in results), min(o.thickness for o in results),
                                 min(o.top_of_slab for o in results), max(o.top_of_slab for o in results),
                                 max(o.extra_concrete for o in results)))

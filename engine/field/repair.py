@@ -23,8 +23,9 @@ from engine.codes.aisc360_22.i3_composite import DECK_ANCHOR_SPACING_MAX
 from engine.studs.detailing import spacing_checks, spacing_limits
 from engine.studs.evaluate import evaluate_studs
 from engine.field.as_built import AsBuiltResult, RibState, assess, slot_strength, state_layout
-from engine.model.inputs import BeamInput, Finding
+from engine.model.inputs import BeamInput, Finding, Method
 from engine.model.results import Level
+from engine.finished.basis import available_strength, composite_strength, finished_basis
 from engine.finished.slab_force import StudGroups, slab_force
 
 _TOL = 1e-9
@@ -87,15 +88,31 @@ def _gains(r: AsBuiltResult, state: RibState) -> list[np.ndarray]:
     return [steps[: room[k], k] for k in range(room.size)]
 
 
-def _flat_force(r: AsBuiltResult, t: float) -> tuple[np.ndarray, bool]:
-    """Evaluate the beam with C(x) = t at every station inside the span (two groups of t kip at
-    the supports): (flexure passes per station, the other stud-dependent checks pass)."""
+def _flat_groups(beam: BeamInput, t: float) -> StudGroups:
+    """Two groups of t kip at the supports: C(x) = t at every station inside the span."""
+    return StudGroups(np.array([0.0, beam.span]), np.array([1, 1]), np.array([t, t]))
+
+
+def _flat_flexure(r: AsBuiltResult, ts: np.ndarray) -> np.ndarray:
+    """Where flexure passes (trials x stations) with C(x) = t inside the span, every t of `ts` at
+    once: the arithmetic of the flexure check of `evaluate_studs` (slab force, plastic strength
+    for it, phi Mn or Mn / Omega against the demand; AISC 360-22 I3.2a, I3.2d.1) on a
+    (trials x stations) array, elementwise, so each row is that check's own result."""
     beam = r.beam
-    groups = StudGroups(np.array([0.0, beam.span]), np.array([1, 1]), np.array([t, t]))
+    basis = finished_basis(beam)
+    c = np.array([slab_force(basis.x, _flat_groups(beam, float(t)), basis.limits.cf)[0] for t in ts])
+    capacity = available_strength(beam, composite_strength(beam, basis.limits, c).mn)
+    demand = basis.demand.mu if beam.method == Method.LRFD else basis.demand.ma
+    return cast(np.ndarray, demand[None, :] <= capacity * (1.0 + _TOL))  # cast: numpy's stubs type comparisons as Any
+
+
+def _flat_others(r: AsBuiltResult, t: float) -> bool:
+    """Whether the stud-dependent checks other than flexure and the spacing pass with C(x) = t."""
+    beam = r.beam
+    groups = _flat_groups(beam, t)
     trial = evaluate_studs(beam, groups)
     geometric = {c.id for c in spacing_checks(beam, groups)[0]}
-    others = all(c.passed for c in trial.checks if c.id not in geometric and c.id != "flexure.composite")
-    return trial.demand <= trial.capacity * (1.0 + _TOL), others
+    return all(c.passed for c in trial.checks if c.id not in geometric and c.id != "flexure.composite")
 
 
 def slab_force_needed(r: AsBuiltResult, deficient: np.ndarray, levels: int = 32) -> np.ndarray | None:
@@ -103,29 +120,30 @@ def slab_force_needed(r: AsBuiltResult, deficient: np.ndarray, levels: int = 32)
     at the point of maximum moment also degree of composite and deflection. None when even C_f is
     not enough. `deficient` stations are resolved to C_f / 512, the others to C_f / 32.
 
-    Found with `evaluate_beam` itself (AISC 360-22 I3.2a, I3.2d.1, Commentary I3.2) on a grid of
-    flat slab forces; the value kept is the highest level that still fails, never overstating.
+    Found with the finished-beam evaluation itself (AISC 360-22 I3.2a, I3.2d.1, Commentary I3.2)
+    on a grid of flat slab forces, flexure for the whole grid at once (`_flat_flexure`); the value
+    kept is the highest level that still fails, never overstating. The other checks are
+    evaluated from the lowest level up to the first that passes them.
     """
     ts = np.linspace(0.0, r.result.cf, levels + 1)
-    rows = [_flat_force(r, float(t)) for t in ts]
-    flexure_ok = np.array([f for f, _ in rows])
-    others_ok = np.array([o for _, o in rows])
-    if not (flexure_ok[-1].all() and others_ok[-1]):
+    flexure_ok = _flat_flexure(r, ts)
+    if not (flexure_ok[-1].all() and _flat_others(r, float(ts[-1]))):
         return None
     first = np.argmax(flexure_ok, axis=0)
     need = np.where(first == 0, -1.0, ts[np.maximum(first - 1, 0)])
     for i in np.unique(first[deficient & (first > 0)]):
         here = deficient & (first == i)
-        for t in np.linspace(ts[i - 1], ts[i], 17)[1:-1]:
-            fails = here & ~_flat_force(r, float(t))[0]
+        finer = np.linspace(ts[i - 1], ts[i], 17)[1:-1]
+        for t, ok in zip(finer, _flat_flexure(r, finer)):
+            fails = here & ~ok
             need[fails] = np.maximum(need[fails], t)
-    j = int(np.argmax(others_ok))
+    j = next(i for i in range(ts.size) if _flat_others(r, float(ts[i])))  # the first level passing them
     serve = -1.0
     if j > 0:
         lo, hi = float(ts[j - 1]), float(ts[j])
         while hi - lo > 1e-3 * r.result.cf / levels:
             mid = 0.5 * (lo + hi)
-            lo, hi = (lo, mid) if _flat_force(r, mid)[1] else (mid, hi)
+            lo, hi = (lo, mid) if _flat_others(r, mid) else (mid, hi)
         serve = lo
     k = r.result.critical
     need[k] = max(need[k], serve)

@@ -43,7 +43,13 @@ def design_layout(beam: BeamInput, suggest: bool = True) -> LayoutResult:
     """Studs rib by rib for one beam: the drawings' count, or with `count = "design"` the fewest
     that give phi Mn >= Mu at every station; singles first, doubles nearest the ends, within
     the limits of AISC 360-22 I8.1, I8.2d and I3.2c.3 (engine.studs.placement). Computed once per
-    beam input (the finished-beam evaluation designs it too); arrays read-only."""
+    beam input (the finished-beam evaluation designs it too); arrays read-only.
+
+    What would close a shortfall is searched for only with `suggest` (for the views that show
+    it); the layout, its checks and its flags are the same without it, the shortfall text then
+    naming only what falls short."""
+    if suggest:
+        return _with_suggestions(beam, design_layout(beam, False))
     need = slab_force_needed(beam)
     slots = beam_slots(beam)
     total = beam.studs.count
@@ -69,7 +75,7 @@ def design_layout(beam: BeamInput, suggest: bool = True) -> LayoutResult:
                             "(project intent; strength is checked by AISC 360-22 I3.2a)",
                             intent, min(provided), "kip", station=need.x_max, kind="detailing",
                             authority=Authority.PROJECT, advisory=True))
-    text = shortfall(beam, need, slots, arr, layout, required, provided, suggest)
+    text = "; ".join(_problems(beam, need, slots, arr, layout, required, provided)) or None
     if text is not None:
         flags.append(Flag(SHORTFALL_CLAUSE, f"stud layout short: {text}"))
     for values in (layout.x, layout.count, layout.position, layout.qn, layout.max_count):
@@ -97,14 +103,14 @@ def envelope_misses(need: Need, layout: StudLayout) -> np.ndarray:
     return np.flatnonzero(~need.short & ((left < low) | (right < low)))
 
 
-def shortfall(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, layout: StudLayout,
-              required: float, provided: tuple[float, float], suggest: bool) -> str | None:
-    """What the placed studs fail to meet, and what would close it; None when all is met."""
-    problems = _problems(beam, need, slots, arr, layout, required, provided)
-    if not problems:
-        return None
-    options = closing_options(beam, need, slots, layout, required) if suggest else []
-    return "; ".join(problems) + (". Would close it: " + "; ".join(options) if options else "")
+def _with_suggestions(beam: BeamInput, placed: LayoutResult) -> LayoutResult:
+    """`placed` (designed without suggestions) with what would close its shortfall, if it has one."""
+    if placed.shortfall is None:
+        return placed
+    options = closing_options(beam, slab_force_needed(beam), beam_slots(beam), placed.layout, placed.required_sum_qn)
+    text = placed.shortfall + (". Would close it: " + "; ".join(options) if options else "")
+    flags = placed.flags[:-1] + (Flag(SHORTFALL_CLAUSE, f"stud layout short: {text}"),)  # the shortfall's flag is last
+    return replace(placed, shortfall=text, flags=flags)
 
 
 def _problems(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, layout: StudLayout,
@@ -159,14 +165,36 @@ def _meets_all(beam: BeamInput, need: Need, slots: Slots, arr: Arrangement, requ
     return min(float(left[0]), float(right[0])) >= required * (1.0 - _TOL)
 
 
+def cannot_close(need: Need, per_slot: np.ndarray, total: int) -> bool:
+    """True when `total` studs with these slot strengths cannot meet `need` wherever they are
+    placed, so a trial keeping them (other ribs, another stud count per rib) cannot help.
+
+    Proof: `slab_force` counts each stud group on one side of a station, or half on each, so
+    left(x) + right(x) is the studs' whole strength S; a slot of k studs gives per_slot[k] <= k q
+    with q = max_k per_slot[k] / k, so S <= total q. `envelope_misses` is empty only if left and
+    right reach `low` at every station not short, so only if 2 low <= S <= total q there; where
+    2 low exceeds total q (with a margin over rounding) the trial keeps a miss and its shortfall.
+    The need does not depend on the ribs or the stud position (engine.studs.placement:
+    demand and phi Mn(C), AISC 360-22 I3.2a, I3.2d.1, I8.2c).
+    """
+    k = np.arange(1, per_slot.size)
+    q = float((per_slot[1:] / k).max()) if k.size else 0.0
+    low = need.c_req - _TOL * np.maximum(need.c_req, 1.0)
+    return bool((~need.short & (2.0 * low > total * q * (1.0 + 1e-9) + 1e-9)).any())
+
+
 def closing_options(beam: BeamInput, need: Need, slots: Slots, layout: StudLayout, required: float) -> list[str]:
-    """Changes that would meet the requirement, each tried by placing the studs again."""
+    """Changes that would meet the requirement, each tried by placing the studs again; a trial
+    keeping the drawings' count is skipped where `cannot_close` shows it cannot help."""
     options: list[str] = []
     if need.short.any():
         return ["a heavier shape (no stud count reaches phi Mn >= Mu)"]
     total = beam.studs.count
+    hopeless = total is not None and cannot_close(need, slots.per_slot, total)
     if total is not None:
         for more in range(total + 1, int(slots.cap.sum()) + 1):
+            if cannot_close(need, slots.per_slot, more):
+                continue
             if _meets_all(beam, need, slots, arrange(beam, need, slots, more), required):
                 options.append(f"{more} studs instead of {total} (EOR to revise the count)")
                 break
@@ -177,7 +205,7 @@ def closing_options(beam: BeamInput, need: Need, slots: Slots, layout: StudLayou
     if beam.deck_case == DeckCase.PERPENDICULAR and beam.slab.deck is not None:
         pitch = beam.slab.deck.pitch
         now = beam.ribs.first_rib if beam.ribs.first_rib is not None else 0.5 * pitch
-        for k in range(1, 16):
+        for k in range(1, 16) if not hopeless else ():
             first = round(now + k * pitch / 16.0, 4) % pitch or pitch
             trial = replace(beam, ribs=replace(beam.ribs, first_rib=first))
             if design_layout(trial, suggest=False).shortfall is None:
@@ -186,10 +214,11 @@ def closing_options(beam: BeamInput, need: Need, slots: Slots, layout: StudLayou
                 break
         if beam.studs.position == "weak":
             trial = replace(beam, studs=replace(beam.studs, position="strong"))
-            if design_layout(trial, suggest=False).shortfall is None:
+            if not (total is not None and cannot_close(need, beam_slots(trial).per_slot, total)) and design_layout(
+                    trial, suggest=False).shortfall is None:
                 options.append("studs on the strong side of each rib (R_p 0.75, AISC 360-22 I8.2a), if the "
                                "deck's stiffener allows and the installer is told which side")
-    if beam.studs.max_per_rib < studs_across(replace(beam, studs=replace(beam.studs, max_per_rib=3))):
+    if not hopeless and beam.studs.max_per_rib < studs_across(replace(beam, studs=replace(beam.studs, max_per_rib=3))):
         trial = replace(beam, studs=replace(beam.studs, max_per_rib=beam.studs.max_per_rib + 1))
         if design_layout(trial, suggest=False).shortfall is None:
             options.append(f"allowing {beam.studs.max_per_rib + 1} studs per rib (job limit)")

@@ -23,34 +23,35 @@ def register(sub) -> None:
     add_issue_options(c, with_date=True)
 
 
-def camber_beam(beam, as_json: bool) -> tuple[str | None, bool, str, list, str]:
-    """(input error or None, whether the construction stage fails, the beam's schedule line, its
-    CSV rows, its report: a JSON list item or text) for one beam; run in worker processes for
-    large jobs."""
+def camber_beam(beam, as_json: bool, keep: bool = True) -> tuple[str | None, str, object, str]:
+    """(input error or None, the construction stage's verdict, its result (None unless `keep`),
+    its report: a JSON list item or text) for one beam; run in worker processes for large jobs."""
     from engine.construction.evaluate import evaluate_construction
     from engine.model.units import format_ft_in
     from fieldcomp.cli.parallel import json_item
     from fieldcomp.jobs.jobfile import JobFileError
-    from fieldcomp.views.construction_report import construction_json, construction_text, csv_rows, schedule_text
+    from fieldcomp.views.construction_report import construction_json, construction_text
 
     try:
         r = evaluate_construction(beam)
     except (JobFileError, ValueError) as exc:
-        return str(exc), "fail", "", [], ""
-    line = schedule_text([r]).split("\n", 2)[2]  # below the table head
-    rows = csv_rows([r])[1:-1]  # below the header row, above the caution row
+        return str(exc), "fail", None, ""
+    kept = r if keep else None
     if as_json:
-        return None, str(r.verdict), line, rows, json_item(construction_json(r))
+        return None, str(r.verdict), kept, json_item(construction_json(r))
     text = f"Beam {r.beam.mark}: {r.beam.shape.name}, span {format_ft_in(r.beam.span)}, {r.beam.method}\n"
-    return None, str(r.verdict), line, rows, text + construction_text(r)
+    return None, str(r.verdict), kept, text + construction_text(r)
 
 
 def run(args: argparse.Namespace) -> int:
     import csv
     import io
+    import sys
+    from dataclasses import replace
 
+    from engine.batch import relabel, repeats
     from fieldcomp.cli.outputs import write_output
-    from fieldcomp.cli.parallel import json_with_list, map_beams
+    from fieldcomp.cli.parallel import MARK_STAND_IN, map_beams, relabel_report, write_json_with_list
     from fieldcomp.jobs.jobfile import JobFileError
     from fieldcomp.views.finished_report import caution_block
     from fieldcomp.views.construction_report import csv_rows, schedule_text
@@ -59,15 +60,21 @@ def run(args: argparse.Namespace) -> int:
         job, beams = load_inputs(args.job, args.beam)
     except (JobFileError, ValueError) as exc:
         return fail_input(exc)
-    done = map_beams(partial(camber_beam, as_json=args.json), beams)
-    error = next((d[0] for d in done if d[0] is not None), None)
+    types, which = repeats(beams)  # each beam type computed once, under a stand-in mark
+    keep = bool(args.csv) or not args.json  # the schedule lines and CSV rows are made from the results
+    stand_ins = [replace(b, mark=MARK_STAND_IN) for b in types]
+    done = map_beams(partial(camber_beam, as_json=args.json, keep=keep), stand_ins, pooled=False)  # see map_beams
+    error = next((relabel_report(d[0], types[k].mark, False) for k, d in enumerate(done) if d[0] is not None), None)
     if error is not None:
         return fail_input(ValueError(error))
-    verdicts = [d[1] for d in done]
+    verdicts = [done[k][1] for k in which]
+    results = (relabel(done[k][2], b.mark) for b, k in zip(beams, which))
+    reports = (relabel_report(done[k][3], b.mark, args.json) for b, k in zip(beams, which))
     if args.csv:
         sheet = io.StringIO()
         head, caution = csv_rows([])
-        csv.writer(sheet).writerows([head] + [row for d in done for row in d[3]] + [caution])
+        rows = [row for r in results for row in csv_rows([r])[1:-1]]  # below the header row, above the caution row
+        csv.writer(sheet).writerows([head, *rows, caution])
         try:
             write_output(args.csv, sheet.getvalue(), [args.job])
         except OSError as exc:
@@ -80,15 +87,16 @@ def run(args: argparse.Namespace) -> int:
         except OSError as exc:
             return fail_output(exc, args.pdf or args.order_csv)
     if args.json:
-        print(json_with_list({"job": job.project.name, "caution": CAUTION}, "beams", [d[4] for d in done]))
+        write_json_with_list(sys.stdout, {"job": job.project.name, "caution": CAUTION}, "beams", reports)
     else:
         print(f"fieldcomp {__version__} - camber schedule - job '{job.project.name}' ({args.job})")
         print(caution_block())
         print()
-        print("\n".join([schedule_text([])] + [d[2] for d in done]))
-        for d in done:
+        lines = (schedule_text([relabel(done[k][2], b.mark)]).split("\n", 2)[2] for b, k in zip(beams, which))
+        print("\n".join([schedule_text([]), *lines]))  # each beam's line below the table head
+        for report in reports:
             print()
-            print(d[4])
+            print(report)
         print()
         print("construction stage, " + tally([b.mark for b in beams], verdicts))
         if args.csv:

@@ -41,7 +41,11 @@ def check_beam(beam, as_json: bool) -> tuple[str | None, str, str]:
 
 
 def run(args: argparse.Namespace) -> int:
-    from fieldcomp.cli.parallel import json_with_list, map_beams
+    import sys
+    from dataclasses import replace
+
+    from engine.batch import repeats
+    from fieldcomp.cli.parallel import MARK_STAND_IN, map_beams, relabel_report, write_json_with_list
     from fieldcomp.jobs.jobfile import JobFileError
     from fieldcomp.views.finished_report import caution_block, not_checked_json, scope_block
 
@@ -49,11 +53,13 @@ def run(args: argparse.Namespace) -> int:
         job, beams = load_inputs(args.job, args.beam)
     except (JobFileError, ValueError) as exc:
         return fail_input(exc)
-    done = map_beams(partial(check_beam, as_json=args.json), beams)
-    error = next((e for e, _, _ in done if e is not None), None)
+    types, which = repeats(beams)  # each beam type computed once, under a stand-in mark
+    done = map_beams(partial(check_beam, as_json=args.json), [replace(b, mark=MARK_STAND_IN) for b in types])
+    error = next((relabel_report(e, types[k].mark, False) for k, (e, _, _) in enumerate(done) if e is not None), None)
     if error is not None:
         return fail_input(ValueError(error))
-    verdicts = [v for _, v, _ in done]
+    verdicts = [done[k][1] for k in which]
+    reports = (relabel_report(done[k][2], b.mark, args.json) for b, k in zip(beams, which))
     if args.pdf:
         from fieldcomp.cli.outputs import calc_package
 
@@ -63,11 +69,11 @@ def run(args: argparse.Namespace) -> int:
             return fail_output(exc, args.pdf)
     if args.json:
         head = {"job": job.project.name, "caution": CAUTION, "not_checked": not_checked_json()}
-        print(json_with_list(head, "beams", [report for _, _, report in done]))
+        write_json_with_list(sys.stdout, head, "beams", reports)
     else:
         print(f"fieldcomp {__version__} - job '{job.project.name}' ({args.job})")
         print(caution_block())
-        for _, _, report in done:
+        for report in reports:
             print()
             print(report)
         print()

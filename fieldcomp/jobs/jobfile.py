@@ -286,23 +286,28 @@ def _hint(word: str, choices: list[str]) -> str:
 
 
 def _check_references(job: Job, path: str | os.PathLike[str]) -> None:
+    """Duplicate ids and marks, and slabs and beams naming an id that is not there: one pass over
+    each table with sets (linear in the job's size)."""
     problems: list[tuple[str, str]] = []
     decks = [d.id for d in job.deck]
     slabs = [s.id for s in job.slab]
+    deck_ids, slab_ids = set(decks), set(slabs)
     for table, ids in (("deck", decks), ("slab", slabs)):
+        seen: set[str] = set()
         for i, name in enumerate(ids):
-            if name in ids[:i]:
+            if name in seen:
                 problems.append((f"{table} '{shown(name)}' #{i + 1}, field 'id'", "duplicate id"))
+            seen.add(name)
     for i, s in enumerate(job.slab):
-        if s.deck is not None and s.deck not in decks:
+        if s.deck is not None and s.deck not in deck_ids:
             problems.append((f"slab '{shown(s.id)}' #{i + 1}, field 'deck'",
                              f"no deck with id {_short(s.deck)}" + _hint(s.deck, decks)))
-    marks: list[str] = []
+    marks: set[str] = set()
     for i, b in enumerate(job.beam):
         if b.mark in marks:
             problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'mark'", "duplicate beam mark"))
-        marks.append(b.mark)
-        if b.slab not in slabs:
+        marks.add(b.mark)
+        if b.slab not in slab_ids:
             problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'slab'",
                              f"no slab with id {_short(b.slab)}" + _hint(b.slab, slabs)))
     for i, b in enumerate(job.beam):

@@ -18,6 +18,8 @@ _NON_PRINTING = {"Cc", "Cf", "Zl", "Zp", "Cs"}  # controls (ESC, NUL, tab), bidi
 
 def _printable(text: str) -> str:
     """Text fields hold printable text: no control, format or line-break character."""
+    if text.isprintable():  # refuses every category of _NON_PRINTING (and some it allows, looked at below)
+        return text
     for i, ch in enumerate(text):
         if unicodedata.category(ch) in _NON_PRINTING:
             raise ValueError(f"holds a non-printing character (U+{ord(ch):04X}) at character {i + 1}; "

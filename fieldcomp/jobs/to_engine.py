@@ -166,6 +166,8 @@ def _iso_or_blank(text: str) -> str:
     """A report date the engine can compare with the pour dates (YYYY-MM-DD), else "" (timing unknown)."""
     import datetime
 
+    if not text.strip():  # most findings give no date
+        return ""
     try:
         return datetime.date.fromisoformat(text.strip()).isoformat()
     except ValueError:

@@ -127,3 +127,19 @@ def test_failing_design_is_sent_back_to_the_engineer():
     before = evaluate_as_built(beam, designed, (Finding("missing", rib=1),))
     repair = find_repair(before)
     assert not repair.restores and "as designed already fails" in repair.alternatives[0]
+
+
+def test_flat_flexure_rows_are_the_flexure_check_of_each_level():
+    # the repair's grid of flat slab forces, flexure for every level at once, against the
+    # finished-beam evaluation of each level alone (engine.studs.evaluate, AISC 360-22 I3.2a)
+    from engine.field.repair import _flat_flexure, _flat_groups
+    from engine.studs.evaluate import evaluate_studs
+
+    beam = make_beam(100.0, "W18X35")
+    before = evaluate_as_built(beam, make_layout(beam, PATTERN), REPORT)
+    ts = np.linspace(0.0, before.result.cf, 33)
+    rows = _flat_flexure(before, ts)
+    for t, row in zip(ts, rows):
+        alone = evaluate_studs(before.beam, _flat_groups(before.beam, float(t)))
+        assert (row == (alone.demand <= alone.capacity * (1.0 + 1e-9))).all()
+    assert not rows[0].all() and rows[-1].all()  # bare steel short of the demand, full composite enough
