@@ -21,6 +21,7 @@ from fieldcomp.tui.widgets.pane_base import ROW_KEYS, Pane
 from fieldcomp.tui.widgets.plot import Series, TerminalPlot
 from fieldcomp.tui.widgets.row_editor import RowEditor
 from fieldcomp.tui.widgets.strip import StripMark, StudStrip, legend
+from fieldcomp.tui.widgets.verdict import word
 from fieldcomp.views.numbers import ratio_text
 
 FINDING_FIELDS = (
@@ -129,8 +130,7 @@ class FindingsPane(Pane):
             return
         b, r, gov = ab.beam, ab.result, ab.governing
         low, at = ab.min_strength_ratio
-        word = Text(" PASS ", style="bold reverse green") if ab.verdict == "pass" else Text(" FAIL ", style="bold reverse red")
-        verdict.update(Text.assemble("As built: ", word, f"  governing: {gov.name}, ratio {ratio_text(gov.ratio)};  "
+        verdict.update(Text.assemble("As built: ", word(str(ab.verdict), badge=True), f"  governing: {gov.name}, ratio {ratio_text(gov.ratio)};  "
                                      f"least capacity / demand {ratio_text(low)} at {station(at)};  "
                                      f"{ab.layout.total} working studs of {ab.designed.total} designed"))
         repair = outcome.repair.value if outcome.repair is not None else None
@@ -154,8 +154,8 @@ class FindingsPane(Pane):
     def _repair_text(outcome: BeamOutcome, ab, repair) -> Text:
         from engine.studs.ribs import printed_station
 
-        if ab.verdict == "pass":
-            return Text("No repair needed: every check passes as built.", style="green")
+        if ab.verdict != "fail":
+            return Text("No repair needed: no check fails as built.", style="green")
         if outcome.repair is None:
             return Text("Finding the fewest studs to add ...", style="italic")
         if repair is None:
@@ -172,7 +172,7 @@ class FindingsPane(Pane):
                 out.append(f"  rib {k + 1} at {at} from {b.ribs.reference_end}: "
                            f"add {int(repair.added[k])}\n")
             after = repair.after
-            out.append(f"  after repair: {after.verdict.upper()}, governing {after.governing.name} "
+            out.append(f"  after repair: {after.verdict}, governing {after.governing.name} "
                        f"{ratio_text(after.governing.ratio)}\n")
         for alt in repair.alternatives:
             out.append(f"  option: {alt}\n", style="yellow")
