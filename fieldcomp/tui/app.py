@@ -8,6 +8,7 @@ changes on disk; unsaved edits are kept in a recovery file that the next start o
 from __future__ import annotations
 
 import datetime
+import gc
 import time
 from functools import partial
 from pathlib import Path
@@ -76,6 +77,7 @@ class FieldcompApp(FileActions, App[None]):
     def __init__(self, session: JobSession, *, state_dir: Path | None = None, theme: str = "dark",
                  date: str | None = None) -> None:
         """`date`: printed on marks sheets (default: today, YYYY-MM-DD)."""
+        gc.freeze()  # the loaded job lives as long as the app: the collector need not walk it again
         super().__init__()
         self.session = session
         self.state_dir = state_dir if state_dir is not None else default_state_dir()
@@ -86,6 +88,7 @@ class FieldcompApp(FileActions, App[None]):
         self.selected = 0
         self.redraw_ms: list[float] = []  # edit accepted -> every pane redrawn, per edit
         self.repair_ms: list[float] = []  # edit accepted -> the repair of the selected beam shown
+        self.switch_ms: list[float] = []  # another beam selected -> its panes redrawn
         self._disk_warned = False
         for look in THEMES.values():
             self.register_theme(look)
@@ -230,12 +233,14 @@ class FieldcompApp(FileActions, App[None]):
     def select_beam(self, index: int) -> None:
         """Show another beam: its outcome now (computed here if the worker has not reached it),
         its sheets and repair from a worker."""
+        started = time.perf_counter()
         self.selected = max(0, min(index, len(self.session.job.beam) - 1))
         if self.selected < len(self.outcomes) and self.outcomes[self.selected] is None:
             beam = self._inputs[self.selected]
             self.outcomes[self.selected] = self.cache.get(beam, self.session.job.project.name, self.date)
         self.workbench.show_job(self.session, self.selected)
         self.show_outcomes(changed=[self.selected])
+        self.call_after_refresh(lambda: self.switch_ms.append((time.perf_counter() - started) * 1000.0))
         outcome = self.outcomes[self.selected] if self.selected < len(self.outcomes) else None
         if outcome is not None and not outcome.finished_all:
             self.finish_selected(self.session.version, self.selected, outcome)

@@ -144,9 +144,9 @@ class WorkbenchScreen(Screen[None]):
     def on_resize(self) -> None:
         self._beams_layout(self.size.width)
 
-    def on_data_table_row_selected(self, event: BeamList.RowSelected) -> None:
+    def on_beam_list_picked(self, event: BeamList.Picked) -> None:
         """Enter in the beam list: on a narrow screen the list gives the panes back."""
-        if isinstance(event.data_table, BeamList) and self.has_class("-narrow"):
+        if self.has_class("-narrow"):
             event.stop()
             self._beams_layout(self.size.width, True)
             self.active_pane().focus()

@@ -86,8 +86,16 @@ class FieldForm(Vertical):
         yield Static("", classes="form--problem")
 
     def on_resize(self, event: events.Resize) -> None:
+        self._fit(event.size.width)
+
+    def on_show(self) -> None:
+        self.call_after_refresh(lambda: self._fit(self.size.width))
+
+    def _fit(self, width: int) -> None:
         """As many label-field columns as keep each field readable."""
-        columns = max(1, min(self.columns, event.size.width // CELL_WIDTH))
+        if width <= 0:
+            return
+        columns = max(1, min(self.columns, width // CELL_WIDTH))
         grid = self.query_one(Grid)
         if grid.styles.grid_size_columns != 2 * columns:
             grid.styles.grid_size_columns = 2 * columns

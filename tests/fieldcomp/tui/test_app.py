@@ -166,7 +166,7 @@ def test_add_a_finding_flips_the_verdict_and_a_repair_appears(tmp_path):
             assert repair is not None and repair.total >= 1 and repair.after.verdict == "pass"
             text = str(app.workbench.query_one("#findings-repair", Static).render())
             assert f"add {repair.total} stud(s)" in text
-            row = [str(cell) for cell in app.workbench.query_one("#beams").get_row_at(0)]
+            row = app.workbench.query_one("#beams").row_cells(0)
             assert row[0] == "3B-101" and row[3].startswith("fail")  # the as-built column
     run(flow())
 
