@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import datetime
 import gc
+import sys
 import time
 from functools import partial
 from pathlib import Path
@@ -20,6 +21,7 @@ from textual.app import App
 from textual.notifications import SeverityLevel
 from textual.binding import Binding
 from textual.theme import Theme
+from textual.timer import Timer
 
 from engine.model.inputs import BeamInput
 from engine.model.text import printable_lines
@@ -45,6 +47,9 @@ THEMES = {
 }
 DISK_POLL_SECONDS = 2.0
 BATCH_SECONDS = 0.1  # a worker sends the results it has at most this often (one update of the panes each)
+YIELD_SECONDS = 0.05  # a worker pauses this long after the edited beam's result, so the panes redraw first
+RECOVERY_DELAY = 1.0  # the recovery file is written once edits pause this long
+SWITCH_INTERVAL = 0.001  # s: the interface thread gets the interpreter back this soon from a worker
 # Actions offered only in the command palette (no key of their own).
 PALETTE_ONLY = (
     ("New job from the starter", "Start an untitled job from fieldcomp/jobs/starter.toml.", "new_job"),
@@ -78,6 +83,7 @@ class FieldcompApp(FileActions, App[None]):
                  date: str | None = None) -> None:
         """`date`: printed on marks sheets (default: today, YYYY-MM-DD)."""
         gc.freeze()  # the loaded job lives as long as the app: the collector need not walk it again
+        sys.setswitchinterval(SWITCH_INTERVAL)  # keys and redraws wait less behind a computing worker
         super().__init__()
         self.session = session
         self.state_dir = state_dir if state_dir is not None else default_state_dir()
@@ -90,6 +96,7 @@ class FieldcompApp(FileActions, App[None]):
         self.repair_ms: list[float] = []  # edit accepted -> the repair of the selected beam shown
         self.switch_ms: list[float] = []  # another beam selected -> its panes redrawn
         self._disk_warned = False
+        self._recovery_timer: Timer | None = None
         for look in THEMES.values():
             self.register_theme(look)
         self.theme = THEMES[theme].name  # before mount: the CSS is computed once
@@ -102,6 +109,9 @@ class FieldcompApp(FileActions, App[None]):
         """Called by the workbench once its panes are mounted: first show, then any recovery."""
         self.job_changed(time.perf_counter())
         self.offer_recovery()
+
+    def _showing(self) -> bool:
+        return any(isinstance(s, WorkbenchScreen) for s in self.screen_stack)
 
     @property
     def workbench(self) -> WorkbenchScreen:
@@ -146,12 +156,13 @@ class FieldcompApp(FileActions, App[None]):
             self.notify(str(exc), title="Not computed", severity="error")
             return
         known = {id(o.beam_in): o for o in self.outcomes if o is not None}
+        had = {k for k, o in enumerate(self.outcomes) if o is not None} if len(inputs) == len(self.outcomes) else set()
         self.outcomes = [known.get(id(b)) for b in inputs]
         self._inputs = inputs
         todo = [k for k, o in enumerate(self.outcomes) if o is None]
-        todo.sort(key=lambda k: k != self.selected)
+        todo.sort(key=lambda k: (k != self.selected, k not in had))  # the selected, then the edited beams
         self.workbench.show_job(self.session, self.selected)
-        self.show_outcomes(changed=None)
+        self.show_outcomes(changed=todo if had else None)  # the rows of the beams to recompute say so
         version = self.session.version
         if todo:
             self.recompute(version, [(k, inputs[k]) for k in todo], list(self.outcomes), started)
@@ -177,6 +188,7 @@ class FieldcompApp(FileActions, App[None]):
                 batch, sent = [], time.perf_counter()
         if batch:
             self.post_message(ResultsReady(version, batch, started))
+        time.sleep(YIELD_SECONDS)  # the panes redraw before the second pass takes the interpreter
         pending = [k for k, o in enumerate(known) if o is not None and not o.finished_all]
         pending.sort(key=lambda k: k != self.selected)
         for n, k in enumerate(pending):
@@ -191,8 +203,8 @@ class FieldcompApp(FileActions, App[None]):
             self.post_message(OutcomeFinished(version, batch, started))
 
     def on_results_ready(self, message: ResultsReady) -> None:
-        if message.version != self.session.version:
-            return  # a later edit is on its way
+        if message.version != self.session.version or not self._showing():
+            return  # a later edit is on its way, or the app is closing
         for k, outcome in message.updates:
             self.outcomes[k] = outcome
         self.show_outcomes(changed=[k for k, _ in message.updates])
@@ -203,10 +215,17 @@ class FieldcompApp(FileActions, App[None]):
         """The selected beam's panes are on screen: log the time, keep the recovery file."""
         self.redraw_ms.append((time.perf_counter() - started) * 1000.0)
         if version == self.session.version:
-            self.keep_recovery(self.session.job if self.session.dirty else None)
+            if self._recovery_timer is not None:
+                self._recovery_timer.stop()
+            self._recovery_timer = self.set_timer(RECOVERY_DELAY, self._keep_recovery_now)
+
+    def _keep_recovery_now(self) -> None:
+        """Write the recovery file once edits pause (writing a large job takes the interpreter)."""
+        self._recovery_timer = None
+        self.keep_recovery(self.session.job if self.session.dirty else None)
 
     def on_outcome_finished(self, message: OutcomeFinished) -> None:
-        if message.version != self.session.version:
+        if message.version != self.session.version or not self._showing():
             return
         for k, outcome in message.updates:
             if k < len(self.outcomes):

@@ -66,6 +66,7 @@ class FieldForm(Vertical):
         self.filling = False  # values set from the job are valid: no need to ask the loader
         self.typed: set[str] = set()  # ids of inputs holding text typed and not yet applied
         self._timer: Timer | None = None
+        self._problem_shown = ""
 
     def compose(self) -> ComposeResult:
         with Grid() as grid:
@@ -143,7 +144,10 @@ class FieldForm(Vertical):
         return True
 
     def _problem(self, text: str) -> None:
-        self.query_one(".form--problem", Static).update(plain(text))
+        """Show the loader's message (an unchanged line is not redrawn: the layout stays put)."""
+        if text != self._problem_shown:
+            self._problem_shown = text
+            self.query_one(".form--problem", Static).update(plain(text))
 
     def _path(self, widget_id: str | None) -> Path_ | None:
         spec = self.by_id.get(widget_id or "")
