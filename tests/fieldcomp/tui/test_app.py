@@ -14,7 +14,7 @@ from pathlib import Path
 from textual.widgets import Input, Static
 
 from engine.construction.evaluate import evaluate_construction
-from fieldcomp.tui.app import FieldcompApp
+from fieldcomp.tui.app import RECOVERY_DELAY, FieldcompApp
 from fieldcomp.jobs.jobfile import load_job, parse_job
 from fieldcomp.tui.dialogs import Choice
 from fieldcomp.tui.screens.help import HelpScreen
@@ -219,6 +219,8 @@ def test_a_recovery_file_is_offered_after_a_crash(tmp_path):
             await settle(pilot, first)
             await type_into(pilot, first, "#beam-form #superimposed_dead_psf", "45")
             edited = first.session.job
+            await pilot.pause(RECOVERY_DELAY + 0.3)  # written once the edits pause
+            await settle(pilot, first)
             assert recovery_path(tmp_path / "state", path).exists()
             first.exit()  # a crash: the unsaved-edits guard never runs
         assert load_job(path).job != edited
