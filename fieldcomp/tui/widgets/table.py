@@ -7,7 +7,10 @@ from __future__ import annotations
 from rich.table import Table as RichTable
 from rich.text import Text
 from textual.coordinate import Coordinate
-from textual.widgets import DataTable, Static
+from textual.geometry import Size
+from textual.strip import Strip
+from textual.widget import Widget
+from textual.widgets import DataTable
 
 from engine.model.text import printable
 
@@ -17,9 +20,10 @@ def cell_text(cell: object) -> Text:
     return cell if isinstance(cell, Text) else Text(printable(cell), end="")
 
 
-class TextTable(Static):
+class TextTable(Widget):
     """Columns given at creation; `keep` names the columns never wrapped (short words and numbers),
-    the others wrap at spaces (and fold inside a word longer than the column)."""
+    the others wrap at spaces (and fold inside a word longer than the column). Drawn once per
+    set of rows and width, then line by line from that drawing."""
 
     DEFAULT_CSS = "TextTable { height: auto; width: 1fr; }"
 
@@ -27,6 +31,8 @@ class TextTable(Static):
         super().__init__(id=id)
         self.columns_wanted, self.keep = columns, keep
         self.shown: list[tuple] | None = None
+        self._table: RichTable | None = None
+        self._drawn: tuple[int, list[Strip]] | None = None
 
     def set_rows(self, rows: list[tuple]) -> None:
         """Show `rows`; nothing is redrawn when they are the rows already shown."""
@@ -40,7 +46,31 @@ class TextTable(Static):
             table.add_column(name, no_wrap=fixed, overflow="fold" if not fixed else "ellipsis")
         for row in rows:
             table.add_row(*(cell_text(c) for c in row))
-        self.update(table if rows else "")
+        self._table = table if rows else None
+        self._drawn = None
+        self.refresh(layout=True)
+
+    def notify_style_update(self) -> None:
+        super().notify_style_update()
+        self._drawn = None
+
+    def _strips(self, width: int) -> list[Strip]:
+        if self._table is None or width <= 0:
+            return []
+        if self._drawn is None or self._drawn[0] != width:
+            console = self.app.console
+            lines = console.render_lines(self._table, console.options.update(width=width, highlight=False), pad=True)
+            self._drawn = (width, [Strip(line) for line in lines])
+        return self._drawn[1]
+
+    def get_content_height(self, container: Size, viewport: Size, width: int) -> int:
+        return len(self._strips(width))
+
+    def render_line(self, y: int) -> Strip:
+        strips = self._strips(self.size.width)
+        if y >= len(strips):
+            return Strip.blank(self.size.width, self.rich_style)
+        return strips[y].apply_style(self.rich_style)
 
 
 class Table(DataTable):
