@@ -7,6 +7,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
+from engine.construction.camber import CamberDecision
 from engine.construction.evaluate import ConstructionResult, evaluate_construction
 from engine.field.as_built import AsBuiltResult, evaluate_as_built, finding_slot
 from engine.field.detailed import SOURCE_DETAILED, SOURCE_FIELDCOMP, detailed_layout
@@ -23,7 +24,8 @@ from engine.studs.detailing import DECK_ANCHOR_CLAUSE, deck_checks
 from engine.studs.evaluate import evaluate_studs
 from engine.studs.layout import LayoutResult, StudLayout
 from engine.studs.ribs import printed_station
-from engine.studs.sheet_data import Envelope, SheetData
+from engine.studs.sheet_data import Envelope, SheetData, anchor_ribs
+from engine.studs.stud_lengths import StudLengths, stud_lengths
 
 
 def as_poured(beam: BeamInput) -> tuple[BeamInput, ConstructionResult]:
@@ -52,7 +54,11 @@ def marks_sheet(job_name: str, beam: BeamInput, date: str, caution: str) -> tupl
     engine.studs.design evaluated with its own studs (AISC 360-22 I3.2a, I8.2c). The sheet lists
     deck anchors and the shortfall itself, so those flags are not repeated in its notes. A level
     screed's ponded concrete is part of the dead load the studs are laid out for (`as_poured`)."""
-    beam = as_poured(beam)[0]
+    return _marks_sheet(job_name, as_poured(beam)[0], date, caution)
+
+
+def _marks_sheet(job_name: str, beam: BeamInput, date: str, caution: str) -> tuple[SheetData, LayoutResult, Check]:
+    """`marks_sheet` of a beam already `as_poured`."""
     placed = design_layout(beam)
     result = evaluate_studs(beam, placed.layout.groups())
     flexure = result.check("flexure.composite")
@@ -64,6 +70,28 @@ def marks_sheet(job_name: str, beam: BeamInput, date: str, caution: str) -> tupl
                       required_sum_qn=placed.required_sum_qn, checks=(flexure, composite) + placed.checks,
                       notes=notes, envelope=Envelope(result.x, result.demand, result.capacity))
     return sheet, placed, flexure
+
+
+@dataclass(frozen=True, slots=True)
+class ErectorSheet:
+    """The crew's stud sheet of one beam: the marks (`sheet`, `layout`, `flexure` as `marks_sheet`),
+    the piece's camber as ordered with its shop tolerance (engine.construction.camber, AISC 303-16
+    6.4.4), the stud lengths before and after welding (engine.studs.stud_lengths) and the ribs
+    needing a deck weld (`deck_weld_ribs`, 1-based; AISC 360-22 I3.2c.1(d), `anchor_ribs`)."""
+
+    sheet: SheetData
+    layout: LayoutResult
+    flexure: Check
+    camber: CamberDecision
+    lengths: StudLengths
+    deck_weld_ribs: tuple[int, ...]
+
+
+def erector_sheet(job_name: str, beam: BeamInput, date: str, caution: str) -> ErectorSheet:
+    """`marks_sheet` with the camber of the piece, the stud lengths and the deck-weld ribs."""
+    poured, construction = as_poured(beam)
+    sheet, placed, flexure = _marks_sheet(job_name, poured, date, caution)
+    return ErectorSheet(sheet, placed, flexure, construction.camber, stud_lengths(poured), tuple(anchor_ribs(sheet)))
 
 
 def _ratio(ratio: float) -> str:

@@ -52,3 +52,12 @@ FY_KSI = 50.0
 # Type B studs, F_u = 65 ksi, from memory; the usual 3/4 in stud).
 STUD_FU_KSI = 65.0
 STUD_DIAMETER = 0.75  # in
+
+# Stud burn-off: the length a headed stud loses in drawn-arc welding (engine.studs.stud_lengths).
+# Common practice, as a stud supplier publishes approximate reductions (Fraser Molloy, "Arc Stud
+# Burn Off"): welded to bare steel 1/8 in for 1/2 in diameter and under, 3/16 in for 5/8 to 7/8 in,
+# 1/4 in for 1 in and over; welded through metal deck 3/8 in (published for 3/4 in studs, used here
+# for every diameter through deck). AWS D1.1 Clause 9 sets stud dimensions before welding, not the
+# burn-off (from memory). Verify with the stud supplier for the deck and welding set-up.
+STUD_BURN_OFF_BARE = ((0.5, 0.125), (0.875, 0.1875), (float("inf"), 0.25))  # (largest diameter, in)
+STUD_BURN_OFF_THROUGH_DECK = 0.375  # in

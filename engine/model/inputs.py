@@ -215,6 +215,11 @@ class BeamInput:
         return self.slab_left + self.slab_right
 
     @property
+    def steel_length(self) -> float:
+        """Length of the piece (in): the span between work points less the end setback at each end."""
+        return self.span - 2.0 * self.ribs.end_setback
+
+    @property
     def deck_case(self) -> DeckCase:
         """Solid slab, parallel or perpendicular deck, for AISC 360-22 I8.2a."""
         return DeckCase.NONE if self.slab.deck is None else DeckCase(self.orientation)

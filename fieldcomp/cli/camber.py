@@ -7,7 +7,8 @@ import argparse
 from functools import partial
 
 from fieldcomp import CAUTION, __version__
-from fieldcomp.cli.common import EXIT_INPUT, exit_code, fail_input, fail_output, load_inputs, tally
+from fieldcomp.cli.common import exit_code, fail_input, fail_output, load_inputs, tally
+from fieldcomp.cli.outputs import add_issue_options
 
 
 def register(sub) -> None:
@@ -16,6 +17,10 @@ def register(sub) -> None:
     c.add_argument("--beam", metavar="MARK", help="only this beam")
     c.add_argument("--json", action="store_true", help="print one JSON object")
     c.add_argument("--csv", metavar="PATH", help="also write the schedule as CSV to PATH")
+    c.add_argument("--pdf", metavar="PATH", help="also write the fabricator's camber order list (PDF) to PATH")
+    c.add_argument("--order-csv", metavar="PATH", help="also write the camber order list (mark, shape, length, camber, "
+                   "tolerance) as CSV to PATH")
+    add_issue_options(c, with_date=True)
 
 
 def camber_beam(beam, as_json: bool) -> tuple[str | None, bool, str, list, str]:
@@ -33,7 +38,7 @@ def camber_beam(beam, as_json: bool) -> tuple[str | None, bool, str, list, str]:
     except (JobFileError, ValueError) as exc:
         return str(exc), "fail", "", [], ""
     line = schedule_text([r]).split("\n", 2)[2]  # below the table head
-    rows = csv_rows([r])[2:]  # below the caution and header rows
+    rows = csv_rows([r])[1:-1]  # below the header row, above the caution row
     if as_json:
         return None, str(r.verdict), line, rows, json_item(construction_json(r))
     text = f"Beam {r.beam.mark}: {r.beam.shape.name}, span {format_ft_in(r.beam.span)}, {r.beam.method}\n"
@@ -44,7 +49,7 @@ def run(args: argparse.Namespace) -> int:
     import csv
     import io
 
-    from fieldcomp.jobs.atomic import write_text_atomic
+    from fieldcomp.cli.outputs import write_output
     from fieldcomp.cli.parallel import json_with_list, map_beams
     from fieldcomp.jobs.jobfile import JobFileError
     from fieldcomp.views.finished_report import caution_block
@@ -61,11 +66,19 @@ def run(args: argparse.Namespace) -> int:
     verdicts = [d[1] for d in done]
     if args.csv:
         sheet = io.StringIO()
-        csv.writer(sheet).writerows(csv_rows([]) + [row for d in done for row in d[3]])
+        head, caution = csv_rows([])
+        csv.writer(sheet).writerows([head] + [row for d in done for row in d[3]] + [caution])
         try:
-            write_text_atomic(args.csv, sheet.getvalue())
+            write_output(args.csv, sheet.getvalue(), [args.job])
         except OSError as exc:
             return fail_output(exc, args.csv)
+    if args.pdf or args.order_csv:
+        from fieldcomp.cli.outputs import camber_order
+
+        try:
+            camber_order(args.pdf, args.order_csv, args.job, job.project.name, beams, args.revision, args.date)
+        except OSError as exc:
+            return fail_output(exc, args.pdf or args.order_csv)
     if args.json:
         print(json_with_list({"job": job.project.name, "caution": CAUTION}, "beams", [d[4] for d in done]))
     else:

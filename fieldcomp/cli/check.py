@@ -6,7 +6,8 @@ import argparse
 from functools import partial
 
 from fieldcomp import CAUTION, __version__
-from fieldcomp.cli.common import exit_code, fail_input, load_inputs, tally
+from fieldcomp.cli.common import exit_code, fail_input, fail_output, load_inputs, tally
+from fieldcomp.cli.outputs import add_issue_options
 
 
 def register(sub) -> None:
@@ -14,6 +15,8 @@ def register(sub) -> None:
     c.add_argument("job", help="job file (.toml)")
     c.add_argument("--beam", metavar="MARK", help="only this beam")
     c.add_argument("--json", action="store_true", help="print one JSON object")
+    c.add_argument("--pdf", metavar="PATH", help="also write the calculation package (PDF) for the engineer of record")
+    add_issue_options(c, with_date=True)
 
 
 def check_beam(beam, as_json: bool) -> tuple[str | None, str, str]:
@@ -51,6 +54,13 @@ def run(args: argparse.Namespace) -> int:
     if error is not None:
         return fail_input(ValueError(error))
     verdicts = [v for _, v, _ in done]
+    if args.pdf:
+        from fieldcomp.cli.outputs import calc_package
+
+        try:
+            calc_package(args.pdf, args.job, job.project.name, beams, args.revision, args.date)
+        except OSError as exc:
+            return fail_output(exc, args.pdf)
     if args.json:
         head = {"job": job.project.name, "caution": CAUTION, "not_checked": not_checked_json()}
         print(json_with_list(head, "beams", [report for _, _, report in done]))

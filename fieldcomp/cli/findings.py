@@ -12,6 +12,7 @@ from pathlib import Path
 
 from fieldcomp import CAUTION
 from fieldcomp.cli.common import exit_code, fail_input, fail_output
+from fieldcomp.cli.outputs import add_issue_options
 
 
 def register(sub) -> None:
@@ -24,8 +25,11 @@ def register(sub) -> None:
     f.add_argument("--csv", metavar="PATH", help="with --all: also write the floor summary as CSV to PATH")
     f.add_argument("--json", action="store_true", help="print one JSON object")
     f.add_argument("--repair-svg", metavar="PATH", help="write the repair marks sheet (SVG) here")
+    f.add_argument("--pdf", metavar="PATH", help="write the crew's repair sheet (PDF) here")
+    add_issue_options(f, with_date=True)
     f.add_argument("--import", dest="import_csv", metavar="CSV",
-                   help="first add the findings of an inspection log (CSV) to the beam and save the job")
+                   help="first add the findings of an inspection log (CSV: comma, semicolon or tab) to the beam; "
+                        "rows already recorded are not added again")
     f.add_argument("--as-detailed", dest="detailed_csv", metavar="CSV",
                    help="first set the beam's as-detailed studs (shop drawings) from a marks CSV (rib or station, "
                         "and count columns) and save the job")
@@ -33,8 +37,8 @@ def register(sub) -> None:
 
 def run(args: argparse.Namespace) -> int:
     if args.all:
-        if args.import_csv or args.detailed_csv or args.repair_svg:
-            return fail_input("--all reads the job only: --import, --as-detailed and --repair-svg need --beam")
+        if args.import_csv or args.detailed_csv or args.repair_svg or args.pdf:
+            return fail_input("--all reads the job only: --import, --as-detailed, --repair-svg and --pdf need --beam")
         return run_all(args)
     from engine.field.as_built import FindingError
     from engine.field.detailed import DetailedLayoutError
@@ -68,9 +72,14 @@ def run(args: argparse.Namespace) -> int:
     before = review.before
     if args.repair_svg:
         try:
-            write_sheet(args.repair_svg, job.project.name, review)
+            write_sheet(args.repair_svg, job.project.name, review, args.job)
         except OSError as exc:
             return fail_output(exc, args.repair_svg)
+    if args.pdf:
+        try:
+            write_repair_pdf(args, job.project.name, review)
+        except OSError as exc:
+            return fail_output(exc, args.pdf)
     records = finding_records(next(b for b in job.beam if b.mark == args.beam))
     if args.json:
         print(json_text(findings_json(job.project.name, review, records), indent=2))
@@ -96,7 +105,7 @@ def run_all(args: argparse.Namespace) -> int:
     from engine.field.as_built import FindingError
     from engine.pipeline import field_review
     from fieldcomp.cli.common import load_inputs
-    from fieldcomp.jobs.atomic import write_text_atomic
+    from fieldcomp.cli.outputs import write_output
     from fieldcomp.jobs.jobfile import JobFileError
     from fieldcomp.views.floor_findings import floor_csv, floor_json, floor_rows, floor_text
     from fieldcomp.views.numbers import json_text
@@ -115,7 +124,7 @@ def run_all(args: argparse.Namespace) -> int:
     rows = floor_rows(job, reviews)
     if args.csv:
         try:
-            write_text_atomic(Path(args.csv), floor_csv(rows))
+            write_output(args.csv, floor_csv(rows), [args.job])
         except OSError as exc:
             return fail_output(exc, args.csv)
     print(json_text(floor_json(job.project.name, rows), indent=2) if args.json
@@ -150,67 +159,36 @@ def import_detailed(job_path: str, mark: str, csv_path: str) -> str:
 
 
 def import_log(job_path: str, mark: str, csv_path: str) -> str:
-    """Add the findings of an inspection log to one beam and save the job (atomic, .bak kept).
-    Every row is checked first, against the file format and against the beam's layout; on any
-    error nothing is written. Returns a one-line summary."""
-    from engine.field.as_built import FindingError, apply_findings
-    from engine.pipeline import field_layout
-    from fieldcomp.cli.common import load_inputs
-    from fieldcomp.jobs.inspection_log import CsvImportError, read_findings_csv
-    from fieldcomp.jobs.jobfile import load_job, save_job
-    from fieldcomp.jobs.to_engine import to_engine
+    """Add the new findings of an inspection log to one beam (fieldcomp.jobs.log_import: rows
+    already recorded are not added again; only the new tables are appended to the file, atomic,
+    .bak kept); on any error nothing is written. Returns what it did, warnings first."""
+    from fieldcomp.jobs.log_import import import_log as add_log
 
-    from engine.pipeline import as_poured
-
-    loaded = load_job(job_path)
-    _, (beam,) = load_inputs(job_path, mark)
-    beam = as_poured(beam)[0]
-    rows = read_findings_csv(csv_path)
-    job = loaded.job
-    updated = job.model_copy(update={"beam": [
-        b.model_copy(update={"finding": b.finding + [f for _, f in rows]}) if b.mark == mark else b for b in job.beam]})
-    merged = next(b for b in to_engine(updated, job_path) if b.mark == mark)
-    designed = field_layout(beam)[0]
-    try:
-        apply_findings(merged, designed, merged.findings)
-    except FindingError:
-        existing, new = list(beam.findings), list(merged.findings[len(beam.findings):])
-        raise CsvImportError(csv_path, _rows_against_layout(beam, designed, existing, rows, new)) from None
-    save_job(updated, job_path, expected_digest=loaded.digest)
-    return (f"imported {len(rows)} finding(s) into beam {mark} of {job_path} "
-            f"(previous version kept as {Path(job_path).name}.bak)")
+    return add_log(job_path, mark, csv_path).summary()
 
 
-def _rows_against_layout(beam, designed, existing, rows, new) -> list[tuple[int | None, str]]:
-    """Every log row that contradicts the layout: added studs first, then the rest in order, each
-    kept only if it fits with what came before."""
-    from engine.field.as_built import FindingError, apply_findings
+def write_repair_pdf(args: argparse.Namespace, job_name: str, review) -> None:
+    """Write the crew's repair sheet as a PDF page (the sheet of `write_sheet`)."""
+    from engine.pipeline import field_sheet
+    from engine.studs.stud_lengths import stud_lengths
+    from fieldcomp.cli.outputs import issue_of, write_output
+    from fieldcomp.views.findings_report import REPAIR_CAUTION
+    from fieldcomp.views.pdf_erector import repair_pdf
 
-    problems: list[tuple[int | None, str]] = []
-    try:
-        apply_findings(beam, designed, tuple(existing))
-    except FindingError as exc:
-        return [(None, f"the job's own findings for beam {beam.mark} contradict the layout: {exc}")]
-    kept = list(existing)
-    order = sorted(range(len(new)), key=lambda i: (new[i].kind != "added", i))
-    for i in order:
-        try:
-            apply_findings(beam, designed, tuple(kept + [new[i]]))
-            kept.append(new[i])
-        except FindingError as exc:
-            problems.append((rows[i][0], str(exc).split(": ", 1)[-1] + f" (beam {beam.mark})"))
-    return sorted(problems, key=lambda p: p[0] or 0)
+    issue = issue_of(job_name, "RS", args.revision, args.date)
+    sheet = field_sheet(job_name, issue.date, review, f"{CAUTION} {REPAIR_CAUTION}")
+    write_output(args.pdf, repair_pdf(issue, sheet, stud_lengths(review.before.beam)), [args.job])
 
 
-def write_sheet(path: str, job_name: str, review) -> None:
+def write_sheet(path: str, job_name: str, review, job_path: str) -> None:
     """Write the crew's repair sheet (SVG) atomically: before the pour the replacement in kind,
     after it (or when the timing is not known) no stud to weld (engine.pipeline.field_sheet)."""
     import datetime
 
     from engine.pipeline import field_sheet
-    from fieldcomp.jobs.atomic import write_text_atomic
+    from fieldcomp.cli.outputs import write_output
     from fieldcomp.views.findings_report import REPAIR_CAUTION
     from fieldcomp.views.marks_svg import marks_svg
 
     sheet = field_sheet(job_name, datetime.date.today().isoformat(), review, f"{CAUTION} {REPAIR_CAUTION}")
-    write_text_atomic(Path(path), marks_svg(sheet))
+    write_output(path, marks_svg(sheet), [job_path])

@@ -15,13 +15,19 @@ def register(sub) -> None:
 
 
 def run(args: argparse.Namespace) -> int:
+    from pathlib import Path
+
     from fieldcomp.jobs.jobfile import JobFileError
+    from fieldcomp.tui.recovery import default_state_dir, recovered_session
     from fieldcomp.tui.session import JobSession
 
     try:
         session = JobSession.open(args.job) if args.job else JobSession.untitled()
     except JobFileError as exc:
-        return fail_input(exc)
+        found = recovered_session(default_state_dir(), Path(args.job))  # a deleted job's unsaved edits
+        if found is None:
+            return fail_input(exc)
+        session = found
     from fieldcomp.tui.app import FieldcompApp
 
     FieldcompApp(session, theme=args.theme).run()

@@ -10,12 +10,17 @@ from pathlib import Path
 from fieldcomp.jobs.file_kinds import check_output
 
 
-def write_bytes_atomic(path: str | os.PathLike[str], data: bytes) -> None:
-    """Replace `path` with `data` atomically. New files get the usual permissions (umask). Only a
-    regular file (or a new one, in a folder that exists) is written: never a FIFO or device."""
+def write_bytes_atomic(path: str | os.PathLike[str], data: bytes, mode: int | None = None) -> None:
+    """Replace `path` with `data` atomically. The file keeps its permissions (or gets `mode`);
+    new files get the usual ones (umask). A symbolic link is followed: its target is replaced and
+    the link stays a link. Only a regular file (or a new one, in a folder that exists) is
+    written: never a FIFO or device."""
     p = Path(path)
+    if p.is_symlink():
+        p = Path(os.path.realpath(p))
     check_output(p)
-    mode = _mode_for(p)
+    if mode is None:
+        mode = _mode_for(p)
     fd, tmp = tempfile.mkstemp(prefix=f".{p.name}.", suffix=".tmp", dir=p.parent)
     try:
         with os.fdopen(fd, "wb") as fh:

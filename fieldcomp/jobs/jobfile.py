@@ -1,5 +1,5 @@
-"""Job files: load (TOML, validated), save (atomic, previous version kept as .bak), errors that
-name the file, the beam and the field."""
+"""Job files: load (TOML, validated), save (only what was edited, atomic, previous version kept
+as .bak), errors that name the file, the beam and the field."""
 
 from __future__ import annotations
 
@@ -12,6 +12,7 @@ from pathlib import Path
 from typing import Any
 
 import tomli_w
+from tomlkit.exceptions import TOMLKitError
 from pydantic import BaseModel, ValidationError
 
 from fieldcomp.jobs.atomic import write_bytes_atomic
@@ -19,6 +20,8 @@ from fieldcomp.jobs.kind_messages import KIND_ERRORS, kind_message
 from fieldcomp.jobs.file_kinds import FileKindError, read_regular
 from fieldcomp.jobs.nesting import JOB_NESTING, MAX_NESTING, deep_line, deep_path
 from fieldcomp.jobs.model import Job
+from fieldcomp.jobs.toml_top_level import patch_blocks
+from fieldcomp.jobs.toml_text import BOM, join_form, minimal, patch_text, split_form
 from engine.model.errors import FieldcompError
 from engine.model.text import printable
 
@@ -45,6 +48,7 @@ class LoadedJob:
     path: Path
     job: Job
     digest: str  # sha256 of the bytes loaded, to detect edits by others before saving
+    text: str = ""  # the file's text as loaded (byte-order mark kept): what a save patches
 
 
 def parse_job(text: str, path: str | os.PathLike[str] = "<job>") -> Job:
@@ -76,74 +80,82 @@ def load_job(path: str | os.PathLike[str]) -> LoadedJob:
     except FileKindError as exc:
         raise JobFileError(p, [("", exc.reason)]) from None
     try:
-        text = data.decode("utf-8-sig")
+        text = job_text(data)
     except UnicodeDecodeError as exc:
         utf16 = "; it looks like UTF-16: save it as UTF-8" if data[:2] in (b"\xff\xfe", b"\xfe\xff") else ""
         raise JobFileError(p, [("", f"not UTF-8 text (byte {exc.start}){utf16}")]) from None
-    return LoadedJob(p, parse_job(text, p), hashlib.sha256(data).hexdigest())
-
-
-def _plain(job: Job) -> dict[str, Any]:
-    """The job as plain data: keys the file gave or an edit set, no None values."""
-    return job.model_dump(mode="json", exclude_unset=True, exclude_none=True)
+    job = parse_job(text.removeprefix(BOM), p)
+    return LoadedJob(p, _remember(text, job), hashlib.sha256(data).hexdigest(), text)
 
 
 def dump_job(job: Job, previous: str | None = None) -> str:
-    """The job as TOML text. Given the file's previous text, edits are merged into it so the
-    engineer's comments and layout survive (tomlkit); the merge is kept only if it reads back as
-    the same job, otherwise a plain rendering is written."""
-    plain = tomli_w.dumps(_plain(job))
-    if previous is None:
-        return plain
-    try:
-        import tomlkit
-
-        doc = tomlkit.parse(previous)
-        _merge_into(doc, _plain(job))
-        merged = tomlkit.dumps(doc)
-        if parse_job(merged) == job:
-            return merged
-    except Exception:  # noqa: BLE001 - any failure of the comment-keeping path falls back to plain TOML
-        pass
-    return plain
-
-
-def _merge_into(node: Any, new: dict[str, Any]) -> None:
-    """Make tomlkit container `node` hold `new`, touching only what differs."""
-    for key in [k for k in node if k not in new]:
-        del node[key]
-    for key, value in new.items():
-        old = node.get(key)
-        if isinstance(value, dict) and hasattr(old, "items"):
-            _merge_into(old, value)
-        elif (isinstance(value, list) and isinstance(old, list) and value and old
-              and all(isinstance(v, dict) for v in value) and all(hasattr(o, "items") for o in old)):
-            for item_old, item_new in zip(old, value):
-                _merge_into(item_old, item_new)
-            while len(old) > len(value):
-                old.pop()
-            for item_new in value[len(old):]:
-                old.append(item_new)
-        elif _unwrap(old) != value:
-            node[key] = value
-
-
-def _unwrap(value: Any) -> Any:
-    return value.unwrap() if hasattr(value, "unwrap") else value
-
-
-def save_job(job: Job, path: str | os.PathLike[str], expected_digest: str | None = None) -> str:
-    """Write the job atomically: temp file in the same folder, flush + fsync, previous version
-    kept as `<name>.bak`, then atomic replace. Returns the new digest. Raises ChangedOnDiskError if
-    `expected_digest` is given and the file on disk no longer has it."""
-    p = Path(path)
-    previous = None
-    if p.exists():
+    """The job as the text of its file. Given the file's previous text, that text is patched so
+    that only what was edited changes (`toml_text.patch_text`: comments, layout, line endings and
+    byte-order mark kept, no default written). Without it (or if it no longer reads as a job),
+    the job is written plainly with only what is not a default."""
+    if previous is not None:
         try:
-            previous = p.read_text(encoding="utf-8")
+            old = _parsed(previous)
+            bom, crlf, body = split_form(previous)
+            fast = patch_blocks(body, old, job)  # each rewritten block read back already
+            if fast is not None:
+                return join_form(bom, crlf, fast)
+            merged = patch_text(previous, old, job)
+            if parse_job(merged.removeprefix(BOM)) == job:
+                return merged
+        except (JobFileError, TOMLKitError, LookupError, TypeError, ValueError):
+            pass  # the previous text is not a job any more, or tomlkit cannot patch it: written plainly
+    return tomli_w.dumps(minimal(job))
+
+
+_PARSED: dict[str, Job] = {}  # the last texts loaded or patched, and the jobs they say
+
+
+def _parsed(text: str) -> Job:
+    """The job a text says (a session's saved text is patched again at every save and every
+    recovery write: parsed once, or not at all when it was just loaded)."""
+    job = _PARSED.get(text)
+    return job if job is not None else _remember(text, parse_job(text.removeprefix(BOM)))
+
+
+def _remember(text: str, job: Job) -> Job:
+    while len(_PARSED) >= 2:
+        _PARSED.pop(next(iter(_PARSED)), None)
+    _PARSED[text] = job
+    return job
+
+
+def job_text(data: bytes) -> str:
+    """The file's bytes as text, byte-order mark kept (so a save writes it back)."""
+    return data.decode("utf-8")
+
+
+def save_job(job: Job, path: str | os.PathLike[str], expected_digest: str | None = None,
+             previous: str | None = None) -> str:
+    """Write the job to its file, changing only what was edited against `previous` (the text it
+    was loaded from; by default the file's current text). See `write_job`."""
+    p = saved_path(path)
+    if previous is None and p.exists():
+        try:
+            previous = job_text(read_regular(p, MAX_BYTES, "job files"))
         except (OSError, UnicodeDecodeError):
             previous = None
-    data = dump_job(job, previous).encode("utf-8")
+    return write_job(p, dump_job(job, previous).encode("utf-8"), expected_digest)
+
+
+def saved_path(path: str | os.PathLike[str]) -> Path:
+    """Where a save writes: a job reached through a symbolic link is saved to the link's target
+    (the link stays a link)."""
+    p = Path(path)
+    return Path(os.path.realpath(p)) if p.is_symlink() else p
+
+
+def write_job(path: str | os.PathLike[str], data: bytes, expected_digest: str | None = None) -> str:
+    """Write job-file bytes atomically: temp file in the same folder, flush + fsync, previous
+    version kept as `<name>.bak` (with the original's permissions), then atomic replace. Returns
+    the new digest. Raises ChangedOnDiskError if `expected_digest` is given and the file on disk
+    no longer has it."""
+    p = saved_path(path)
     if expected_digest is not None and p.exists():
         if hashlib.sha256(p.read_bytes()).hexdigest() != expected_digest:
             raise ChangedOnDiskError(f"{p} changed on disk since it was opened; not overwritten")
@@ -154,8 +166,9 @@ def save_job(job: Job, path: str | os.PathLike[str], expected_digest: str | None
 
 
 def _keep_backup(p: Path) -> None:
-    """Copy the current file to .bak atomically (the original stays in place until replaced)."""
-    write_bytes_atomic(p.with_name(p.name + ".bak"), p.read_bytes())
+    """Copy the current file to .bak atomically, with the current file's permissions (the
+    original stays in place until replaced)."""
+    write_bytes_atomic(p.with_name(p.name + ".bak"), p.read_bytes(), mode=p.stat().st_mode & 0o7777)
 
 
 def shown(text: object, limit: int = 40) -> str:
@@ -292,5 +305,11 @@ def _check_references(job: Job, path: str | os.PathLike[str]) -> None:
         if b.slab not in slabs:
             problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'slab'",
                              f"no slab with id {_short(b.slab)}" + _hint(b.slab, slabs)))
+    for i, b in enumerate(job.beam):
+        for k, f in enumerate(b.framing):
+            if f.mark == b.mark or f.mark not in marks:
+                problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'framing[{k}].mark'",
+                                 "names the beam itself" if f.mark == b.mark
+                                 else f"no beam with mark {_short(f.mark)}" + _hint(f.mark, marks)))
     if problems:
         raise JobFileError(path, problems)

@@ -62,6 +62,32 @@ Length = Annotated[
 ]
 
 
+def coordinate_inches(text: str) -> float:
+    """A plan coordinate in inches: a length with units, optionally signed ("-12'-6\"", "3.5 m")."""
+    text = text.strip()
+    negative = text.startswith("-")
+    inches = parse_length(text[1:].lstrip() if negative else text)
+    return -inches if negative else inches
+
+
+def _coordinate(text: str) -> str:
+    try:
+        coordinate_inches(text)
+    except UnitError as exc:
+        raise ValueError(str(exc)) from None
+    return text
+
+
+Coordinate = Annotated[
+    str,
+    BeforeValidator(_length_kind),
+    AfterValidator(_printable),
+    AfterValidator(_coordinate),
+    Field(description="A plan coordinate: a length with units from the plan origin, may be negative (\"-12'-6\\\"\", \"48 ft\", \"14.63 m\").",
+          examples=["48'-0\"", "-6 ft"]),
+]
+
+
 class Strict(BaseModel):
     model_config = ConfigDict(extra="forbid", frozen=True, strict=True)
 
@@ -217,6 +243,24 @@ class DetailedRibIn(Strict):
         return self
 
 
+class PlanLine(Strict):
+    """Where the beam lies on the framing plan: its support work points, plan x to the right and y up."""
+
+    x1: Coordinate = Field(description="x of the reference end's work point (station 0).")
+    y1: Coordinate = Field(description="y of the reference end's work point.")
+    x2: Coordinate = Field(description="x of the far end's work point.")
+    y2: Coordinate = Field(description="y of the far end's work point.")
+
+
+class FramingIn(Strict):
+    """A beam that frames into this one (a girder): where its end bears, for girder loads."""
+
+    mark: Words = Field(min_length=1, max_length=40, description="Mark of the beam that frames in.")
+    at: Length = Field(description="Where it frames in: station along this beam from its reference end (as point_loads.at).")
+    end: Literal["reference-end", "far-end"] = Field(description="Which end of the framing beam bears here.")
+    side: Literal["left", "right"] | None = Field(None, description="Side of this beam it comes from (looking from the reference end to the far end).")
+
+
 class Beam(Strict):
     mark: Words = Field(min_length=1, max_length=40, description="Beam mark as on the framing plan.")
     shape: Words = Field(description="W shape, e.g. W21X50.", min_length=2, max_length=20)
@@ -256,6 +300,10 @@ class Beam(Strict):
     finding: list[FindingIn] = Field(default_factory=list, description="Stud inspection findings.")
     report: list[ReportIn] = Field(default_factory=list, description="Stud inspection reports on this beam; findings name theirs by number.")
     as_detailed: list[DetailedRibIn] = Field(default_factory=list, description="The studs as detailed on the shop drawings, rib by rib (ribs not listed hold none); findings apply to this layout. Leave out: findings apply to fieldcomp's own layout.")
+    level: Words | None = Field(None, max_length=60, description="Storey or level the beam is on (e.g. \"Level 3\").")
+    plan: PlanLine | None = Field(None, description="Plan coordinates of the beam's work points (for the framing plan).")
+    framing: list[FramingIn] = Field(default_factory=list, description="Beams that frame into this one (it is their girder), with where each bears.")
+    source_id: Words | None = Field(None, max_length=80, description="Id of the element in the model or schedule it was imported from (IFC GlobalId, schedule mark); re-import matches on it.")
 
     @model_validator(mode="after")
     def _sides(self) -> "Beam":

@@ -2,8 +2,11 @@
 
 from __future__ import annotations
 
+import os
 import re
 from pathlib import Path
+
+from fieldcomp.jobs.file_kinds import FileKindError
 
 _RESERVED = {"CON", "PRN", "AUX", "NUL", *(f"COM{i}" for i in range(1, 10)), *(f"LPT{i}" for i in range(1, 10))}
 
@@ -17,15 +20,38 @@ def safe_name(mark: str) -> str:
 
 
 def unique_names(marks: list[str]) -> list[str]:
-    """`safe_name` of each mark, with -2, -3 ... added where two marks give the same name."""
-    seen: dict[str, int] = {}
+    """`safe_name` of each mark, with -2, -3 ... added where a name is already taken. Names are
+    compared case-insensitively (case-folding file systems hold one of `B-1` and `b-1`), and a
+    suffixed name never takes a name another mark gives (`B_1`, `B/1`, `B_1-2` -> `B_1`,
+    `B_1-3`, `B_1-2`... whichever comes first keeps its own)."""
+    bases = [safe_name(m) for m in marks]
+    taken = {b.casefold() for b in bases}
+    used: set[str] = set()
     out = []
-    for mark in marks:
-        base = safe_name(mark)
-        key = base.lower()
-        seen[key] = seen.get(key, 0) + 1
-        out.append(base if seen[key] == 1 else f"{base}-{seen[key]}")
+    for base in bases:
+        name, n = base, 1
+        while name.casefold() in used or (n > 1 and name.casefold() in taken):
+            n += 1
+            name = f"{base}-{n}"
+        used.add(name.casefold())
+        out.append(name)
     return out
+
+
+def refuse_inputs(target: str | os.PathLike[str], inputs: list[str | os.PathLike[str]]) -> None:
+    """Refuse an output path that is one of the command's input files (the same file, by any
+    name or link): a sheet written there would destroy the job it was made from."""
+    t = Path(target)
+    for source in inputs:
+        s = Path(source)
+        same = t.resolve() == s.resolve()
+        if not same and t.exists() and s.exists():
+            try:
+                same = os.path.samefile(t, s)
+            except OSError:
+                same = False
+        if same:
+            raise FileKindError(t, f"is an input of this command ({s}); give another path for the output")
 
 
 def inside(folder: Path, name: str) -> Path:

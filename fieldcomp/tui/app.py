@@ -33,7 +33,8 @@ from fieldcomp.tui.messages import BeamSelected, EditRequested, OutcomeFinished,
 from fieldcomp.tui.outcome import BeamOutcome, OutcomeCache
 from fieldcomp.tui.screens.help import HelpScreen
 from fieldcomp.tui.screens.workbench import WorkbenchScreen
-from fieldcomp.tui.session import EditRejectedError, JobSession, default_state_dir
+from fieldcomp.tui.recovery import default_state_dir
+from fieldcomp.tui.session import EditRejectedError, JobSession
 
 THEMES = {
     "light": Theme(name="fieldcomp-light", dark=False, primary="#1D5A85", secondary="#56646F", accent="#A8561C",
@@ -48,7 +49,8 @@ THEMES = {
 DISK_POLL_SECONDS = 2.0
 BATCH_SECONDS = 0.1  # a worker sends the results it has at most this often (one update of the panes each)
 YIELD_SECONDS = 0.05  # a worker pauses this long after the edited beam's result, so the panes redraw first
-RECOVERY_DELAY = 1.0  # the recovery file is written once edits pause this long
+RECOVERY_DELAY = 1.0  # s: the recovery file of a large job is written once edits pause this long
+RECOVERY_LARGE_JOB = 200  # beams: smaller jobs write their recovery file after every edit
 SWITCH_INTERVAL = 0.001  # s: the interface thread gets the interpreter back this soon from a worker
 # Actions offered only in the command palette (no key of their own).
 PALETTE_ONLY = (
@@ -217,7 +219,11 @@ class FieldcompApp(FileActions, App[None]):
         if version == self.session.version:
             if self._recovery_timer is not None:
                 self._recovery_timer.stop()
-            self._recovery_timer = self.set_timer(RECOVERY_DELAY, self._keep_recovery_now)
+                self._recovery_timer = None
+            if len(self.session.job.beam) < RECOVERY_LARGE_JOB:
+                self._keep_recovery_now()
+            else:
+                self._recovery_timer = self.set_timer(RECOVERY_DELAY, self._keep_recovery_now)
 
     def _keep_recovery_now(self) -> None:
         """Write the recovery file once edits pause (writing a large job takes the interpreter)."""

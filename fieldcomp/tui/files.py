@@ -1,11 +1,13 @@
-"""File handling of the workbench: save (atomic, .bak kept), save as, open, reopen, the guard
-for unsaved edits, the recovery file of unsaved edits, and a job file changed on disk by
-someone else (detected before it is overwritten). Mixed into `FieldcompApp`.
+"""File handling of the workbench: save (only the edits, atomic, .bak kept), save as, open,
+reopen, the guard for unsaved edits, this workbench's recovery file of unsaved edits (and what
+crashed ones left), and a job file changed on disk by someone else (detected before it is
+overwritten). Mixed into `FieldcompApp`.
 """
 
 from __future__ import annotations
 
 import time
+from functools import partial
 from pathlib import Path
 from typing import Callable
 
@@ -13,7 +15,8 @@ from textual import work
 
 from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError
 from fieldcomp.tui.dialogs import AskPath, Choice
-from fieldcomp.tui.session import JobSession, discard_recovery, read_recovery, write_recovery
+from fieldcomp.tui.recovery import RecoveryFile, read_recovery, recovered_session
+from fieldcomp.tui.session import JobSession
 
 
 class FileActions:
@@ -21,6 +24,8 @@ class FileActions:
     `update_title`, `notify`, `push_screen` and `exit`."""
 
     _disk_warned = False
+    recovery: RecoveryFile | None = None
+    _recovery_warned = False
 
     def action_save(self) -> None:
         self.save_then(None)
@@ -45,9 +50,9 @@ class FileActions:
         except OSError as exc:
             self.notify(f"Not saved: {exc}", severity="error")
             return
-        if old is not None and old != saved:
-            discard_recovery(self.state_dir, old)
-        discard_recovery(self.state_dir, saved)
+        self.discard_recovery()
+        if old != saved:  # saved as another file: this workbench now holds that one
+            self.claim_recovery()
         self._disk_warned = False
         self.update_title()
         self.notify(f"Saved {saved}")
@@ -83,7 +88,7 @@ class FileActions:
             return
         try:
             self.session.reload()
-        except JobFileError as exc:
+        except (JobFileError, OSError) as exc:
             self.notify(str(exc), title="Cannot reopen", severity="error", timeout=10)
             return
         self._disk_warned = False
@@ -93,11 +98,21 @@ class FileActions:
     def action_open_job(self) -> None:
         def chosen(path: Path | None) -> None:
             if path is not None:
-                self.guard_unsaved(lambda: self.switch_session(lambda: JobSession.open(path)), "open another job")
+                self.guard_unsaved(lambda: self.switch_session(lambda: self.open_session(path)), "open another job")
         self.push_screen(AskPath("Open job", str(self.session.path or Path.cwd()), "Path of a .toml job file."), chosen)
 
     def action_new_job(self) -> None:
         self.guard_unsaved(lambda: self.switch_session(JobSession.untitled), "start a new job")
+
+    def open_session(self, path: Path) -> JobSession:
+        """The job at `path`; a job file that is gone opens from the unsaved edits kept for it."""
+        try:
+            return JobSession.open(path)
+        except JobFileError:
+            session = recovered_session(self.state_dir, path)
+            if session is None:
+                raise
+            return session
 
     def switch_session(self, make: Callable[[], JobSession]) -> None:
         try:
@@ -105,7 +120,7 @@ class FileActions:
         except JobFileError as exc:
             self.notify(str(exc), title="Cannot open", severity="error", timeout=10)
             return
-        discard_recovery(self.state_dir, self.session.path)
+        self.discard_recovery()
         self.session, self.selected, self.outcomes, self._disk_warned = session, 0, [], False
         self.job_changed(time.perf_counter())
         self.offer_recovery()
@@ -120,7 +135,7 @@ class FileActions:
             if choice == "save":
                 self.save_then(then)
             elif choice == "discard":
-                discard_recovery(self.state_dir, self.session.path)
+                self.discard_recovery()
                 then()
         self.push_screen(Choice("Unsaved edits", f"{self.session.name} has unsaved edits. Save them before you {doing}?",
                                 [("save", "Save", "primary"), ("discard", "Discard", "error"),
@@ -129,26 +144,79 @@ class FileActions:
     async def action_quit(self) -> None:
         self.guard_unsaved(self.exit, "quit")
 
+    # -- recovery files --------------------------------------------------------------------------
+    def claim_recovery(self) -> None:
+        """Take this workbench's recovery file for the job, and say who else has the job open."""
+        self.release_recovery()
+        self.recovery = RecoveryFile(self.state_dir, self.session.path)
+        self._recovery_warned = False
+        if self.recovery.others:
+            self.notify(f"{self.session.name} is also open in another workbench: "
+                        f"{'; '.join(map(str, self.recovery.others))}. Unsaved edits here are kept apart from "
+                        "theirs; saving asks before overwriting a change they saved.",
+                        title="Open elsewhere", severity="warning", timeout=15)
+
+    def release_recovery(self) -> None:
+        if self.recovery is not None:
+            self.recovery.release()
+            self.recovery = None
+
+    def discard_recovery(self) -> None:
+        if self.recovery is not None:
+            self.recovery.discard()
+
+    def on_unmount(self) -> None:
+        self.release_recovery()
+
     @work(exclusive=True, thread=True, group="recovery", description="keep the recovery file")
     def keep_recovery(self, job) -> None:
-        """Write the unsaved job to its recovery file (or remove it once nothing is unsaved)."""
+        """Write the unsaved job to the recovery file, as a save would write it (or remove the
+        file once nothing is unsaved). A recovery file that cannot be written is a warning."""
+        recovery = self.recovery
+        if recovery is None:
+            return
         if job is None:
-            discard_recovery(self.state_dir, self.session.path)
-        else:
-            write_recovery(self.state_dir, self.session.path, job)
+            recovery.discard()
+            return
+        self._recovery_problem(recovery.write(self.session.render(job)), thread=True)
+
+    def _recovery_problem(self, problem: str | None, thread: bool = False) -> None:
+        """Warn once while unsaved edits cannot be kept; the session goes on."""
+        if problem is None:
+            self._recovery_warned = False
+        elif not self._recovery_warned:
+            self._recovery_warned = True
+            say = partial(self.notify, f"{problem}. Work goes on; save often.", title="No recovery file",
+                          severity="warning", timeout=15)
+            self.call_from_thread(say) if thread else say()
 
     def offer_recovery(self) -> None:
-        job = read_recovery(self.state_dir, self.session.path)
-        if job is None or job == self.session.job:
+        """Claim this workbench's recovery file and offer back what a crashed workbench left."""
+        self.claim_recovery()
+        if self.session.path is not None and self.session.digest is None and not self.session.path.exists():
+            self._recovery_problem(self.recovery.write(self.session.render()))
+            self.notify(f"{self.session.path} is not on disk any more: the unsaved edits kept for it are open. "
+                        "Save (ctrl+s) writes the file again.", title="Job file gone", severity="warning", timeout=15)
+        for path in self.recovery.leftovers():
+            found = read_recovery(path)
+            if found is None:
+                continue  # damaged: not offered, left where it is
+            if found[0] == self.session.job:
+                path.unlink(missing_ok=True)  # nothing in it that is not open here
+                continue
+            self._offer(path, found[0])
             return
 
+    def _offer(self, leftover: Path, job) -> None:
         def answer(choice: str | None) -> None:
             if choice == "restore":
                 self.session.replace_job(job, "restore unsaved edits")
+                if self.recovery.write(self.session.render()) is None:
+                    leftover.unlink(missing_ok=True)  # now kept in this workbench's own file
                 self.job_changed(time.perf_counter())
                 self.notify("Unsaved edits restored; save to keep them.")
             elif choice == "discard":
-                discard_recovery(self.state_dir, self.session.path)
+                leftover.unlink(missing_ok=True)
         self.push_screen(Choice("Unsaved edits found",
                                 f"fieldcomp stopped before {self.session.name} was saved. Restore the unsaved edits?",
                                 [("restore", "Restore", "primary"), ("discard", "Discard them", "error"),

@@ -48,6 +48,7 @@ class BeamOutcome:
     sheet: Part | None = None  # engine.studs.sheet_data.SheetData of the marks as designed (second pass)
     repair: Part | None = None  # engine.field.repair.Repair (second pass; NONE when not needed)
     repair_sheet: Part = NONE  # engine.studs.sheet_data.SheetData of the repair marks (second pass)
+    review: Part = NONE  # engine.pipeline.FieldReview: timing, remedies before / after the pour (second pass)
     key: tuple[str, str] = ("", "")  # (job name, sheet date) the sheets were made with
     source: BeamInput | None = None  # the engine input as converted from the job (`beam` is it as poured)
 
@@ -122,22 +123,24 @@ def compute_outcome(beam: BeamInput, job_name: str = "", date: str = "") -> Beam
 
 
 def finish(outcome: BeamOutcome) -> BeamOutcome:
-    """The second pass: the marks sheet as `fieldcomp marks` builds it and, for a beam that
+    """The second pass: the marks sheet as `fieldcomp marks` builds it, a beam with findings
+    reviewed in the world they were found in (engine.pipeline.field_review) and, for a beam that
     fails as built, the repair (many trial evaluations) and its marks sheet."""
     from engine.field.repair import find_repair
-    from engine.pipeline import marks_sheet, repair_sheet
+    from engine.pipeline import field_review, marks_sheet, repair_sheet
     from fieldcomp.views.findings_report import REPAIR_CAUTION
 
     if outcome.finished_all:
         return outcome
     sheet = _part(lambda: marks_sheet(outcome.key[0], outcome.beam, outcome.key[1], CAUTION)[0])
+    review = _part(lambda: field_review(outcome.beam)) if outcome.as_built.value is not None else NONE
     if not outcome.needs_repair:
-        return replace(outcome, sheet=sheet, repair=NONE)
+        return replace(outcome, sheet=sheet, repair=NONE, review=review)
     repair = _part(lambda: find_repair(outcome.as_built.value))
     fixed = NONE
     if repair.value is not None:
         fixed = _part(lambda: repair_sheet(*outcome.key, outcome.as_built.value, repair.value, f"{CAUTION} {REPAIR_CAUTION}"))
-    return replace(outcome, sheet=sheet, repair=repair, repair_sheet=fixed)
+    return replace(outcome, sheet=sheet, repair=repair, repair_sheet=fixed, review=review)
 
 
 class OutcomeCache:

@@ -1,5 +1,5 @@
 """The job being edited in the workbench: the validated `Job`, undo/redo, dirty flag, the file it
-came from (path and digest), and the recovery file that keeps unsaved edits across a crash.
+came from (path, digest and the text a save patches; recovery files: `fieldcomp.tui.recovery`).
 
 Every edit goes through the job-file loader (`parse_job`, then `to_engine` and the engine's
 scope check, as `fieldcomp check` does), so a rejected edit carries the loader's own messages.
@@ -9,7 +9,6 @@ from __future__ import annotations
 
 import hashlib
 import os
-import tempfile
 from dataclasses import dataclass, field
 from importlib.resources import files
 from pathlib import Path
@@ -18,7 +17,7 @@ from typing import Any, Callable
 import tomli_w
 
 from fieldcomp.jobs.file_kinds import check_output, read_regular
-from fieldcomp.jobs.jobfile import MAX_BYTES, JobFileError, dump_job, load_job, parse_job, save_job
+from fieldcomp.jobs.jobfile import MAX_BYTES, JobFileError, dump_job, load_job, parse_job, write_job
 from fieldcomp.jobs.model import Job
 from fieldcomp.jobs.typed_text import value_from_text
 from engine.model.errors import FieldcompError
@@ -85,6 +84,7 @@ class JobSession:
     undo_stack: list[tuple[Job, str]] = field(default_factory=list)
     redo_stack: list[tuple[Job, str]] = field(default_factory=list)
     version: int = 0  # bumps on every change of `job`
+    text: str | None = None  # the file's text as loaded or saved last: a save changes only the edits in it
     _last_check: tuple[tuple[Any, ...], Any] | None = field(default=None, repr=False, compare=False)
     _engine: dict[int, tuple[Any, Any, BeamInput]] = field(default_factory=dict, repr=False, compare=False)
 
@@ -93,13 +93,14 @@ class JobSession:
         """Load a job file; raises JobFileError with the loader's messages."""
         loaded = load_job(path)
         validate_job(loaded.job, loaded.path)
-        return cls(loaded.job, loaded.path, loaded.digest, loaded.job)
+        return cls(loaded.job, loaded.path, loaded.digest, loaded.job, text=loaded.text)
 
     @classmethod
     def untitled(cls) -> "JobSession":
         """A new job from the starter file, not yet saved anywhere."""
-        job = parse_job(files("fieldcomp.jobs").joinpath("starter.toml").read_text(encoding="utf-8"), "starter.toml")
-        return cls(job, None, None, job)
+        text = files("fieldcomp.jobs").joinpath("starter.toml").read_text(encoding="utf-8")
+        job = parse_job(text, "starter.toml")
+        return cls(job, None, None, job, text=text)
 
     @property
     def dirty(self) -> bool:
@@ -288,10 +289,14 @@ class JobSession:
         check_output(target)  # a FIFO or device is refused before anything reads or writes it
         same = self.path is not None and target.resolve() == self.path.resolve()
         expected = self.digest if same and not overwrite else None
-        self.digest = save_job(self.job, target, expected_digest=expected)
-        self.path = target
-        self.saved = self.job
+        text = self.render()
+        self.digest = write_job(target, text.encode("utf-8"), expected_digest=expected)
+        self.path, self.saved, self.text = target, self.job, text
         return target
+
+    def render(self, job: Job | None = None) -> str:
+        """The text a save would write: the file's text with only the edits changed."""
+        return dump_job(self.job if job is None else job, self.text)
 
     def changed_on_disk(self) -> bool:
         """True if the file no longer holds the bytes loaded or saved last."""
@@ -310,7 +315,7 @@ class JobSession:
         validate_job(loaded.job, loaded.path)
         if loaded.job != self.job:
             self._replace(loaded.job, f"reopen {self.path.name}")
-        self.digest, self.saved = loaded.digest, loaded.job
+        self.digest, self.saved, self.text = loaded.digest, loaded.job, loaded.text
 
 
 def _setter(path: Path_, text: str) -> Callable[[dict[str, Any], Path_], None]:
@@ -327,52 +332,3 @@ def _setter(path: Path_, text: str) -> Callable[[dict[str, Any], Path_], None]:
         if partner is not None:
             parent.pop(partner, None)
     return change
-
-
-# -- recovery of unsaved edits ---------------------------------------------------------------
-def default_state_dir() -> Path:
-    """Where recovery files live: $FIELDCOMP_STATE_DIR, else $XDG_STATE_HOME/fieldcomp, else
-    ~/.local/state/fieldcomp."""
-    if os.environ.get("FIELDCOMP_STATE_DIR"):
-        return Path(os.environ["FIELDCOMP_STATE_DIR"])
-    base = os.environ.get("XDG_STATE_HOME") or str(Path.home() / ".local" / "state")
-    return Path(base) / "fieldcomp"
-
-
-def recovery_path(state_dir: Path, job_path: Path | None) -> Path:
-    """One recovery file per job file (by its absolute path); one for untitled jobs."""
-    if job_path is None:
-        return state_dir / "untitled.recover.toml"
-    key = hashlib.sha256(str(job_path.resolve()).encode("utf-8")).hexdigest()[:16]
-    return state_dir / f"{job_path.stem[:40]}-{key}.recover.toml"
-
-
-def write_recovery(state_dir: Path, job_path: Path | None, job: Job) -> Path:
-    """Write the unsaved job atomically (temp file + replace) to its recovery file."""
-    target = recovery_path(state_dir, job_path)
-    target.parent.mkdir(parents=True, exist_ok=True)
-    head = f"# fieldcomp recovery file: unsaved edits of {job_path.resolve() if job_path else 'an untitled job'}\n"
-    fd, tmp = tempfile.mkstemp(prefix=".recover.", suffix=".tmp", dir=target.parent)
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8") as fh:
-            fh.write(head + dump_job(job))
-        os.replace(tmp, target)
-    except BaseException:
-        Path(tmp).unlink(missing_ok=True)
-        raise
-    return target
-
-
-def read_recovery(state_dir: Path, job_path: Path | None) -> Job | None:
-    """The recovered job, or None if there is none or it no longer loads."""
-    target = recovery_path(state_dir, job_path)
-    try:
-        job = parse_job(read_regular(target, MAX_BYTES, "recovery files").decode("utf-8"), target)
-        validate_job(job, target)
-    except (OSError, UnicodeDecodeError, JobFileError):
-        return None
-    return job
-
-
-def discard_recovery(state_dir: Path, job_path: Path | None) -> None:
-    recovery_path(state_dir, job_path).unlink(missing_ok=True)

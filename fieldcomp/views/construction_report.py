@@ -192,8 +192,8 @@ CSV_HEADER = ("mark", "shape", "span_in", "span", "screed", "wet_deflection_in",
 
 
 def csv_rows(results: list[ConstructionResult]) -> list[list[Any]]:
-    """Rows for the camber schedule CSV: caution, header, one row per beam; numbers stay numbers."""
-    rows: list[list[Any]] = [["caution", CAUTION], list(CSV_HEADER)]
+    """Rows for the camber schedule CSV: header, one row per beam, the caution last; numbers stay numbers."""
+    rows: list[list[Any]] = [list(CSV_HEADER)]
     for cr in results:
         j = construction_json(cr)
         bare = [o for o in cr.outcomes if o.stiffness == "bare steel" and not o.case.startswith("measured")]
@@ -207,4 +207,5 @@ def csv_rows(results: list[ConstructionResult]) -> list[list[Any]]:
             _num(low.stud_cover), _num(high.stud_cover), j["bare_phi_mn_kipft"], j["construction_mu_kipft"],
             cr.verdict, csv_cell(warnings),
         ])
+    rows.append(["caution", CAUTION])
     return rows

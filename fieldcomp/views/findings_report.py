@@ -20,6 +20,35 @@ TIMING_TEXT = {
 }
 
 
+FOUND_TEXT = {"before-pour": "found before the pour", "after-pour": "found after the pour",
+              "unknown": "timing unknown: both branches shown"}
+
+
+def printed_at(beam):
+    """Stations as printed for the erector (project.station_origin), ft-in to 1/16 in."""
+    from engine.studs.ribs import printed_station
+    from engine.model.units import format_ft_in
+
+    return lambda x: format_ft_in(float(printed_station(beam, x)))
+
+
+def finding_rows(review) -> list[dict[str, Any]]:
+    """Each finding as the report prints it: number, kind, count, rib, station, when it was found
+    (engine.field.timing), its effect and clause, the inspector's note."""
+    from engine.field.as_built import finding_effect, finding_slot
+    from engine.field.timing import finding_timing
+
+    b, d = review.before.beam, review.before.designed
+    at = printed_at(b)
+    rows = []
+    for i, f in enumerate(b.findings):
+        s = finding_slot(d, f, i)
+        effect, clause = finding_effect(d, f, s)
+        rows.append({"index": i + 1, "kind": f.kind, "count": f.count, "rib": s + 1, "station": at(float(d.x[s])),
+                     "found": finding_timing(b, d, f, i), "effect": effect, "clause": clause, "note": f.note})
+    return rows
+
+
 def _num(value: float, digits: int = 3) -> float | None:
     return finite(value, digits)
 
@@ -161,17 +190,12 @@ def findings_json(job_name: str, review, records: list[dict[str, str]] | None = 
 def findings_text(job_name: str, job_path: str, review, records: list[dict[str, str]] | None = None) -> str:
     """A readable report: the layout findings apply to, findings with their timing, effect and
     clause, the beam as built, and the remedies of the world each finding was found in."""
-    from engine.field.as_built import finding_effect, finding_slot
-    from engine.field.timing import finding_timing
-    from engine.studs.ribs import printed_station
     from engine.studs.sheet_data import station_origin_text
     from engine.model.units import format_ft_in, format_inches
     from fieldcomp.views.finished_report import check_lines
 
-    def at(x: float) -> str:
-        return format_ft_in(float(printed_station(b, x)))
-
     before = review.before
+    at = printed_at(before.beam)
     b, r, d = before.beam, before.result, before.designed
     ratio, station = before.min_strength_ratio
     k = r.critical
@@ -182,13 +206,10 @@ def findings_text(job_name: str, job_path: str, review, records: list[dict[str, 
              f"  studs the findings apply to: {review.source}",
              f"  found: {TIMING_TEXT[review.timing]}"]
     lines.append(f"  findings ({len(b.findings)}):" if b.findings else "  no findings recorded for this beam")
-    for i, f in enumerate(b.findings):
-        s = finding_slot(d, f, i)
-        effect, clause = finding_effect(d, f, s)
-        note = f" - \"{f.note}\"" if f.note else ""
-        when = finding_timing(b, d, f, i)
-        lines.append(f"  #{i + 1:<2} {f.kind:13} x{f.count} rib {s + 1:>3} @ {at(float(d.x[s])):>10} ({when}): "
-                     f"{effect} [{clause}]{note}")
+    for i, row in enumerate(finding_rows(review)):
+        note = f" - \"{row['note']}\"" if row["note"] else ""
+        lines.append(f"  #{row['index']:<2} {row['kind']:13} x{row['count']} rib {row['rib']:>3} @ {row['station']:>10} "
+                     f"({row['found']}): {row['effect']} [{row['clause']}]{note}")
         if records:
             rec = records[i]
             who = ", ".join(v for v in (rec["disposition_by"], rec["disposition_on"]) if v)
@@ -258,6 +279,7 @@ def _acceptance_lines(review, at) -> list[str]:
     gov = before.governing
     out = [f"  as built: {before.verdict.upper()} (governing {gov.name}, ratio {gov.ratio:.2f}; {gov.authority}); "
            f"acceptable by analysis: {'yes' if acc.acceptable else 'no, unless the engineer of record accepts it'}"]
+    out += acceptance_analysis_lines(before, at)
     if acc.acceptable:
         return out
     ref, far = before.beam.ribs.reference_end, before.beam.ribs.far_end
@@ -289,6 +311,30 @@ def _acceptance_lines(review, at) -> list[str]:
     if review.after_repair is not None:
         out.append("  ribs the concrete does not yet cover (a later pour stage):")
         out += _fewest_lines(before, review.after_repair, at)
+    return out
+
+
+ANALYSIS_PARTS = (("strength", lambda c: c.kind == "strength" and not c.id.startswith("composite.slip")),
+                  ("slip capacity", lambda c: c.id.startswith("composite.slip")),
+                  ("degree of composite", lambda c: c.id == "composite.degree_min"),
+                  ("deflection", lambda c: c.kind == "serviceability"))
+
+
+def acceptance_analysis_lines(before, at) -> list[str]:
+    """The beam as built, part by part (strength envelope, slip capacity, degree of composite,
+    deflection), each check with its verdict level and whose rule it is."""
+    from engine.model.units import format_inches
+
+    r, b = before.result, before.beam
+    low, where = before.min_strength_ratio
+    out = ["  acceptance analysis, the beam as built:",
+           f"    strength envelope: least capacity/demand {ratio_text(low)} at {at(where)}",
+           f"    degree of composite: {r.composite_ratio:.0%} (sum Qn {r.sum_qn_left:.0f} / {r.sum_qn_right:.0f} kips "
+           f"left/right of max moment)",
+           f"    deflection: live load {format_inches(r.live_deflection)} vs {format_inches(b.span / b.limits.live_ratio)}"]
+    for part, wanted in ANALYSIS_PARTS:
+        out += [f"    {part}: {c.name}, ratio {ratio_text(c.ratio)}: {str(c.level).upper()} ({c.authority}; {c.clause})"
+                for c in before.checks if wanted(c)]
     return out
 
 

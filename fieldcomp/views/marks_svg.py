@@ -162,8 +162,9 @@ def _strip(sheet: SheetData, top_y: float) -> list[str]:
     added = np.zeros(n, dtype=int) if sheet.added is None else np.asarray(sheet.added, dtype=int)
     deck = {"perpendicular": "deck ribs across the beam", "parallel": "deck flute along the beam (dashed)",
             "none": "solid slab"}[b.deck_case]
-    out = [_t(20, top_y + 14, f"ELEVATION - to scale along the beam, depth not to scale; {deck}; several studs in "
-              f"one {slot_word(b)} are drawn side by side", "k")]
+    ratio = span / ((X1 - X0) / 100.0)  # 100 drawing units to the inch of paper
+    out = [_t(20, top_y + 14, f"ELEVATION - along the beam 1 in = {ratio / 12:.2f} ft (1:{ratio:.0f}), depth not to "
+              f"scale; {deck}; several studs in one {slot_word(b)} are drawn side by side", "k")]
     out += _deck(sheet, span)
     out += [f'<rect x="{X0:.2f}" y="190" width="{X1 - X0:.2f}" height="24" fill="{STEEL}" stroke="{INK}" stroke-width="1"/>',
             f'<line x1="{X0:.2f}" y1="195" x2="{X1:.2f}" y2="195" stroke="{INK}" stroke-width="0.5"/>',
@@ -272,7 +273,7 @@ def _table(sheet: SheetData, y: float, bottom: float) -> list[str]:
 
 
 def _summary(sheet: SheetData, x: float, y: float, bottom: float) -> list[str]:
-    out = [_t(x, y, "TOTALS AND CHECKS", "k")]
+    out = [_t(x, y, "TOTALS AND CHECKS" if sheet.checks else "TOTALS", "k")]
     yy = y + 14
     for line in summary_lines(sheet):
         colour = f' style="fill:{LOST}"' if line.startswith(("FAIL", "REVIEW", "SHORTFALL")) else ""
@@ -309,12 +310,13 @@ def _instructions(sheet: SheetData) -> tuple[list[str], float]:
     return out, y + 6
 
 
-def marks_svg(sheet: SheetData) -> str:
+def marks_svg(sheet: SheetData, extra: tuple[str, ...] = ()) -> str:
     """The printable sheet as SVG text (landscape, 10 x 7.5 in: fits letter and tabloid); a field
-    sheet puts the crew's instructions and the approval block above it (a taller sheet)."""
+    sheet puts the crew's instructions and the approval block above it (a taller sheet). `extra`:
+    SVG elements drawn on the sheet (fieldcomp.views.erector_svg adds the side of the rib)."""
     band, band_h = _instructions(sheet)
     if band:
-        plain = marks_svg(replace(sheet, instructions=(), approval=False))
+        plain = marks_svg(replace(sheet, instructions=(), approval=False), extra)
         head, rest = plain.split(f'viewBox="0 0 {W} {H}">', 1)
         pre, body = rest.split(f'<rect x="8" y="8" width="984" height="734" fill="none" stroke="{INK}" stroke-width="1.6"/>', 1)
         total = H + band_h
@@ -333,7 +335,7 @@ def marks_svg(sheet: SheetData) -> str:
     split = 640.0
     body += [f'<line x1="8" y1="{table_y - 14:.2f}" x2="992" y2="{table_y - 14:.2f}" stroke="{INK}"/>',
              f'<line x1="{split:.2f}" y1="{table_y - 14:.2f}" x2="{split:.2f}" y2="700" stroke="{INK}"/>']
-    body += _table(sheet, table_y, 696) + _summary(sheet, split + 10, table_y, 690)
+    body += _table(sheet, table_y, 696) + _summary(sheet, split + 10, table_y, 690) + list(extra)
     caution = textwrap.wrap("CAUTION: " + clean(sheet.caution), 150)
     body += [f'<line x1="8" y1="700" x2="992" y2="700" stroke="{INK}" stroke-width="1.2"/>']
     body += [_t(20, 716 + 11 * i, part, "s") for i, part in enumerate(caution)]

@@ -26,7 +26,7 @@ import pytest
 
 ROOT = Path(__file__).resolve().parents[2]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
-WRITE_PATH = {"save_job", "_keep_backup", "write_recovery", "write_bytes_atomic", "write_text_atomic", "fsync_folder",
+WRITE_PATH = {"save_job", "write_job", "_keep_backup", "write", "write_bytes_atomic", "write_text_atomic", "fsync_folder",
               "_mode_for", "check_output"}
 
 
@@ -54,12 +54,12 @@ def _workbench_save(folder: Path) -> None:
 
 
 def _recovery(folder: Path) -> None:
-    from fieldcomp.jobs.jobfile import load_job
-    from fieldcomp.tui.session import write_recovery
+    from fieldcomp.tui.recovery import RecoveryFile
+    from fieldcomp.tui.session import JobSession
 
-    job = load_job(folder / "job.toml").job
-    write_recovery(folder / "state", folder / "job.toml",
-                   job.model_copy(update={"project": job.project.model_copy(update={"name": "Recovered"})}))
+    session = JobSession.open(folder / "job.toml")
+    job = session.job.model_copy(update={"project": session.job.project.model_copy(update={"name": "Recovered"})})
+    RecoveryFile(folder / "state", folder / "job.toml").write(session.render(job))
 
 
 SAVES = [

@@ -48,7 +48,6 @@ def test_crlf_line_endings_load(tmp_path):
     assert load_job(crlf).job == load_job(DEMO).job
 
 
-@pytest.mark.xfail(strict=False, reason="save path: workbench branch")
 def test_line_endings_and_byte_order_mark_are_kept_on_save(tmp_path):
     path = tmp_path / "crlf.toml"
     path.write_bytes(BOM + DEMO.read_bytes().replace(b"\n", b"\r\n"))

@@ -5,7 +5,6 @@ from __future__ import annotations
 from pathlib import Path
 from typing import Any
 
-import numpy as np
 from rich.text import Text
 from textual.app import ComposeResult
 from textual.binding import Binding
@@ -26,13 +25,16 @@ from fieldcomp.views.numbers import ratio_text
 
 FINDING_FIELDS = (
     FieldSpec("kind", ("kind",), "What the inspector found.",
-              ("missing", "failed-test", "weak-side", "off-rib", "short", "added")),
+              ("missing", "failed-test", "awaiting-test", "weak-side", "off-rib", "short", "added", "bent-accepted",
+               "replaced")),
     FieldSpec("rib", ("rib",), "Rib number from the reference end, 1-based (clears station)."),
     FieldSpec("station", ("station",), "Station from the reference end (clears rib)."),
     FieldSpec("count", ("count",), "Studs concerned."),
     FieldSpec("note", ("note",), "Inspector's note."),
     FieldSpec("date", ("date",), "Date of the report."),
     FieldSpec("by", ("reported_by",), "Who reported it."),
+    FieldSpec("found", ("found",), "Whether the slab over it was placed when it was found (blank: from the dates, "
+              "else unknown and both branches are shown).", ("before-pour", "after-pour"), optional=True),
 )
 
 
@@ -77,17 +79,36 @@ class FindingsEditor(RowEditor):
                                      "Columns: kind, rib or station, count, note, date, reported_by."), self.import_csv)
 
     def import_csv(self, path: Path | None) -> None:
-        from fieldcomp.jobs.inspection_log import CsvImportError, read_findings_csv
+        """Add the log's new rows (fieldcomp.jobs.log_import.plan_import: rows already recorded
+        are left out, each new row checked against the layout) as one edit, after the reports
+        they name that the beam lacks. Text from the file is shown as written (markup off)."""
+        from fieldcomp.jobs.inspection_log import CsvImportError, read_log
+        from fieldcomp.jobs.jobfile import JobFileError
+        from fieldcomp.jobs.log_import import plan_import
+        from fieldcomp.tui.messages import RowsSet
 
-        if path is None:
+        if path is None or self.session is None:
             return
+        index = self.beam_index
         try:
-            rows = read_findings_csv(path)
-        except CsvImportError as exc:
-            self.app.notify(str(exc), title="Not imported", severity="error", timeout=12)
+            log = read_log(path)
+            plan = plan_import(self.session.job, index, log, self.session.where, str(path))
+        except (CsvImportError, JobFileError) as exc:
+            self.app.notify(str(exc), title="Not imported", severity="error", timeout=12, markup=False)
             return
-        items = [f.model_dump(mode="json", exclude_defaults=True, exclude_none=True) for _, f in rows]
-        self.add(items, f"import {len(items)} finding(s) from {path.name}")
+        for warning in log.warnings:
+            self.app.notify(f"{path.name}: {warning}", title="Column ignored", severity="warning", markup=False)
+        recorded = f"{len(plan.recorded)} row(s) already recorded" if plan.recorded else ""
+        if not plan.added:
+            self.app.notify(f"Already recorded: every row of {path.name} is a finding of this beam already; "
+                            "nothing added.", title="Nothing imported", markup=False)
+            return
+        if plan.reports:
+            reports = [r.model_dump(mode="json", exclude_defaults=True) for r in plan.updated.beam[index].report]
+            self.post_message(RowsSet(("beam", index, "report"), reports,
+                                      f"add report(s) {', '.join(r.number for r in plan.reports)} from {path.name}"))
+        items = [f.model_dump(mode="json", exclude_defaults=True, exclude_none=True) for _, f in plan.added]
+        self.add(items, f"import {len(items)} finding(s) from {path.name}" + (f" ({recorded})" if recorded else ""))
 
 
 class FindingsPane(Pane):
@@ -115,10 +136,14 @@ class FindingsPane(Pane):
         self.query_one("#findings-head", Static).update(plain(f"{session.job.beam[index].mark}: stud inspection findings"))
 
     def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
+        """The beam as built and its review in the world each finding was found in: once the
+        second pass has reviewed it (engine.pipeline.field_review, on the layout the findings
+        apply to), the pane shows that review, as `fieldcomp findings` reports it."""
         verdict = self.query_one("#findings-verdict", Static)
         strip, plot = self.query_one(StudStrip), self.query_one(TerminalPlot)
         repair_text = self.query_one("#findings-repair", Static)
-        ab = outcome.as_built.value if outcome else None
+        review = outcome.review.value if outcome is not None else None
+        ab = review.before if review is not None else outcome.as_built.value if outcome else None
         if outcome is None or ab is None:
             error = outcome.as_built.error if outcome else None
             verdict.update(Text(error, style="bold red") if error else "No findings: the beam stands as designed.")
@@ -133,7 +158,7 @@ class FindingsPane(Pane):
         verdict.update(Text.assemble("As built: ", word(str(ab.verdict), badge=True), f"  governing: {gov.name}, ratio {ratio_text(gov.ratio)};  "
                                      f"least capacity / demand {ratio_text(low)} at {station(at)};  "
                                      f"{ab.layout.total} working studs of {ab.designed.total} designed"))
-        repair = outcome.repair.value if outcome.repair is not None else None
+        repair = None if review is None else review.repair if review.repair is not None else review.after_repair
         strip.draw(b.span, ab.designed.x, as_built_marks(ab, outcome.finding_slots, repair), ends=(b.ribs.reference_end, b.ribs.far_end),
                    keep_out=(b.ribs.keep_out_start, b.ribs.keep_out_end))
         kinds = {"stud"} | {f.kind for f in b.findings} | ({"repair"} if repair is not None and repair.total else set())
@@ -146,38 +171,19 @@ class FindingsPane(Pane):
             series.append(Series("repaired", repair.after.result.x, repair.after.result.capacity / 12.0, tone=2))
         series.append(Series("as built", r.x, r.capacity / 12.0, tone=3 if ab.verdict == "fail" else 0))
         plot.plot(series, b.span, fmt=lambda v: f"{v:,.0f} k-ft")
-        repair_text.update(self._repair_text(outcome, ab, repair))
+        repair_text.update(self._review_text(outcome))
         self.query_one(ChecksTable).show(ab.checks)
         self.query_one("#findings-effects", Static).update(plain(self._effects(b.findings, ab.flags)))
 
     @staticmethod
-    def _repair_text(outcome: BeamOutcome, ab, repair) -> Text:
-        from engine.studs.ribs import printed_station
+    def _review_text(outcome: BeamOutcome) -> Text:
+        from fieldcomp.tui.widgets.field_review_view import review_text
 
-        if ab.verdict != "fail":
-            return Text("No repair needed: no check fails as built.", style="green")
-        if outcome.repair is None:
-            return Text("Finding the fewest studs to add ...", style="italic")
-        if repair is None:
-            return Text(f"Repair not found: {outcome.repair.error}", style="bold red")
-        out = Text()
-        b = ab.beam
-        if repair.total:
-            proof = ("the fewest possible (equals the lower bound)" if repair.proven_fewest
-                     else f"lower bound {repair.lower_bound}")
-            out.append(f"Proposed repair: add {repair.total} stud(s), {proof}"
-                       f"{'' if repair.restores else ' - does NOT restore every check'}\n", style="bold")
-            for k in np.flatnonzero(repair.added):
-                at = station(float(printed_station(b, float(ab.designed.x[k]))))
-                out.append(f"  rib {k + 1} at {at} from {b.ribs.reference_end}: "
-                           f"add {int(repair.added[k])}\n")
-            after = repair.after
-            out.append(f"  after repair: {after.verdict}, governing {after.governing.name} "
-                       f"{ratio_text(after.governing.ratio)}\n")
-        for alt in repair.alternatives:
-            out.append(f"  option: {alt}\n", style="yellow")
-        out.append("Field repairs need the engineer of record's approval.", style="dim")
-        return out
+        if outcome.review.value is not None:
+            return review_text(outcome.review.value)
+        if outcome.review.error is not None:
+            return Text(f"Findings not reviewed: {outcome.review.error}", style="bold red")
+        return Text("Reviewing the findings: timing, repairs before the pour, acceptance after it ...", style="italic")
 
     @staticmethod
     def _effects(findings, flags) -> str:

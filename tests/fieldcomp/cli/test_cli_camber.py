@@ -87,9 +87,9 @@ def test_csv_escapes_user_text_and_keeps_numbers(tmp_path, capsys):
     assert main(["camber", str(risky_job(tmp_path)), "--csv", str(out)]) in (0, 3)  # no beam fails
     assert "wrote" in capsys.readouterr().out
     rows = list(csv.reader(out.open(newline="")))
-    assert rows[0][0] == "caution" and "engineer of record" in rows[0][1]
-    header = rows[1]
-    by_mark = {r[0]: dict(zip(header, r)) for r in rows[2:]}
+    assert rows[-1][0] == "caution" and "engineer of record" in rows[-1][1]  # header first, caution last
+    header = rows[0]
+    by_mark = {r[0]: dict(zip(header, r)) for r in rows[1:-1]}
     risky = by_mark["'=HYPERLINK(1)"]  # formula injection escaped (DESIGN.md section 7)
     assert risky["camber_reason"] == "not cambered: +cmd"  # does not start with a formula character
     assert float(by_mark["3B-102"]["camber_in"]) == 1.0 and by_mark["3B-102"]["camber_in"] == "1.0"

@@ -50,7 +50,6 @@ def test_every_bad_row_is_reported_with_its_row_number():
 
 
 @pytest.mark.parametrize("header, words", [
-    ("kind,rib,colour\n", "unknown column 'colour'"),
     ("rib,count\n", "a 'kind' column is required"),
     ("kind,count\n", "'rib' or a 'station' column"),
     ("kind,rib,rib\n", "more than once"),
@@ -59,6 +58,20 @@ def test_header_problems_name_row_1(header, words):
     with pytest.raises(CsvImportError) as err:
         parse_findings_csv(header + "missing,3\n")
     assert words in str(err.value) and all(row == 1 for row, _ in err.value.problems)
+
+
+def test_unknown_columns_are_ignored_with_a_warning_naming_each():
+    from fieldcomp.jobs.inspection_log import parse_log
+
+    log = parse_log("Kind,Colour,Rib,,Inspector stamp\nmissing,red,3,,ok\n")
+    assert [(n, f.kind, f.rib) for n, f in log.rows] == [(2, "missing", 3)]
+    assert [w.split(" ignored")[0] for w in log.warnings] == ["column 2 ('Colour')", "column 4 (no name)",
+                                                               "column 5 ('Inspector stamp')"]
+
+
+def test_found_and_report_columns_are_read():
+    ((_, f),) = parse_findings_csv("kind,rib,found,report\nmissing,3,After Pour,SI-09\n")
+    assert (f.found, f.report) == ("after-pour", "SI-09")
 
 
 def test_empty_log_is_refused():

@@ -25,7 +25,7 @@ job = loaded.job.model_copy(update={{"project": loaded.job.project.model_copy(up
 count = 0
 # every line that runs once the new text exists: backup, temp file, fsync, replace (the text
 # rendering before it writes nothing, so a kill there cannot tear a file)
-WRITE_PATH = {{"save_job", "_keep_backup", "write_bytes_atomic", "_mode_for", "fsync_folder"}}
+WRITE_PATH = {{"save_job", "write_job", "_keep_backup", "write_bytes_atomic", "_mode_for", "fsync_folder"}}
 
 def tracer(frame, event, arg):
     global count
@@ -91,7 +91,7 @@ def test_injected_os_failures_keep_the_old_file(tmp_path, monkeypatch, fail):
         raise OSError(28, "No space left on device")
 
     if fail == "write":
-        monkeypatch.setattr(jf, "tomli_w", type("W", (), {"dumps": staticmethod(lambda d: boom())}))
+        monkeypatch.setattr(jf, "patch_blocks", boom)  # rendering the new text fails
     else:
         monkeypatch.setattr(at.os, fail, boom)
     with pytest.raises(OSError):

@@ -18,7 +18,8 @@ from fieldcomp.tui.app import RECOVERY_DELAY, FieldcompApp
 from fieldcomp.jobs.jobfile import load_job, parse_job
 from fieldcomp.tui.dialogs import Choice
 from fieldcomp.tui.screens.help import HelpScreen
-from fieldcomp.tui.session import JobSession, read_recovery, recovery_path
+from fieldcomp.tui.recovery import recovery_path
+from fieldcomp.tui.session import JobSession
 from fieldcomp.tui.widgets.field_form import CHECK_DELAY
 from fieldcomp.jobs.to_engine import to_engine
 
@@ -207,7 +208,7 @@ def test_quit_with_unsaved_edits_asks_first(tmp_path):
             await pilot.click("#discard")
             await pilot.pause()
             assert not app.is_running
-        assert read_recovery(tmp_path / "state", app.session.path) is None
+        assert not list((tmp_path / "state").glob("*.recover.toml"))
     run(flow())
 
 

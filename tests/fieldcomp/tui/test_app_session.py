@@ -11,7 +11,8 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 from fieldcomp.jobs.jobfile import ChangedOnDiskError, JobFileError, load_job, parse_job
-from fieldcomp.tui.session import EditRejectedError, JobSession, read_recovery, recovery_path, write_recovery
+from fieldcomp.tui.recovery import RecoveryFile, read_recovery, recovery_path
+from fieldcomp.tui.session import EditRejectedError, JobSession
 
 ROOT = Path(__file__).resolve().parents[3]
 DEMO = ROOT / "jobs" / "harbor_row_level3.toml"
@@ -25,7 +26,7 @@ EDITS = st.lists(st.tuples(st.sampled_from([("beam", 0, "live_psf"), ("beam", 1,
 
 def fresh() -> JobSession:
     s = DEMO_SESSION
-    return JobSession(s.job, s.path, s.digest, s.saved)
+    return JobSession(s.job, s.path, s.digest, s.saved, text=s.text)
 
 
 @settings(max_examples=40, deadline=None, suppress_health_check=[HealthCheck.too_slow])
@@ -91,9 +92,10 @@ def test_save_keeps_bak_and_refuses_a_file_changed_on_disk(tmp_path):
 def test_recovery_file_round_trip(tmp_path):
     s = fresh()
     s.set_text(("beam", 0, "live_psf"), "123")
-    written = write_recovery(tmp_path, s.path, s.job)
-    assert written == recovery_path(tmp_path, s.path)
-    assert read_recovery(tmp_path, s.path) == s.job
-    assert read_recovery(tmp_path, None) is None  # untitled jobs have their own file
-    written.write_text("not a job")
-    assert read_recovery(tmp_path, s.path) is None  # a damaged recovery file is not offered
+    kept = RecoveryFile(tmp_path, s.path)
+    assert kept.write(s.render()) is None and kept.path == recovery_path(tmp_path, s.path)
+    assert read_recovery(kept.path) == (s.job, s.render())
+    assert recovery_path(tmp_path, None) != kept.path  # untitled jobs have their own file
+    kept.path.write_text("not a job")
+    assert read_recovery(kept.path) is None  # a damaged recovery file is not offered
+    kept.release()
