@@ -25,6 +25,35 @@ MAX_POUR_STAGES = 20  # a pour plan placed in short segments from both sides sta
 
 def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInput]:
     """Every beam of the job as a `BeamInput`. Raises JobFileError listing every problem."""
+    slabs, rules, problems = _materials(job)
+    beams: list[BeamInput] = []
+    for i, b in enumerate(job.beam):
+        here = f"beam '{shown(b.mark)}' #{i + 1}"
+        try:
+            beams.append(beam_input(job, b, slabs[b.slab], rules))
+        except _FieldProblemError as exc:
+            problems.append((f"{here}, field '{exc.field}'", str(exc)))
+    if problems:
+        raise JobFileError(path, problems)
+    return beams
+
+
+def one_beam_to_engine(job: Job, index: int, path: str | os.PathLike[str] = "<job>") -> BeamInput:
+    """Beam `index` of the job as a `BeamInput`, with the problems `to_engine` would list for it
+    (and for the job's decks and slabs); the other beams are not converted."""
+    slabs, rules, problems = _materials(job)
+    b = job.beam[index]
+    try:
+        beam = beam_input(job, b, slabs[b.slab], rules)
+    except _FieldProblemError as exc:
+        problems.append((f"beam '{shown(b.mark)}' #{index + 1}, field '{exc.field}'", str(exc)))
+    if problems:
+        raise JobFileError(path, problems)
+    return beam
+
+
+def _materials(job: Job) -> tuple[dict[str, Slab], CamberRules, list[tuple[str, str]]]:
+    """The job's slabs (with their decks) and camber rules as engine inputs, and their problems."""
     decks = {d.id: DeckProfile(d.id, parse_length(d.rib_height), parse_length(d.rib_top_width),
                                parse_length(d.rib_bottom_width), parse_length(d.pitch), d.weight_psf,
                                parse_length(d.stud_offset)) for d in job.deck}
@@ -51,16 +80,7 @@ def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInpu
     cam = job.project.camber
     rules = CamberRules(cam.fraction, parse_length(cam.increment), parse_length(cam.minimum),
                         parse_length(cam.min_length), parse_length(cam.min_depth), parse_length(cam.thin_web))
-    beams: list[BeamInput] = []
-    for i, b in enumerate(job.beam):
-        here = f"beam '{shown(b.mark)}' #{i + 1}"
-        try:
-            beams.append(beam_input(job, b, slabs[b.slab], rules))
-        except _FieldProblemError as exc:
-            problems.append((f"{here}, field '{exc.field}'", str(exc)))
-    if problems:
-        raise JobFileError(path, problems)
-    return beams
+    return slabs, rules, problems
 
 
 class _FieldProblemError(FieldcompError, ValueError):

@@ -8,6 +8,8 @@ changes on disk; unsaved edits are kept in a recovery file that the next start o
 from __future__ import annotations
 
 import datetime
+import gc
+import sys
 import time
 from functools import partial
 from pathlib import Path
@@ -19,8 +21,11 @@ from textual.app import App
 from textual.notifications import SeverityLevel
 from textual.binding import Binding
 from textual.theme import Theme
+from textual.timer import Timer
 
+from engine.model.inputs import BeamInput
 from engine.model.text import printable_lines
+from fieldcomp.jobs.jobfile import JobFileError
 from fieldcomp.tui.files import FileActions
 from fieldcomp.tui.palette import WorkbenchCommands
 from fieldcomp.jobs.model import Job
@@ -42,6 +47,11 @@ THEMES = {
                   variables={"footer-key-foreground": "#6DB0DE"}),
 }
 DISK_POLL_SECONDS = 2.0
+BATCH_SECONDS = 0.1  # a worker sends the results it has at most this often (one update of the panes each)
+YIELD_SECONDS = 0.05  # a worker pauses this long after the edited beam's result, so the panes redraw first
+RECOVERY_DELAY = 1.0  # s: the recovery file of a large job is written once edits pause this long
+RECOVERY_LARGE_JOB = 200  # beams: smaller jobs write their recovery file after every edit
+SWITCH_INTERVAL = 0.001  # s: the interface thread gets the interpreter back this soon from a worker
 # Actions offered only in the command palette (no key of their own).
 PALETTE_ONLY = (
     ("New job from the starter", "Start an untitled job from fieldcomp/jobs/starter.toml.", "new_job"),
@@ -74,16 +84,21 @@ class FieldcompApp(FileActions, App[None]):
     def __init__(self, session: JobSession, *, state_dir: Path | None = None, theme: str = "dark",
                  date: str | None = None) -> None:
         """`date`: printed on marks sheets (default: today, YYYY-MM-DD)."""
+        gc.freeze()  # the loaded job lives as long as the app: the collector need not walk it again
+        sys.setswitchinterval(SWITCH_INTERVAL)  # keys and redraws wait less behind a computing worker
         super().__init__()
         self.session = session
         self.state_dir = state_dir if state_dir is not None else default_state_dir()
         self.cache = OutcomeCache()
         self.date = date or datetime.date.today().isoformat()
-        self.outcomes: list[BeamOutcome] = []
+        self.outcomes: list[BeamOutcome | None] = []  # per beam; None until its worker result arrives
+        self._inputs: list[BeamInput] = []  # the engine inputs of the beams, as `outcomes` were computed
         self.selected = 0
         self.redraw_ms: list[float] = []  # edit accepted -> every pane redrawn, per edit
         self.repair_ms: list[float] = []  # edit accepted -> the repair of the selected beam shown
+        self.switch_ms: list[float] = []  # another beam selected -> its panes redrawn
         self._disk_warned = False
+        self._recovery_timer: Timer | None = None
         for look in THEMES.values():
             self.register_theme(look)
         self.theme = THEMES[theme].name  # before mount: the CSS is computed once
@@ -96,6 +111,9 @@ class FieldcompApp(FileActions, App[None]):
         """Called by the workbench once its panes are mounted: first show, then any recovery."""
         self.job_changed(time.perf_counter())
         self.offer_recovery()
+
+    def _showing(self) -> bool:
+        return any(isinstance(s, WorkbenchScreen) for s in self.screen_stack)
 
     @property
     def workbench(self) -> WorkbenchScreen:
@@ -130,70 +148,131 @@ class FieldcompApp(FileActions, App[None]):
             self.job_changed(started)
 
     def job_changed(self, started: float) -> None:
-        """The job changed (edit, undo, open): recompute in a worker; the panes' inputs are
-        refilled with its results, so the interpreter is the worker's meanwhile."""
+        """The job changed (edit, undo, open): the beams whose engine inputs changed are
+        recomputed in a worker, the selected one first; the others keep their outcomes."""
         self.selected = max(0, min(self.selected, len(self.session.job.beam) - 1))
         self.update_title()
-        self.recompute(self.session.job, self.session.version, started)
-
-    @work(exclusive=True, thread=True, group="compute", description="recompute the job")
-    def recompute(self, job: Job, version: int, started: float) -> None:
-        outcomes = self.cache.job(job, self.date)
-        self.post_message(ResultsReady(version, outcomes, started))
-
-    def on_results_ready(self, message: ResultsReady) -> None:
-        if message.version != self.session.version:
-            return  # a later edit is on its way
-        self.outcomes = list(message.outcomes)
+        try:
+            inputs = self.session.engine_beams()
+        except JobFileError as exc:  # cannot happen for a validated job; shown, not raised
+            self.notify(str(exc), title="Not computed", severity="error")
+            return
+        known = {id(o.beam_in): o for o in self.outcomes if o is not None}
+        had = {k for k, o in enumerate(self.outcomes) if o is not None} if len(inputs) == len(self.outcomes) else set()
+        self.outcomes = [known.get(id(b)) for b in inputs]
+        self._inputs = inputs
+        todo = [k for k, o in enumerate(self.outcomes) if o is None]
+        todo.sort(key=lambda k: (k != self.selected, k not in had))  # the selected, then the edited beams
         self.workbench.show_job(self.session, self.selected)
-        self.show_outcomes()
-        self.call_after_refresh(self._redrawn, message.version, message.started)
+        self.show_outcomes(changed=todo if had else None)  # the rows of the beams to recompute say so
+        version = self.session.version
+        if todo:
+            self.recompute(version, [(k, inputs[k]) for k in todo], list(self.outcomes), started)
+        else:
+            self.call_after_refresh(self._redrawn, version, started)
 
-    def _redrawn(self, version: int, started: float) -> None:
-        """The panes are on screen: log the time, then start the second pass (sheets, repairs),
-        which would otherwise compete with the redraw for the interpreter."""
-        self.redraw_ms.append((time.perf_counter() - started) * 1000.0)
-        if version == self.session.version:
-            self.keep_recovery(self.session.job if self.session.dirty else None)
-        pending = [k for k, o in enumerate(self.outcomes) if not o.finished_all]
-        if pending and version == self.session.version:
-            pending.sort(key=lambda k: k != self.selected)
-            self.finish_outcomes(version, [(k, self.outcomes[k]) for k in pending], started)
-
-    @work(exclusive=True, thread=True, group="finish", description="sheets and repairs")
-    def finish_outcomes(self, version: int, todo: list[tuple[int, BeamOutcome]], started: float) -> None:
-        """Second pass: marks sheets, and the repair of every beam that fails as built; the
-        selected beam first."""
+    @work(exclusive=True, thread=True, group="compute", description="recompute the changed beams")
+    def recompute(self, version: int, todo: list[tuple[int, BeamInput]], known: list[BeamOutcome | None],
+                  started: float) -> None:
+        """First pass of every beam in `todo` (the selected beam first, alone in its message),
+        then the second pass (sheets, repair) of the selected beam and of every other beam."""
         worker = get_current_worker()
-        for index, outcome in todo:
+        name, date = self.session.job.project.name, self.date
+        batch: list[tuple[int, BeamOutcome]] = []
+        sent = time.perf_counter()
+        for n, (k, beam) in enumerate(todo):
             if worker.is_cancelled:
                 return
-            self.post_message(OutcomeFinished(version, index, self.cache.finished(outcome), started))
+            known[k] = self.cache.get(beam, name, date)
+            batch.append((k, known[k]))
+            if n == 0 or time.perf_counter() - sent > BATCH_SECONDS:
+                self.post_message(ResultsReady(version, batch, started))
+                batch, sent = [], time.perf_counter()
+        if batch:
+            self.post_message(ResultsReady(version, batch, started))
+        time.sleep(YIELD_SECONDS)  # the panes redraw before the second pass takes the interpreter
+        pending = [k for k, o in enumerate(known) if o is not None and not o.finished_all]
+        pending.sort(key=lambda k: k != self.selected)
+        for n, k in enumerate(pending):
+            if worker.is_cancelled:
+                return
+            known[k] = self.cache.finished(known[k])  # type: ignore[arg-type]
+            batch.append((k, known[k]))
+            if n == 0 or time.perf_counter() - sent > BATCH_SECONDS:
+                self.post_message(OutcomeFinished(version, batch, started))
+                batch, sent = [], time.perf_counter()
+        if batch:
+            self.post_message(OutcomeFinished(version, batch, started))
+
+    def on_results_ready(self, message: ResultsReady) -> None:
+        if message.version != self.session.version or not self._showing():
+            return  # a later edit is on its way, or the app is closing
+        for k, outcome in message.updates:
+            self.outcomes[k] = outcome
+        self.show_outcomes(changed=[k for k, _ in message.updates])
+        if any(k == self.selected for k, _ in message.updates):
+            self.call_after_refresh(self._redrawn, message.version, message.started)
+
+    def _redrawn(self, version: int, started: float) -> None:
+        """The selected beam's panes are on screen: log the time, keep the recovery file."""
+        self.redraw_ms.append((time.perf_counter() - started) * 1000.0)
+        if version == self.session.version:
+            if self._recovery_timer is not None:
+                self._recovery_timer.stop()
+                self._recovery_timer = None
+            if len(self.session.job.beam) < RECOVERY_LARGE_JOB:
+                self._keep_recovery_now()
+            else:
+                self._recovery_timer = self.set_timer(RECOVERY_DELAY, self._keep_recovery_now)
+
+    def _keep_recovery_now(self) -> None:
+        """Write the recovery file once edits pause (writing a large job takes the interpreter)."""
+        self._recovery_timer = None
+        self.keep_recovery(self.session.job if self.session.dirty else None)
 
     def on_outcome_finished(self, message: OutcomeFinished) -> None:
-        if message.version != self.session.version or message.index >= len(self.outcomes):
+        if message.version != self.session.version or not self._showing():
             return
-        self.outcomes[message.index] = message.outcome
-        if message.index == self.selected:
-            self.show_outcomes()
-            if message.outcome.needs_repair:
+        for k, outcome in message.updates:
+            if k < len(self.outcomes):
+                self.outcomes[k] = outcome
+        if any(k == self.selected for k, _ in message.updates):
+            self.show_outcomes(changed=[])
+            if self.outcomes[self.selected].needs_repair:  # type: ignore[union-attr]
                 self.call_after_refresh(self._repair_shown, message.started)
 
     def _repair_shown(self, started: float) -> None:
         self.repair_ms.append((time.perf_counter() - started) * 1000.0)
 
-    def show_outcomes(self) -> None:
-        if len(self.outcomes) == len(self.session.job.beam):
-            self.workbench.show_outcomes([b.mark for b in self.session.job.beam], self.outcomes, self.selected)
+    def show_outcomes(self, changed: list[int] | None) -> None:
+        """Update the beam list (every row, or the rows `changed`) and the visible pane."""
+        if len(self.outcomes) != len(self.session.job.beam):
+            return
+        marks = [b.mark for b in self.session.job.beam]
+        self.workbench.show_outcomes(marks, self.outcomes, self.selected, changed)
 
     def on_beam_selected(self, message: BeamSelected) -> None:
         if message.index != self.selected:
             self.select_beam(message.index)
 
     def select_beam(self, index: int) -> None:
+        """Show another beam: its outcome now (computed here if the worker has not reached it),
+        its sheets and repair from a worker."""
+        started = time.perf_counter()
         self.selected = max(0, min(index, len(self.session.job.beam) - 1))
+        if self.selected < len(self.outcomes) and self.outcomes[self.selected] is None:
+            beam = self._inputs[self.selected]
+            self.outcomes[self.selected] = self.cache.get(beam, self.session.job.project.name, self.date)
         self.workbench.show_job(self.session, self.selected)
-        self.show_outcomes()
+        self.show_outcomes(changed=[self.selected])
+        self.call_after_refresh(lambda: self.switch_ms.append((time.perf_counter() - started) * 1000.0))
+        outcome = self.outcomes[self.selected] if self.selected < len(self.outcomes) else None
+        if outcome is not None and not outcome.finished_all:
+            self.finish_selected(self.session.version, self.selected, outcome)
+
+    @work(exclusive=True, thread=True, group="finish", description="sheets and repair of the selected beam")
+    def finish_selected(self, version: int, index: int, outcome: BeamOutcome) -> None:
+        self.post_message(OutcomeFinished(version, [(index, self.cache.finished(outcome))], time.perf_counter()))
 
     def notify(self, message: str, *, title: str = "", severity: SeverityLevel = "information",
                timeout: float | None = None, markup: bool = True) -> None:

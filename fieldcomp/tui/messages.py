@@ -39,23 +39,23 @@ class RowRemoved(Message):
 
 
 class ResultsReady(Message):
-    """A worker finished computing every beam of job `version`; `outcomes` align with the beams."""
+    """A worker computed some beams of job `version` (first pass): `updates` holds (beam index,
+    outcome) pairs, one batch per message; `started` is when the change reached the app."""
 
-    def __init__(self, version: int, outcomes: list[Any], started: float) -> None:
+    def __init__(self, version: int, updates: list[tuple[int, Any]], started: float) -> None:
         super().__init__()
         self.version = version
-        self.outcomes = outcomes
+        self.updates = updates
         self.started = started
 
 
 class OutcomeFinished(Message):
-    """The second pass (marks sheets, repair) finished beam `index` of job `version`."""
+    """The second pass (marks sheets, repair) finished the beams in `updates` of job `version`."""
 
-    def __init__(self, version: int, index: int, outcome: Any, started: float) -> None:
+    def __init__(self, version: int, updates: list[tuple[int, Any]], started: float) -> None:
         super().__init__()
         self.version = version
-        self.index = index
-        self.outcome = outcome
+        self.updates = updates
         self.started = started
 
 

@@ -21,7 +21,7 @@ from fieldcomp import CAUTION
 from fieldcomp.jobs.model import Job
 from fieldcomp.jobs.to_engine import to_engine
 
-CACHE_SIZE = 256
+CACHE_SIZE = 512  # the outcomes undo may bring back; the app keeps those of the job it shows
 
 
 @dataclass(frozen=True, slots=True)
@@ -50,6 +50,12 @@ class BeamOutcome:
     repair_sheet: Part = NONE  # engine.studs.sheet_data.SheetData of the repair marks (second pass)
     review: Part = NONE  # engine.pipeline.FieldReview: timing, remedies before / after the pour (second pass)
     key: tuple[str, str] = ("", "")  # (job name, sheet date) the sheets were made with
+    source: BeamInput | None = None  # the engine input as converted from the job (`beam` is it as poured)
+
+    @property
+    def beam_in(self) -> BeamInput:
+        """The engine input this outcome was computed from."""
+        return self.source if self.source is not None else self.beam
 
     @property
     def result(self) -> BeamResult | None:
@@ -100,6 +106,7 @@ def compute_outcome(beam: BeamInput, job_name: str = "", date: str = "") -> Beam
     from engine.studs.design import design_layout
     from engine.studs.layout import deck_anchor_slots
 
+    source = beam
     poured = _part(lambda: as_poured(beam))
     construction = Part(poured.value[1]) if poured.value is not None else poured
     if poured.value is not None:
@@ -112,7 +119,7 @@ def compute_outcome(beam: BeamInput, job_name: str = "", date: str = "") -> Beam
         as_built = _part(lambda: evaluate_as_built(beam, layout.value.layout))
         if as_built.value is not None:
             slots = tuple(finding_slot(layout.value.layout, f, i) for i, f in enumerate(beam.findings))
-    return BeamOutcome(beam, finished, construction, layout, anchors, as_built, slots, key=(job_name, date))
+    return BeamOutcome(beam, finished, construction, layout, anchors, as_built, slots, key=(job_name, date), source=source)
 
 
 def finish(outcome: BeamOutcome) -> BeamOutcome:
@@ -156,7 +163,7 @@ class OutcomeCache:
 
     def put(self, outcome: BeamOutcome) -> None:
         with self._lock:
-            self._store[(outcome.beam, *outcome.key)] = outcome
+            self._store[(outcome.beam_in, *outcome.key)] = outcome
             if len(self._store) > CACHE_SIZE:
                 self._store.popitem(last=False)
 
@@ -166,8 +173,12 @@ class OutcomeCache:
 
     def finished(self, outcome: BeamOutcome) -> BeamOutcome:
         """`outcome` after the second pass, cached."""
-        done = self.get(outcome.beam, *outcome.key)
-        if not done.finished_all:
-            done = finish(done)
-            self.put(done)
+        if outcome.finished_all:
+            return outcome
+        with self._lock:
+            hit = self._store.get((outcome.beam_in, *outcome.key))
+        if hit is not None and hit.finished_all:
+            return hit
+        done = finish(outcome)
+        self.put(done)
         return done

@@ -9,6 +9,11 @@ from functools import partial
 from typing import Callable, Iterator, Protocol
 
 from textual.command import DiscoveryHit, Hit, Hits, Provider
+from textual.content import Content
+from textual.fuzzy import Matcher
+from textual.markup import escape
+
+from engine.model.text import printable
 
 from fieldcomp.tui.session import JobSession
 
@@ -35,11 +40,23 @@ class WorkbenchCommands(Provider):
     async def discover(self) -> Hits:
         for name, help_text, callback in self._commands():
             if not name.startswith("Go to beam"):
-                yield DiscoveryHit(name, callback, help=help_text)
+                yield DiscoveryHit(Content(printable(name)), callback, text=name, help=escape(printable(help_text)))
 
     async def search(self, query: str) -> Hits:
         matcher = self.matcher(query)
         for name, help_text, callback in self._commands():
             score = matcher.match(name)
             if score > 0:
-                yield Hit(score, matcher.highlight(name), callback, help=help_text)
+                yield Hit(score, literal_highlight(matcher, name), callback, text=name, help=escape(printable(help_text)))
+
+
+def literal_highlight(matcher: Matcher, name: str) -> Content:
+    """`name` with the matched letters styled, as literal text (a mark such as "[/]" is never
+    read as markup, which Matcher.highlight would do)."""
+    name = printable(name)
+    content = Content(name)
+    _, offsets = matcher.fuzzy_search.match(matcher.query, name)
+    for at in offsets:
+        if not name[at].isspace():
+            content = content.stylize(matcher.match_style, at, at + 1)
+    return content

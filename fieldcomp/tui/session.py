@@ -21,6 +21,7 @@ from fieldcomp.jobs.jobfile import MAX_BYTES, JobFileError, dump_job, load_job, 
 from fieldcomp.jobs.model import Job
 from fieldcomp.jobs.typed_text import value_from_text
 from engine.model.errors import FieldcompError
+from engine.model.inputs import BeamInput
 
 Path_ = tuple[str | int, ...]  # ("beam", 0, "studs", "count")
 
@@ -84,6 +85,8 @@ class JobSession:
     redo_stack: list[tuple[Job, str]] = field(default_factory=list)
     version: int = 0  # bumps on every change of `job`
     text: str | None = None  # the file's text as loaded or saved last: a save changes only the edits in it
+    _last_check: tuple[tuple[Any, ...], Any] | None = field(default=None, repr=False, compare=False)
+    _engine: dict[int, tuple[Any, Any, BeamInput]] = field(default_factory=dict, repr=False, compare=False)
 
     @classmethod
     def open(cls, path: str | os.PathLike[str]) -> "JobSession":
@@ -123,37 +126,120 @@ class JobSession:
             raise EditRejectedError(exc.problems) from None
         return job
 
-    def apply(self, change: Callable[[dict[str, Any]], None], description: str) -> bool:
-        """Apply a change if the loader accepts it; False when it changes nothing."""
-        job = self.candidate(change)
+    def beam_candidate(self, index: int, change: Callable[[dict[str, Any]], None]) -> Job:
+        """The job after `change` to beam `index` alone (applied to a plain copy of that beam).
+        Only that beam is validated and converted, with the loader's own messages: the rest of
+        the job is valid already and unchanged."""
+        from fieldcomp.jobs.jobfile import _check_references, _describe, _merge
+        from fieldcomp.jobs.model import Beam
+        from fieldcomp.jobs.to_engine import one_beam_to_engine, require_in_scope
+        from pydantic import ValidationError
+
+        old = self.job.beam[index]
+        raw = _raw(old)
+        change(raw)
+        try:
+            beam = Beam.model_validate(raw)
+        except ValidationError as exc:
+            view = {"beam": [None] * index + [raw]}
+            problems = [_describe({**err, "loc": ("beam", index, *err["loc"])}, view) for err in exc.errors()]
+            raise EditRejectedError(_merge(problems)) from None
+        if beam == old:
+            return self.job
+        beams = list(self.job.beam)
+        beams[index] = beam
+        job = self.job.model_copy(update={"beam": beams})
+        try:
+            if beam.mark != old.mark or beam.slab != old.slab:
+                _check_references(job, self.where)
+            converted = one_beam_to_engine(job, index, self.where)
+            require_in_scope([converted], self.where)
+        except JobFileError as exc:
+            raise EditRejectedError(exc.problems) from None
+        self._remember(job, beam, converted)
+        return job
+
+    def _edit(self, path: Path_, change: Callable[[dict[str, Any], Path_], None]) -> Job:
+        """The job after `change(raw, at)`, where `at` is `path` below the plain node `raw`: a
+        change inside one beam is given that beam alone (the one-beam path), others the job."""
+        if len(path) > 2 and path[0] == "beam" and isinstance(path[1], int) and 0 <= path[1] < len(self.job.beam):
+            return self.beam_candidate(path[1], lambda raw: change(raw, path[2:]))
+        return self.candidate(lambda raw: change(raw, path))
+
+    def _take(self, job: Job, description: str) -> bool:
         if job == self.job:
             return False
         self._replace(job, description)
         return True
 
+    def apply(self, change: Callable[[dict[str, Any]], None], description: str) -> bool:
+        """Apply a change if the loader accepts it; False when it changes nothing."""
+        return self._take(self.candidate(change), description)
+
     def set_text(self, path: Path_, text: str) -> bool:
         """Set one field from typed text (lengths with units, numbers, words); '' clears an
         optional field. Raises EditRejectedError with the loader's messages."""
-        return self.apply(_setter(path, text), f"{self.label(path)} = {text.strip() or '(none)'}")
+        return self._take(self._checked(path, text), f"{self.label(path)} = {text.strip() or '(none)'}")
 
     def check_text(self, path: Path_, text: str) -> list[tuple[str, str]]:
         """The loader's problems if `path` were set to `text` ([] when it would be accepted)."""
         try:
-            self.candidate(_setter(path, text))
+            self._checked(path, text)
         except EditRejectedError as exc:
             return exc.problems
         return []
 
+    def _checked(self, path: Path_, text: str) -> Job:
+        """The job with `path` set to `text`. The last answer is kept, so the edit that follows
+        an inline check of the same text does not validate it again."""
+        key = (self.version, path, text)
+        last = self._last_check
+        if last is not None and last[0] == key:
+            if isinstance(last[1], EditRejectedError):
+                raise last[1]
+            return last[1]
+        try:
+            job = self._edit(path, _setter(path, text))
+        except EditRejectedError as exc:
+            self._last_check = (key, exc)
+            raise
+        self._last_check = (key, job)
+        return job
+
     def set_rows(self, path: Path_, rows: list[dict[str, Any]], description: str) -> bool:
         """Replace the rows of a table (pour stages, findings) at `path` as one edit."""
-        def change(raw: dict[str, Any]) -> None:
-            _node(raw, path[:-1])[path[-1]] = rows
-        return self.apply(change, description)
+        def change(raw: dict[str, Any], at: Path_) -> None:
+            _node(raw, at[:-1])[at[-1]] = rows
+        return self._take(self._edit(path, change), description)
 
     def remove(self, path: Path_, index: int, description: str) -> bool:
-        def change(raw: dict[str, Any]) -> None:
-            del _node(raw, path)[index]
-        return self.apply(change, description)
+        def change(raw: dict[str, Any], at: Path_) -> None:
+            del _node(raw, at)[index]
+        return self._take(self._edit(path, change), description)
+
+    # -- engine inputs -------------------------------------------------------------------------
+    def engine_beams(self) -> list[BeamInput]:
+        """Every beam of the current job as engine input, in job order. Inputs are kept per beam
+        (job models are frozen), so after a one-beam edit or an undo only that beam converts."""
+        from fieldcomp.jobs.to_engine import one_beam_to_engine, to_engine
+
+        job = self.job
+        context = (job.project, job.deck, job.slab)
+        hits = [self._engine.get(id(b)) for b in job.beam]
+        fresh = [k for k, h in enumerate(hits) if h is None or h[0] is not job.beam[k] or h[1] != context]
+        if len(fresh) > 8:
+            converted = to_engine(job, self.where)
+            for b, c in zip(job.beam, converted):
+                self._engine[id(b)] = (b, context, c)
+            return converted
+        for k in fresh:
+            self._engine[id(job.beam[k])] = (job.beam[k], context, one_beam_to_engine(job, k, self.where))
+        if len(self._engine) > 2 * len(job.beam) + 2 * UNDO_DEPTH:
+            self._engine = {id(b): self._engine[id(b)] for b in job.beam}
+        return [self._engine[id(b)][2] for b in job.beam]
+
+    def _remember(self, job: Job, beam: Any, converted: BeamInput) -> None:
+        self._engine[id(beam)] = (beam, (job.project, job.deck, job.slab), converted)
 
     def replace_job(self, job: Job, description: str) -> None:
         """Take a whole validated job (restored recovery, reloaded file) as one undoable edit."""
@@ -232,10 +318,11 @@ class JobSession:
         self.digest, self.saved, self.text = loaded.digest, loaded.job, loaded.text
 
 
-def _setter(path: Path_, text: str) -> Callable[[dict[str, Any]], None]:
-    def change(raw: dict[str, Any]) -> None:
-        parent = _node(raw, path[:-1])
-        key = path[-1]
+def _setter(path: Path_, text: str) -> Callable[[dict[str, Any], Path_], None]:
+    """The change setting `path` from typed `text`, applied at `at` (`path` below the node given)."""
+    def change(raw: dict[str, Any], at: Path_) -> None:
+        parent = _node(raw, at[:-1])
+        key = at[-1]
         value = text.strip()
         if value == "":
             parent.pop(key, None)

@@ -61,10 +61,10 @@ def test_markup_in_job_text_is_drawn_literally_on_every_pane(tmp_path):
             await settle(pilot, app)
             head = str(app.workbench.query_one("#beam-head", Static).render())
             assert head.startswith("[/]3B-101")  # drawn as typed
-            field = app.workbench.query_one("#beam-form #f-span", Input)
+            field = app.workbench.query_one("#beam-form #span", Input)
             field.focus()
             field.value = "[/]30 ft"  # refused by the loader; the problem line quotes it
-            await pilot.pause()
+            await pilot.pause(0.4)  # the check runs a moment after the last change
             problem = str(app.workbench.query_one("#beam-form .form--problem", Static).render())
             assert "'[/]30 ft'" in problem
             await pilot.press("enter")

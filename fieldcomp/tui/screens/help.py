@@ -22,8 +22,11 @@ PANES = (
 )
 TYPING = (
     "Lengths carry units, as people write them: 32'-6 1/2\", 45 ft, 6.5 in, 3/4 in, 1650 mm.",
-    "A field is checked as you type, with the job-file loader's own message; Enter or leaving the",
-    "field applies it and every pane recomputes. Undo and redo step through the last edits.",
+    "A field is checked a moment after the last key, with the job-file loader's own message; Enter or",
+    "leaving the field applies it and the panes recompute. Keys typed in a field are text (1-6, [ and ]",
+    "switch panes and beams only outside fields). Undo and redo step through the last edits.",
+    "The beam list gives each beam's verdict as designed, during construction and as built (with",
+    "findings): pass, review or fail with the governing ratio; f3 shows or hides it.",
 )
 
 

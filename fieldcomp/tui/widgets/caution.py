@@ -1,4 +1,4 @@
-"""The caution, always on screen in one line."""
+"""The caution, always on screen in full (one line on a wide terminal, wrapped on a narrow one)."""
 
 from __future__ import annotations
 
@@ -9,7 +9,7 @@ from fieldcomp import CAUTION
 
 class CautionLine(Static):
     DEFAULT_CSS = """
-    CautionLine { height: 1; width: 1fr; padding: 0 1; text-wrap: nowrap; text-overflow: ellipsis;
+    CautionLine { height: auto; max-height: 3; width: 1fr; padding: 0 1;
                   background: $warning 18%; color: $foreground; }
     """
 

@@ -36,6 +36,7 @@ class Pane(VerticalScroll):
     """
 
     built = False  # True once the widgets of `build` are mounted
+    lists_every_beam = False  # True for panes that show something of every beam (the camber schedule)
     _building: asyncio.Event | None = None
 
     def build(self) -> ComposeResult:

@@ -7,6 +7,7 @@ from textual.app import ComposeResult
 from textual.widgets import Static
 
 from engine.model.inputs import Method
+from engine.model.text import printable
 from fieldcomp.tui.outcome import BeamOutcome
 from fieldcomp.tui.plain import plain
 from fieldcomp.tui.session import JobSession
@@ -15,6 +16,7 @@ from fieldcomp.tui.widgets.field_form import FieldForm, FieldSpec
 from fieldcomp.tui.widgets.fmt import station
 from fieldcomp.tui.widgets.pane_base import Pane
 from fieldcomp.tui.widgets.plot import Series, TerminalPlot
+from fieldcomp.tui.widgets.verdict import word
 from fieldcomp.views.numbers import ratio_text
 
 LENGTH = "a length with units: 32'-6 1/2\", 45 ft, 6.5 in, 1650 mm"
@@ -67,14 +69,13 @@ class BeamPane(Pane):
         plot = self.query_one(TerminalPlot)
         r = outcome.result if outcome else None
         if outcome is None or r is None:
-            head.update(Text(outcome.finished.error if outcome else "no beam", style="bold red"))
+            head.update(Text(printable(outcome.finished.error) if outcome else "no beam", style="bold red"))
             plot.clear("not computed")
             self.query_one(ChecksTable).show([])
             return
         b, gov = r.beam, r.governing
-        word = Text(" PASS ", style="bold reverse green") if r.verdict == "pass" else Text(" FAIL ", style="bold reverse red")
-        head.update(Text.assemble(f"{b.mark}  {b.shape.name}  span {station(b.span)}  {b.method}   ", word,
-                                  f"   governing: {gov.name}, ratio {ratio_text(gov.ratio)}"))
+        head.update(Text.assemble(f"{b.mark}  {b.shape.name}  span {station(b.span)}  {b.method}   as designed ",
+                                  word(str(r.verdict), badge=True), f"   governing: {gov.name}, ratio {ratio_text(gov.ratio)}"))
         k = r.critical
         word_cap = "phi Mn" if b.method == Method.LRFD else "Mn/Omega"
         word_dem = "Mu" if b.method == Method.LRFD else "Ma"

@@ -7,6 +7,7 @@ from rich.text import Text
 from textual.app import ComposeResult
 from textual.widgets import Static
 
+from engine.model.text import printable
 from engine.model.units import format_inches
 from fieldcomp.tui.outcome import BeamOutcome
 from fieldcomp.tui.plain import plain
@@ -16,7 +17,9 @@ from fieldcomp.tui.widgets.field_form import FieldForm, FieldSpec
 from fieldcomp.tui.widgets.fmt import signed_inches, station
 from fieldcomp.tui.widgets.pane_base import Pane
 from fieldcomp.tui.widgets.plot import Series, TerminalPlot
-from fieldcomp.tui.widgets.table import Table
+from fieldcomp.tui.widgets.table import Table, TextTable
+from fieldcomp.tui.widgets.verdict import PENDING, verdict_cell, word
+from engine.finished.evaluate import governing_check
 
 IN3_PER_FT3 = 1728.0  # unit conversion
 RULE_FIELDS = (
@@ -36,13 +39,18 @@ def camber_word(outcome: BeamOutcome) -> str:
 
 
 class CamberPane(Pane):
+    lists_every_beam = True
+    _rows: dict[int, tuple[BeamOutcome, tuple]] = {}
+
+    def on_mount(self) -> None:
+        self._rows = {}
     def build(self) -> ComposeResult:
         yield Static("", classes="pane--head", id="camber-head")
         yield Static("", id="camber-reason")
         yield Static("Outcome at midspan, both ends of the delivered band, 75 % to +tolerance (AISC 303 6.4.4)",
                      classes="pane--section")
-        yield Table("case", "camber", "wet deflection", "top of slab vs supports", "slab over beam", "stud cover",
-                    "extra concrete", id="camber-envelope")
+        yield TextTable("case", "camber", "wet deflection", "top of slab vs supports", "slab over beam", "stud cover",
+                        "extra concrete", id="camber-envelope")
         yield Static("", id="camber-warnings", classes="pane--warn")
         yield TerminalPlot("Deflection while wet against the camber (down)", id="camber-plot")
         yield Static("Construction-stage checks", classes="pane--section")
@@ -57,11 +65,12 @@ class CamberPane(Pane):
 
     def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
         self._schedule(outcomes)
-        envelope = self.query_one("#camber-envelope", Table)
+        envelope = self.query_one("#camber-envelope", TextTable)
         con = outcome.construction.value if outcome else None
         head = self.query_one("#camber-head", Static)
         if outcome is None or con is None:
-            head.update(Text(outcome.construction.error if outcome else "no beam", style="bold red"))
+            head.update(Text(printable(outcome.construction.error) if outcome and outcome.construction.error
+                             else "no beam", style="bold red"))
             self.query_one(TerminalPlot).clear("not computed")
             envelope.set_rows([])
             self.query_one(ChecksTable).show([])
@@ -70,7 +79,8 @@ class CamberPane(Pane):
         order = (Text(f" order camber {format_inches(d.camber)} ", style="bold reverse")
                  if d.camber > 0 else Text(" no camber ", style="bold reverse"))
         tol = f"  delivered 75 % to +{format_inches(d.tolerance)}" if d.camber > 0 else ""
-        head.update(Text.assemble(f"{b.mark}  {b.shape.name}  ", order, tol))
+        head.update(Text.assemble(f"{b.mark}  {b.shape.name}  ", order, tol, "   construction ",
+                                  word(str(con.verdict), badge=True)))
         self.query_one("#camber-reason", Static).update(plain(
             f"{d.reason}.  Predicted pre-composite dead-load deflection at midspan {signed_inches(d.predicted)} "
             f"(constant thickness would give {signed_inches(con.at_midspan(con.no_ponding))})."))
@@ -97,17 +107,29 @@ class CamberPane(Pane):
                               (d.camber + d.tolerance) * shape, tone=3)]
         self.query_one(TerminalPlot).plot(series, b.span, downward=True, fmt=signed_inches)
 
-    def _schedule(self, outcomes: list[BeamOutcome]) -> None:
-        table = self.query_one("#camber-schedule", Table)
+    def _schedule(self, outcomes: list[BeamOutcome | None]) -> None:
+        """One row per beam; a row is built once per outcome (a 2,000-beam job rebuilds only the
+        rows of beams that changed)."""
         rows = []
-        for o in outcomes:
-            con = o.construction.value
-            if con is None:
-                rows.append((o.beam.mark, o.beam.shape.name, "", "", Text("error", style="red"),
-                             o.construction.error or "", ""))
+        for k, o in enumerate(outcomes):
+            if o is None:
+                rows.append(("", "", "", "", Text(PENDING, style="dim"), "", Text(PENDING, style="dim")))
                 continue
-            d = con.camber
-            word = Text(con.verdict, style="green" if con.verdict == "pass" else "bold red")
-            rows.append((o.beam.mark, o.beam.shape.name, station(o.beam.span),
-                          signed_inches(d.predicted), Text(camber_word(o), style="bold"), d.reason, word))
-        table.set_rows(rows)
+            hit = self._rows.get(id(o))
+            if hit is None or hit[0] is not o:
+                hit = self._rows[id(o)] = (o, schedule_row(o))
+            rows.append(hit[1])
+        if len(self._rows) > 2 * len(outcomes) + 64:
+            self._rows = {id(o): self._rows[id(o)] for o in outcomes if o is not None and id(o) in self._rows}
+        self.query_one("#camber-schedule", Table).set_rows(rows)
+
+
+def schedule_row(o: BeamOutcome) -> tuple:
+    """A beam's row of the camber schedule: mark, shape, span, predicted, camber, why, construction."""
+    con = o.construction.value
+    if con is None:
+        return (o.beam.mark, o.beam.shape.name, "", "", word("error"), o.construction.error or "", word("error"))
+    d = con.camber
+    return (o.beam.mark, o.beam.shape.name, station(o.beam.span), signed_inches(d.predicted),
+            Text(camber_word(o), style="bold"), d.reason,
+            verdict_cell(str(con.verdict), governing_check(con.checks).ratio if con.checks else None))

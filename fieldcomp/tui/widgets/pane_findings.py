@@ -20,6 +20,7 @@ from fieldcomp.tui.widgets.pane_base import ROW_KEYS, Pane
 from fieldcomp.tui.widgets.plot import Series, TerminalPlot
 from fieldcomp.tui.widgets.row_editor import RowEditor
 from fieldcomp.tui.widgets.strip import StripMark, StudStrip, legend
+from fieldcomp.tui.widgets.verdict import word
 from fieldcomp.views.numbers import ratio_text
 
 FINDING_FIELDS = (
@@ -154,8 +155,7 @@ class FindingsPane(Pane):
             return
         b, r, gov = ab.beam, ab.result, ab.governing
         low, at = ab.min_strength_ratio
-        word = Text(" PASS ", style="bold reverse green") if ab.verdict == "pass" else Text(" FAIL ", style="bold reverse red")
-        verdict.update(Text.assemble("As built: ", word, f"  governing: {gov.name}, ratio {ratio_text(gov.ratio)};  "
+        verdict.update(Text.assemble("As built: ", word(str(ab.verdict), badge=True), f"  governing: {gov.name}, ratio {ratio_text(gov.ratio)};  "
                                      f"least capacity / demand {ratio_text(low)} at {station(at)};  "
                                      f"{ab.layout.total} working studs of {ab.designed.total} designed"))
         repair = None if review is None else review.repair if review.repair is not None else review.after_repair

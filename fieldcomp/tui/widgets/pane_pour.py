@@ -16,7 +16,7 @@ from fieldcomp.tui.widgets.fmt import signed_inches, station
 from fieldcomp.tui.widgets.pane_base import ROW_KEYS, Pane
 from fieldcomp.tui.widgets.plot import Series, TerminalPlot
 from fieldcomp.tui.widgets.row_editor import RowEditor
-from fieldcomp.tui.widgets.table import Table
+from fieldcomp.tui.widgets.table import TextTable
 from fieldcomp.views.numbers import ratio_text
 
 IN3_PER_FT3 = 1728.0  # unit conversion
@@ -59,8 +59,8 @@ class PourPane(Pane):
         yield Static("Steps in time order (bare steel; 'cured': earlier concrete acting at its age; "
                      "vs nominal: concrete beyond the nominal slab, negative where camber leaves it thinner)",
                      classes="pane--section")
-        yield Table("step", "day", "placed", "screed", "adds", "total", "total cured", "constr. live", "flexure ratio",
-                    "stress ksi", "vs nominal ft3", id="pour-steps")
+        yield TextTable("step", "day", "placed", "screed", "adds", "total", "total cured", "constr. live", "flexure ratio",
+                        "stress ksi", "vs nominal ft3", id="pour-steps", keep=("day", "flexure ratio", "stress ksi"))
         yield TerminalPlot("Deflection added by each step (down)", id="pour-step-plot")
         yield TerminalPlot("Cumulative deflection after each step (down)", id="pour-total-plot")
         yield Static("", id="pour-notes", classes="pane--note")
@@ -73,7 +73,7 @@ class PourPane(Pane):
             plain(f"{beam.mark}: pour plan, screed {beam.screed}, construction live {beam.construction_live_psf:g} psf"))
 
     def show_outcome(self, outcome: BeamOutcome | None, outcomes: list[BeamOutcome]) -> None:
-        table = self.query_one("#pour-steps", Table)
+        table = self.query_one("#pour-steps", TextTable)
         con = outcome.construction.value if outcome else None
         notes = self.query_one("#pour-notes", Static)
         if outcome is None or con is None:

@@ -12,7 +12,7 @@ from fieldcomp.tui.widgets.checks_table import ChecksTable
 from fieldcomp.tui.widgets.fmt import station
 from fieldcomp.tui.widgets.pane_base import Pane
 from fieldcomp.tui.widgets.strip import StripMark, StudStrip, legend
-from fieldcomp.tui.widgets.table import Table
+from fieldcomp.tui.widgets.table import TextTable
 
 def layout_marks(layout, anchors) -> list[StripMark]:
     """Strip marks of a designed layout: studs per slot, and ribs that need a deck weld."""
@@ -28,7 +28,7 @@ class StudsPane(Pane):
         yield Static("", id="studs-legend", classes="pane--note")
         yield Static("", id="studs-shortfall", classes="pane--warn")
         yield Static("Marks", classes="pane--section", id="studs-marks-title")
-        yield Table("rib", "station", "studs", "side of rib", "Qn each", id="studs-marks")
+        yield TextTable("rib", "station", "studs", "side of rib", "Qn each", id="studs-marks", keep=("rib", "studs"))
         yield Static("Layout checks", classes="pane--section")
         yield ChecksTable(id="studs-checks")
         yield Static("", id="studs-flags", classes="pane--warn")
@@ -39,7 +39,7 @@ class StudsPane(Pane):
 
         head = self.query_one("#studs-head", Static)
         strip = self.query_one(StudStrip)
-        table = self.query_one("#studs-marks", Table)
+        table = self.query_one("#studs-marks", TextTable)
         placed = outcome.layout.value if outcome else None
         if outcome is None or placed is None:
             head.update(Text(outcome.layout.error if outcome else "no beam", style="bold red"))

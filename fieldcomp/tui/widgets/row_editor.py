@@ -44,7 +44,7 @@ class RowEditor(Vertical):
             yield Button(f"Add {self.noun}", id=f"{self.table}-add", variant="primary", compact=True)
             yield Button(f"Remove {self.noun}", id=f"{self.table}-remove", variant="error", compact=True)
             yield from self.extra_buttons()
-        yield FieldForm(self.specs, id=f"{self.table}-form", columns=3)
+        yield FieldForm(self.specs, id=f"{self.table}-form", columns=3, table=self.table)
 
     def extra_buttons(self) -> ComposeResult:
         yield from ()

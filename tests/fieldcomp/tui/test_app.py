@@ -14,12 +14,13 @@ from pathlib import Path
 from textual.widgets import Input, Static
 
 from engine.construction.evaluate import evaluate_construction
-from fieldcomp.tui.app import FieldcompApp
+from fieldcomp.tui.app import RECOVERY_DELAY, FieldcompApp
 from fieldcomp.jobs.jobfile import load_job, parse_job
 from fieldcomp.tui.dialogs import Choice
 from fieldcomp.tui.screens.help import HelpScreen
 from fieldcomp.tui.recovery import recovery_path
 from fieldcomp.tui.session import JobSession
+from fieldcomp.tui.widgets.field_form import CHECK_DELAY
 from fieldcomp.jobs.to_engine import to_engine
 
 ROOT = Path(__file__).resolve().parents[3]
@@ -84,7 +85,7 @@ def test_change_span_and_the_camber_follows(tmp_path):
             await settle(pilot, app)
             before = app.outcomes[0].construction.value.camber
             assert before.camber == 0.0  # the demo's 30 ft infill beam is not cambered
-            await type_into(pilot, app, "#beam-form #f-span", "36 ft 6 in")
+            await type_into(pilot, app, "#beam-form #span", "36 ft 6 in")
             assert app.session.job.beam[0].span == "36 ft 6 in"
             after = app.outcomes[0].construction.value.camber
             # the engine's own decision for the edited beam, computed independently of the app
@@ -103,11 +104,11 @@ def test_units_as_typed_and_inline_loader_messages(tmp_path):
         app = make_app(demo_copy(tmp_path), tmp_path)
         async with app.run_test(size=SIZE) as pilot:
             await settle(pilot, app)
-            field = app.workbench.query_one("#beam-form #f-span", Input)
+            field = app.workbench.query_one("#beam-form #span", Input)
             field.focus()
             field.value = ""
             await pilot.press(*"32 6")
-            await pilot.pause()
+            await pilot.pause(CHECK_DELAY * 2)  # the check runs a moment after the last key
             assert field.has_class("-invalid")
             shown = str(app.workbench.query_one("#beam-form .form--problem", Static).render())
             raw = DEMO.read_text().replace("span = \"30'-0\\\"\"", "span = \"32 6\"", 1)
@@ -119,7 +120,7 @@ def test_units_as_typed_and_inline_loader_messages(tmp_path):
             await pilot.press("enter")
             await settle(pilot, app)
             assert app.session.job.beam[0].span == "30'-0\""  # refused: the job is unchanged
-            await type_into(pilot, app, "#beam-form #f-span", "32'-6 1/2\"")
+            await type_into(pilot, app, "#beam-form #span", "32'-6 1/2\"")
             assert app.session.job.beam[0].span == "32'-6 1/2\""
             assert not field.has_class("-invalid")
     run(flow())
@@ -131,13 +132,13 @@ def test_undo_and_redo_the_last_edits(tmp_path):
         async with app.run_test(size=SIZE) as pilot:
             await settle(pilot, app)
             original = app.session.job
-            await type_into(pilot, app, "#beam-form #f-live_psf", "150")
-            await type_into(pilot, app, "#beam-form #f-studs-count", "20")
+            await type_into(pilot, app, "#beam-form #live_psf", "150")
+            await type_into(pilot, app, "#beam-form #studs-count", "20")
             assert app.session.job.beam[0].studs.count == 20
             await pilot.press("ctrl+z")
             await settle(pilot, app)
             assert app.session.job.beam[0].studs.count == 26
-            assert app.workbench.query_one("#beam-form #f-studs-count", Input).value == "26"
+            assert app.workbench.query_one("#beam-form #studs-count", Input).value == "26"
             await pilot.press("ctrl+z")
             await settle(pilot, app)
             assert app.session.job == original and not app.session.dirty
@@ -159,14 +160,15 @@ def test_add_a_finding_flips_the_verdict_and_a_repair_appears(tmp_path):
             await pilot.click("#finding-add")
             await settle(pilot, app)
             assert len(app.session.job.beam[0].finding) == before + 1
-            await type_into(pilot, app, "#finding-form #f-rib", str(rib_that_fails(app.outcomes[0])))
+            await type_into(pilot, app, "#finding-form #finding-rib", str(rib_that_fails(app.outcomes[0])))
             outcome = app.outcomes[0]
             assert outcome.as_built.value.verdict == "fail" and outcome.verdict == "fail"
             repair = outcome.repair.value
             assert repair is not None and repair.total >= 1 and repair.after.verdict == "pass"
             text = str(app.workbench.query_one("#findings-repair", Static).render())
             assert f"add {repair.total} stud(s)" in text
-            assert "fail" in str(app.workbench.query_one("#beams").get_option_at_index(0).prompt)
+            row = app.workbench.query_one("#beams").row_cells(0)
+            assert row[0] == "3B-101" and row[3].startswith("fail")  # the as-built column
     run(flow())
 
 
@@ -176,7 +178,7 @@ def test_save_then_reopen_gives_an_equal_job(tmp_path):
         app = make_app(path, tmp_path)
         async with app.run_test(size=SIZE) as pilot:
             await settle(pilot, app)
-            await type_into(pilot, app, "#beam-form #f-live_psf", "125")
+            await type_into(pilot, app, "#beam-form #live_psf", "125")
             await pilot.press("ctrl+s")
             await settle(pilot, app)
             assert not app.session.dirty
@@ -194,7 +196,7 @@ def test_quit_with_unsaved_edits_asks_first(tmp_path):
         app = make_app(demo_copy(tmp_path), tmp_path)
         async with app.run_test(size=SIZE) as pilot:
             await settle(pilot, app)
-            await type_into(pilot, app, "#beam-form #f-live_psf", "90")
+            await type_into(pilot, app, "#beam-form #live_psf", "90")
             await pilot.press("ctrl+q")
             await pilot.pause()
             assert isinstance(app.screen, Choice) and app.screen.id == "unsaved"
@@ -216,8 +218,10 @@ def test_a_recovery_file_is_offered_after_a_crash(tmp_path):
         first = make_app(path, tmp_path)
         async with first.run_test(size=SIZE) as pilot:
             await settle(pilot, first)
-            await type_into(pilot, first, "#beam-form #f-superimposed_dead_psf", "45")
+            await type_into(pilot, first, "#beam-form #superimposed_dead_psf", "45")
             edited = first.session.job
+            await pilot.pause(RECOVERY_DELAY + 0.3)  # written once the edits pause
+            await settle(pilot, first)
             assert recovery_path(tmp_path / "state", path).exists()
             first.exit()  # a crash: the unsaved-edits guard never runs
         assert load_job(path).job != edited
@@ -228,7 +232,7 @@ def test_a_recovery_file_is_offered_after_a_crash(tmp_path):
             await pilot.click("#restore")
             await settle(pilot, second)
             assert second.session.job == edited and second.session.dirty
-            assert second.workbench.query_one("#beam-form #f-superimposed_dead_psf", Input).value == "45"
+            assert second.workbench.query_one("#beam-form #superimposed_dead_psf", Input).value == "45"
     run(flow())
 
 
@@ -238,7 +242,7 @@ def test_a_file_changed_on_disk_is_not_overwritten_without_asking(tmp_path):
         app = make_app(path, tmp_path)
         async with app.run_test(size=SIZE) as pilot:
             await settle(pilot, app)
-            await type_into(pilot, app, "#beam-form #f-live_psf", "80")
+            await type_into(pilot, app, "#beam-form #live_psf", "80")
             theirs = DEMO.read_text().replace('name = "Harbor Row', 'name = "Edited elsewhere: Harbor Row')
             path.write_text(theirs)
             await pilot.press("ctrl+s")

@@ -83,8 +83,8 @@ def test_the_workbench_warns_once_and_goes_on_when_no_recovery_file_can_be_writt
         app = make_app(path, blocker)  # state folder blocker/state: under a file, cannot be made
         async with app.run_test(size=SIZE) as pilot:
             await settle(pilot, app)
-            await type_into(pilot, app, "#beam-form #f-live_psf", "90")
-            await type_into(pilot, app, "#beam-form #f-live_psf", "95")
+            await type_into(pilot, app, "#beam-form #live_psf", "90")
+            await type_into(pilot, app, "#beam-form #live_psf", "95")
             warned = [n for n in app._notifications if n.title == "No recovery file"]
             assert len(warned) == 1 and "save often" in warned[0].message
             assert app.is_running and app.session.job.beam[0].live_psf == 95
@@ -131,7 +131,7 @@ def test_the_workbench_tells_the_second_who_has_the_job_open(tmp_path):
             await settle(pilot, app)
             told = [n.message for n in app._notifications if n.title == "Open elsewhere"]
             assert len(told) == 1 and f"process {os.getpid()}" in told[0]
-            await type_into(pilot, app, "#beam-form #f-live_psf", "90")
+            await type_into(pilot, app, "#beam-form #live_psf", "90")
             assert app.recovery.path != holder.path and app.recovery.path.exists()
             assert not holder.path.exists()
     run(flow())

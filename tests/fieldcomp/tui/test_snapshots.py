@@ -54,3 +54,27 @@ def test_pane(snap_compare, tmp_path, pane, beam):
 
 def test_dark_theme_beam_pane(snap_compare, tmp_path):
     assert snap_compare(demo_app(tmp_path, "dark"), terminal_size=SIZE, run_before=show("camber", 6))
+
+
+def show_list():
+    """The beam list brought up with f3 (hidden by default below 120 columns)."""
+    async def run_before(pilot) -> None:
+        await show("beam", 2)(pilot)
+        await pilot.press("f3")
+        await pilot.pause()
+    return run_before
+
+
+@pytest.mark.parametrize("size", [(80, 24), (100, 30), (160, 45)])
+def test_beam_pane_at_each_terminal_size(snap_compare, tmp_path, size):
+    assert snap_compare(demo_app(tmp_path), terminal_size=size, run_before=show("beam", 0))
+
+
+@pytest.mark.parametrize("size", [(80, 24), (100, 30), (160, 45)])
+def test_findings_pane_at_each_terminal_size(snap_compare, tmp_path, size):
+    assert snap_compare(demo_app(tmp_path), terminal_size=size, run_before=show("findings", 2))
+
+
+@pytest.mark.parametrize("size", [(80, 24), (100, 30)])
+def test_beam_list_shown_on_a_narrow_terminal(snap_compare, tmp_path, size):
+    assert snap_compare(demo_app(tmp_path), terminal_size=size, run_before=show_list())
