@@ -62,13 +62,19 @@ def field_text(job: Job, path: Path_) -> str:
     return str(node)
 
 
-def _raw(job: Job) -> dict[str, Any]:
-    return job.model_dump(mode="json", exclude_none=True)
+def _raw(job: Any) -> dict[str, Any]:
+    """The job (or one beam) as plain data holding only what the file or an edit said: defaults
+    stay unset, so an edit never turns a default into a value the job "gives" (a default
+    deflection limit would otherwise become a project limit) and a save writes no default."""
+    return job.model_dump(mode="json", exclude_none=True, exclude_unset=True)
 
 
-def _node(raw: dict[str, Any], path: Path_) -> Any:
+def _node(raw: dict[str, Any], path: Path_, create: bool = False) -> Any:
+    """The plain node at `path`; with `create`, tables the job leaves out are made on the way."""
     node: Any = raw
     for part in path:
+        if create and isinstance(part, str) and part not in node:
+            node[part] = {}
         node = node[part]
     return node
 
@@ -321,12 +327,15 @@ class JobSession:
 def _setter(path: Path_, text: str) -> Callable[[dict[str, Any], Path_], None]:
     """The change setting `path` from typed `text`, applied at `at` (`path` below the node given)."""
     def change(raw: dict[str, Any], at: Path_) -> None:
-        parent = _node(raw, at[:-1])
-        key = at[-1]
         value = text.strip()
+        key = at[-1]
         if value == "":
-            parent.pop(key, None)
+            try:
+                _node(raw, at[:-1]).pop(key, None)
+            except KeyError:  # a table the job leaves out holds nothing to clear
+                pass
             return
+        parent = _node(raw, at[:-1], create=True)
         parent[key] = value_from_text(path, value)
         partner = PARTNERS.get(str(key))
         if partner is not None:

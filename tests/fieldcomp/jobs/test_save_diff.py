@@ -136,7 +136,6 @@ def test_a_key_the_readme_recommends_stays_loadable_after_an_edit_elsewhere(tmp_
     assert load_job(path).job.beam[0].construction_load == "light"
 
 
-@pytest.mark.xfail(strict=False, reason="edit path: workbench branch (an edit re-validates every default as given)")
 def test_a_workbench_edit_beside_construction_load_saves(tmp_path):
     path = _with_construction_load(tmp_path)
     session = JobSession.open(path)
@@ -144,6 +143,25 @@ def test_a_workbench_edit_beside_construction_load_saves(tmp_path):
     session.save()
     assert changed(path.with_name("job.toml.bak").read_bytes(), path.read_bytes()) == ["- live_psf = 65\n",
                                                                                        "+ live_psf = 70\n"]
+
+
+def test_an_edit_keeps_whose_rule_each_default_limit_is(tmp_path):
+    """An edit elsewhere in a beam leaves its default deflection limits what they were: live
+    L/360 building-code (IBC Table 1604.3) and superimposed dead + live L/240 common practice.
+    Written in the job they would be project limits; an edit must not write them."""
+    from engine.pipeline import evaluate_beam
+
+    path = copy(tmp_path, FORMS["demo"])
+    session = JobSession.open(path)
+    before = {c.id: c.authority for c in evaluate_beam(session.engine_beams()[0]).checks}
+    session.set_text(("beam", 0, "live_psf"), "90")
+    after = {c.id: c.authority for c in evaluate_beam(session.engine_beams()[0]).checks}
+    deflection = [k for k in before if k.startswith("deflection.")]
+    assert deflection and all(after[k] == before[k] for k in deflection)
+    assert "project" not in {str(before[k]) for k in deflection}
+    session.save()
+    assert changed(path.with_name(path.name + ".bak").read_bytes(), path.read_bytes()) == [
+        "- live_psf = 100\n", "+ live_psf = 90\n"]
 
 
 def test_switching_spacing_for_edge_is_one_line_in_place(tmp_path):
