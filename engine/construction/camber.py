@@ -203,7 +203,8 @@ def camber_options(beam: BeamInput, plan: PourPlan, bare: Runs, cured: Runs | No
              (decision.camber + step, "one increment more"), (0.0, "none")]
     seen: set[float] = set()
     out = []
-    unmeasured = replace(beam, construction=replace(beam.construction, measured_camber=None))
+    unmeasured = beam if beam.construction.measured_camber is None else replace(
+        beam, construction=replace(beam.construction, measured_camber=None))
     for pick, label in picks:
         camber = round(pick, 6)
         if camber < 0.0 or camber in seen:

@@ -136,7 +136,7 @@ def run_stages_at(plan: PourPlan, sections: Sections, cambers: tuple[float, ...]
             extra = known + step.k * y
             extra_shear, extra_moment = line_load_effects(x, extra)
             shear, moment = effects.dead_shear[s] + extra_shear, effects.dead_moment[s] + extra_moment
-            ponded[:, s] = np.sum(0.5 * np.diff(x) * (extra[:, :-1] + extra[:, 1:]), axis=1)
+            ponded[:, s] = (0.5 * (x[1:] - x[:-1]) * (extra[:, :-1] + extra[:, 1:])).sum(axis=1)
             ponded_load[:, s] = extra
             dead_moment[:, s] = moment
             dead_shear[:, s, 0], dead_shear[:, s, 1] = shear[:, 0], shear[:, -1]

@@ -70,7 +70,7 @@ def _piece_moments(x: np.ndarray, span: float, start: np.ndarray, end: np.ndarra
     Table 3-23 case 3)."""
     length = end - start
     r_left = w * length * (span - 0.5 * (start + end)) / span
-    loaded = np.clip(x[None, :] - start[:, None], 0.0, length[:, None])
+    loaded = np.minimum(np.maximum(x[None, :] - start[:, None], 0.0), length[:, None])  # clip, without its overhead
     # cast: numpy's stubs type arithmetic on np.ndarray as Any
     return cast(np.ndarray, r_left[:, None] * x[None, :] - w[:, None] * loaded * (x[None, :] - start[:, None] - 0.5 * loaded))
 

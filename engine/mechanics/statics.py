@@ -296,7 +296,7 @@ def _transfer_matrices(x: np.ndarray, flex: np.ndarray, k: np.ndarray, kappa: np
 
     The same exact-for-linear integration as deflection_from_curvature, applied twice.
     """
-    h = np.diff(x)
+    h = x[1:] - x[:-1]
     h2 = h * h
     f0, f1, k0, k1 = flex[:-1], flex[1:], k[:-1], k[1:]
     alpha, gamma = h2 * k1 / 6.0, h2 * f1 / 6.0
