@@ -79,25 +79,11 @@ def stud_csv(sheets, caution: str) -> str:
 
 
 def _table(pdf: SheetPdf, title: str, heads: list[tuple[str, float]], rows: list[list[str]], notes: list[str]) -> None:
-    """Rows on as many sheets as they need, the heads repeated, the notes under the last; a cell
-    too long for its column wraps onto more lines (a reason or a number is never cut)."""
-    def wrapped(column: int, cell: str, width: float) -> list[str]:
-        pdf.set_font("Helvetica", "B" if column == 0 else "", 10)
-        return pdf.wrap(str(cell), width - 0.08) or [""]
-
-    cells = [[wrapped(c, cell, w) for c, ((_, w), cell) in enumerate(zip(heads, row))] for row in rows]
-    heights = [0.22 + 0.17 * (max(len(c) for c in row) - 1) for row in cells]
-    room = BOTTOM - TOP - 0.9 - 0.16 * len(notes)
-    chunks: list[list[int]] = [[]]
-    used = 0.0
-    for k, h in enumerate(heights):
-        if chunks[-1] and used + h > room:
-            chunks.append([])
-            used = 0.0
-        chunks[-1].append(k)
-        used += h
-    for n, chunk in enumerate(chunks):
-        x0, y0, _, _ = pdf.sheet(f"{len(rows)} lines" + (f", part {n + 1} of {len(chunks)}" if len(chunks) > 1 else ""))
+    """Rows on as many sheets as they need, the heads repeated, the notes under the last."""
+    per = int((BOTTOM - TOP - 0.9 - 0.16 * len(notes)) / 0.22)
+    chunks = [rows[i:i + per] for i in range(0, len(rows), per)] or [[]]
+    for k, chunk in enumerate(chunks):
+        x0, y0, _, _ = pdf.sheet(f"{len(rows)} lines" + (f", part {k + 1} of {len(chunks)}" if len(chunks) > 1 else ""))
         pdf.words(x0, y0 + 0.3, title.upper(), 16, "B")
         y = y0 + 0.65
         x = x0
@@ -106,17 +92,15 @@ def _table(pdf: SheetPdf, title: str, heads: list[tuple[str, float]], rows: list
             x += w
         pdf.set_line_width(0.01)
         pdf.line(x0, y + 0.06, RIGHT, y + 0.06)
-        for k in chunk:
+        for row in chunk:
             y += 0.22
             x = x0
-            for (_, w), lines in zip(heads, cells[k]):
+            for (_, w), cell in zip(heads, row):
                 pdf.set_font("Helvetica", "B" if x == x0 else "", 10)
-                for j, line in enumerate(lines):
-                    pdf.text(x, y + 0.17 * j, line)
+                pdf.text(x, y, pdf.fit(cell, w - 0.08))
                 x += w
-            y += heights[k] - 0.22
         y += 0.2
-        if n == len(chunks) - 1:
+        if k == len(chunks) - 1:
             for note in notes:
                 y = pdf.paragraph(LEFT, y, RIGHT - LEFT, note, 8) + 0.02
 
