@@ -37,7 +37,7 @@ def as_poured(beam: BeamInput) -> tuple[BeamInput, ConstructionResult]:
     if construction.ponded_weight <= 0.0:
         return beam, construction
     q = construction.ponded_line_load
-    ponded = PondedConcrete(tuple(float(v) for v in construction.x), tuple(float(v) for v in q))
+    ponded = PondedConcrete(tuple(construction.x.tolist()), tuple(q.tolist()))
     return replace(beam, ponded=ponded), construction
 
 

@@ -129,13 +129,19 @@ def camber_outcome(beam: BeamInput, plan: PourPlan, at_zero: StagedRun, at_one: 
     minimum). Extra concrete: the ponded weight over the concrete unit weight.
     """
     mid = plan.midspan
+    return _outcome(beam, plan, mid, plan.first_placed(mid), at_zero, at_one, camber, case, stiffness)
+
+
+def _outcome(beam: BeamInput, plan: PourPlan, mid: int, first: int, at_zero: StagedRun, at_one: StagedRun,
+             camber: float, case: str, stiffness: str) -> CamberOutcome:
+    """`camber_outcome` given the plan's midspan station and the step that first placed concrete
+    there. Definitions of this tool; stud cover minimum AISC 360-22 I3.2c.1(b)."""
     dead, ponded = at_zero.dead[:, mid], at_zero.ponded
     if at_one is not at_zero:  # as `blend`, for the two fields needed
         dead = dead + camber * (at_one.dead[:, mid] - dead)
         ponded = ponded + camber * (at_one.ponded - ponded)
     after = np.cumsum(dead)
     final = float(after[-1])
-    first = plan.first_placed(mid)
     nominal = beam.slab.total_thickness
     if plan.steps[first].level:
         thickness = nominal + float(after[first]) - camber
@@ -175,7 +181,9 @@ def outcome_envelope(beam: BeamInput, plan: PourPlan, bare: Runs, cured: Runs | 
     if measured is not None:
         cases.append((measured, f"measured {format_inches(measured)}"))
     bounds = [(bare, BARE)] + ([(cured, CURED)] if cured is not None else [])
-    return tuple(camber_outcome(beam, plan, runs[0], runs[1], camber, case, label)
+    mid = plan.midspan
+    first = plan.first_placed(mid)
+    return tuple(_outcome(beam, plan, mid, first, runs[0], runs[1], camber, case, label)
                  for camber, case in cases for runs, label in bounds)
 
 
@@ -203,7 +211,8 @@ def camber_options(beam: BeamInput, plan: PourPlan, bare: Runs, cured: Runs | No
              (decision.camber + step, "one increment more"), (0.0, "none")]
     seen: set[float] = set()
     out = []
-    unmeasured = replace(beam, construction=replace(beam.construction, measured_camber=None))
+    unmeasured = beam if beam.construction.measured_camber is None else replace(
+        beam, construction=replace(beam.construction, measured_camber=None))
     for pick, label in picks:
         camber = round(pick, 6)
         if camber < 0.0 or camber in seen:

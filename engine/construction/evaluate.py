@@ -32,7 +32,7 @@ from engine.model.deck import psf_to_kip_per_in
 from engine.model.inputs import BeamInput
 from engine.mechanics.ponding import first_mode_ratio
 from engine.construction.pours import (
-    KIP_PER_IN3_PER_PCF, PourPlan, bare_sections, cured_sections, earlier_strength_ratio,
+    KIP_PER_IN3_PER_PCF, PourPlan, bare_sections, cured_sections, earlier_strength_ratio, first_difference,
     pour_plan, side_widths,
 )
 from engine.construction.staging import StagedRun, blend, constant_thickness_total, run_stages_at, step_effects
@@ -184,7 +184,8 @@ def evaluate_construction(beam: BeamInput) -> ConstructionResult:
             at_one = at_zero
         stable = True
     except PondingInstabilityError as exc:
-        at_zero = at_one = run_stages_at(plan, bare, (0.0,), False, effects=effects)[0]
+        runs = run_stages_at(plan, bare, (0.0,), False, effects=effects)
+        at_zero = at_one = runs[0]
         delta0 = float(at_zero.total[mid])
         stable = False
         flags.append(Flag("AISC 360-22 Commentary I3.1b", f"level screeding is unstable ({exc}); deflections "
@@ -194,7 +195,9 @@ def evaluate_construction(beam: BeamInput) -> ConstructionResult:
     stiff = cured_sections(beam, plan)
     cured_runs = None
     if stiff is not None:  # earlier pours acting at their age: the stiff bound, at cambers 0 and 1
-        pair = run_stages_at(plan, stiff, (0.0, 1.0) if level and stable else (0.0,), stable, effects=effects)
+        # the steps before the first cured section are the bare runs' own (same cambers, same ponding)
+        pair = run_stages_at(plan, stiff, (0.0, 1.0) if level and stable else (0.0,), stable, earlier=runs,
+                             start=first_difference(bare, stiff), effects=effects)
         cured_runs = (pair[0], pair[-1])
     cured = run if cured_runs is None else blend(cured_runs[0], cured_runs[1], decision.camber)
     no_ponding = constant_thickness_total(plan, bare, effects) if level and stable else run.total

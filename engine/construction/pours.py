@@ -103,8 +103,8 @@ def _cell_share(x: np.ndarray, start: float, end: float) -> np.ndarray:
     """Share of each station's cell (half-way to its neighbours) inside [start, end], so that a
     station array of shares integrates (linear between stations) to the length end - start."""
     edges = np.concatenate(([x[0]], 0.5 * (x[:-1] + x[1:]), [x[-1]]))
-    inside = np.clip(np.minimum(end, edges[1:]) - np.maximum(start, edges[:-1]), 0.0, None)
-    return cast(np.ndarray, inside / np.diff(edges))  # cast: numpy's stubs type np.clip results as Any
+    inside = np.maximum(np.minimum(end, edges[1:]) - np.maximum(start, edges[:-1]), 0.0)
+    return cast(np.ndarray, inside / (edges[1:] - edges[:-1]))  # cast: numpy's stubs type ufunc results as Any
 
 
 def check_stages(stages: tuple[PourStage, ...], span: float) -> None:

@@ -88,11 +88,13 @@ def step_effects(plan: PourPlan) -> StepEffects:
 
 
 def run_stages_at(plan: PourPlan, sections: Sections, cambers: tuple[float, ...], ponding: bool = True,
-                  earlier: StagedRun | None = None, start: int = 0,
+                  earlier: StagedRun | tuple[StagedRun, ...] | None = None, start: int = 0,
                   effects: StepEffects | None = None) -> tuple[StagedRun, ...]:
     """`run_stages` at each of `cambers` in one pass: each level-screeded step solves its ponding
     operator once for every camber. Steps before `start` are taken from `earlier`, a run of the
-    same plan at the same (single) camber whose sections agree with `sections` up to there.
+    same plan at the same (single) camber, or one such run per camber, in their order, with the
+    same `ponding`, whose sections agree with `sections` up to there: those steps then come out
+    exactly as a fresh run computes them.
     `effects`: the plan's `step_effects`, when the caller has them.
 
     Deflection by double integration of M/EI(x) (engine.mechanics.statics); statics of a simple span.
@@ -108,15 +110,20 @@ def run_stages_at(plan: PourPlan, sections: Sections, cambers: tuple[float, ...]
     lift = np.asarray(cambers, dtype=float)[:, None] * shape
     so_far = np.zeros((runs, n))
     if earlier is not None and start > 0:
-        for mine, theirs in ((dead, earlier.dead), (dead_moment, earlier.dead_moment), (stress, earlier.stress),
-                             (dead_shear, earlier.dead_shear), (ponded, earlier.ponded),
-                             (ponded_load, earlier.ponded_load)):
-            mine[:, :start] = theirs[:start]
-        for mine, theirs in ((live, earlier.live), (live_moment, earlier.live_moment),
-                             (live_shear, earlier.live_shear)):
+        given = (earlier,) if isinstance(earlier, StagedRun) else earlier
+        if len(given) not in (1, runs):
+            raise ValueError(f"{len(given)} earlier runs for {runs} cambers")
+        def stacked(name: str) -> np.ndarray:  # (1 or runs, steps, ...)
+            return np.stack([getattr(e, name)[:start] for e in given])
+        for mine, name in ((dead, "dead"), (dead_moment, "dead_moment"), (stress, "stress"),
+                           (dead_shear, "dead_shear"), (ponded, "ponded"), (ponded_load, "ponded_load")):
+            mine[:, :start] = stacked(name)
+        for mine, theirs in ((live, given[0].live), (live_moment, given[0].live_moment),
+                             (live_shear, given[0].live_shear)):
             mine[:start] = theirs[:start]
+        before = stacked("dead")
         for s in range(start):
-            so_far = so_far + earlier.dead[s]
+            so_far = so_far + before[:, s]
     first = start if earlier is not None else 0
     ei = sections.ei[first:]
     plain = deflection_rows(x, effects.dead_moment[first:] / ei)  # every step at constant thickness
@@ -136,7 +143,7 @@ def run_stages_at(plan: PourPlan, sections: Sections, cambers: tuple[float, ...]
             extra = known + step.k * y
             extra_shear, extra_moment = line_load_effects(x, extra)
             shear, moment = effects.dead_shear[s] + extra_shear, effects.dead_moment[s] + extra_moment
-            ponded[:, s] = np.sum(0.5 * np.diff(x) * (extra[:, :-1] + extra[:, 1:]), axis=1)
+            ponded[:, s] = (0.5 * (x[1:] - x[:-1]) * (extra[:, :-1] + extra[:, 1:])).sum(axis=1)
             ponded_load[:, s] = extra
             dead_moment[:, s] = moment
             dead_shear[:, s, 0], dead_shear[:, s, 1] = shear[:, 0], shear[:, -1]

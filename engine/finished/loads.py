@@ -58,7 +58,7 @@ def ponded_pieces(ponded: PondedConcrete) -> list[Load]:
     Statics of a simple span (engine.mechanics.statics)."""
     x, q = np.asarray(ponded.x), np.maximum(np.asarray(ponded.q), 0.0)
     cuts = np.linspace(x[0], x[-1], PONDED_PIECES + 1)
-    cumulative = np.concatenate(([0.0], np.cumsum(0.5 * np.diff(x) * (q[:-1] + q[1:]))))
+    cumulative = np.concatenate(([0.0], np.cumsum(0.5 * (x[1:] - x[:-1]) * (q[:-1] + q[1:]))))
     weight = np.diff(np.interp(cuts, x, cumulative))
     return [UniformLoad(float(w / (b - a)), float(a), float(b)) for w, a, b in zip(weight, cuts[:-1], cuts[1:]) if w > 0.0]
 

@@ -38,9 +38,9 @@ def line_load_effects(x: np.ndarray, q: np.ndarray) -> tuple[np.ndarray, np.ndar
     h = x[1:] - x[:-1]
     q0, q1 = q[..., :-1], q[..., 1:]
     load = np.zeros(q.shape)
-    np.cumsum(0.5 * h * (q0 + q1), axis=-1, out=load[..., 1:])
+    (0.5 * h * (q0 + q1)).cumsum(axis=-1, out=load[..., 1:])
     second = np.zeros(q.shape)
-    np.cumsum(h * load[..., :-1] + h * h * (q0 / 3.0 + q1 / 6.0), axis=-1, out=second[..., 1:])
+    (h * load[..., :-1] + h * h * (q0 / 3.0 + q1 / 6.0)).cumsum(axis=-1, out=second[..., 1:])
     xs = x - x[0]
     r_left = second[..., -1:] / xs[-1]
     return r_left - load, r_left * xs - second
@@ -52,7 +52,7 @@ def _pieces(x: np.ndarray, q: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.nd
     cuts = _cuts(max(int(nonzero[0]) - 1, 0), min(int(nonzero[-1]) + 1, x.size - 1))
     h = x[1:] - x[:-1]
     load = np.zeros(x.size)
-    np.cumsum(0.5 * h * (q[:-1] + q[1:]), out=load[1:])
+    (0.5 * h * (q[:-1] + q[1:])).cumsum(out=load[1:])
     start, end = x[cuts[:-1]], x[cuts[1:]]
     return start, end, (load[cuts[1:]] - load[cuts[:-1]]) / (end - start)
 
@@ -70,7 +70,7 @@ def _piece_moments(x: np.ndarray, span: float, start: np.ndarray, end: np.ndarra
     Table 3-23 case 3)."""
     length = end - start
     r_left = w * length * (span - 0.5 * (start + end)) / span
-    loaded = np.clip(x[None, :] - start[:, None], 0.0, length[:, None])
+    loaded = np.minimum(np.maximum(x[None, :] - start[:, None], 0.0), length[:, None])  # clip, without its overhead
     # cast: numpy's stubs type arithmetic on np.ndarray as Any
     return cast(np.ndarray, r_left[:, None] * x[None, :] - w[:, None] * loaded * (x[None, :] - start[:, None] - 0.5 * loaded))
 
@@ -98,7 +98,7 @@ def level_deflections(
     beam, loads and ponding stiffness: one solve of the ponding operator for every row.
     `moment`: the moment of `loads` at x when the caller has it.
     Linear ponding equilibrium solved by engine.mechanics.statics.ponded_rows."""
-    ei = np.broadcast_to(np.asarray(ei, dtype=float), x.shape)
+    ei = _along(ei, x)
     moment = shear_moment(x, span, loads)[1] if moment is None else moment
     rows = np.repeat(moment[None, :], len(known), axis=0)
     active = [i for i, row in enumerate(known) if row.any()]
@@ -110,10 +110,16 @@ def level_deflections(
             for piece in each[w != 0.0]:  # the pieces as uniform loads after the step's own, in order
                 rows[i] += piece
             remainder[j] -= each.sum(axis=0)
-    y = ponded_rows(x, span, rows, 1.0 / ei, np.broadcast_to(np.asarray(k, dtype=float), x.shape))
+    y = ponded_rows(x, span, rows, 1.0 / ei, _along(k, x))
     if active:
         y[active] += deflection_rows(x, remainder / ei)
     return y
+
+
+def _along(value: float | np.ndarray, x: np.ndarray) -> np.ndarray:
+    """`value` as floats at the stations `x` (a scalar broadcast; an array of their shape as is)."""
+    arr = np.asarray(value, dtype=float)
+    return arr if arr.shape == x.shape else np.broadcast_to(arr, x.shape)
 
 
 def first_mode_ratio(k_max: float, span: float, ei_min: float) -> float:

@@ -265,12 +265,12 @@ def deflection_rows(x: np.ndarray, curvature: np.ndarray) -> np.ndarray:
     # slope with zero start slope: trapezoid of linear curvature
     slope = np.empty(curvature.shape)
     slope[..., 0] = 0.0
-    np.cumsum(-0.5 * h * (k0 + k1), axis=-1, out=slope[..., 1:])
+    (-0.5 * h * (k0 + k1)).cumsum(axis=-1, out=slope[..., 1:])
     # deflection: exact double integral of a linear curvature over each interval
     steps = h * slope[..., :-1] - h * h * (k0 / 3.0 + k1 / 6.0)
     y = np.empty(curvature.shape)
     y[..., 0] = 0.0
-    np.cumsum(steps, axis=-1, out=y[..., 1:])
+    steps.cumsum(axis=-1, out=y[..., 1:])
     # cast: numpy's stubs type arithmetic on np.ndarray as Any
     return cast(np.ndarray, y - y[..., -1:] * (x - x[0]) / (x[-1] - x[0]))
 
@@ -296,7 +296,7 @@ def _transfer_matrices(x: np.ndarray, flex: np.ndarray, k: np.ndarray, kappa: np
 
     The same exact-for-linear integration as deflection_from_curvature, applied twice.
     """
-    h = np.diff(x)
+    h = x[1:] - x[:-1]
     h2 = h * h
     f0, f1, k0, k1 = flex[:-1], flex[1:], k[:-1], k[1:]
     alpha, gamma = h2 * k1 / 6.0, h2 * f1 / 6.0
