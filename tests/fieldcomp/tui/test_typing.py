@@ -128,3 +128,28 @@ def test_the_beam_list_and_the_panes_give_the_same_verdicts(tmp_path):
                     else:
                         assert "No findings" in shown  # the as-built column is empty without findings
     asyncio.run(flow())
+
+
+def test_every_focused_input_of_every_pane_has_room_for_its_text(tmp_path):
+    """The symptom of the issue: a focused one-line input drawn with the toolkit's tall focus
+    border has no content row left, so its text and cursor vanish. Every input of every pane,
+    focused in turn at 80x24 and 160x45, keeps at least one content row."""
+    async def flow(size):
+        app, _ = make_app(tmp_path)
+        async with app.run_test(size=size) as pilot:
+            await settle(pilot, app)
+            seen = 0
+            for pane in ("beam", "pour", "camber", "studs", "findings", "sheet"):
+                app.workbench.action_pane(pane)
+                await settle(pilot, app)
+                for field in app.workbench.query(Input):
+                    if not field.is_on_screen and not field.display:
+                        continue
+                    field.focus()
+                    await pilot.pause()
+                    if field.has_focus and field.region.height:
+                        seen += 1
+                        assert field.content_region.height >= 1, (pane, field.id)
+            assert seen >= 20
+    for size in ((80, 24), (160, 45)):
+        asyncio.run(flow(size))
