@@ -57,13 +57,17 @@ class StudSpec:
 @dataclass(frozen=True, slots=True)
 class PointLoad:
     """Concentrated load at station `x` (kips): `dead` is all dead load, of which
-    `precomposite_dead` is applied to the bare steel; `construction_live` acts during placement."""
+    `precomposite_dead` is applied to the bare steel; `construction_live` acts during placement.
+    The pre-composite part arrives with the first stage that places concrete at `x`, or, for the
+    reaction of a beam framing in (engine.bay), at erection or with the pour on `day`."""
 
     x: float
     dead: float
     live: float
     precomposite_dead: float
     construction_live: float = 0.0
+    day: float | None = None  # placed with the pour on this day (a framing beam's reaction), None: with the concrete at x
+    erection: bool = False  # on the steel before any pour (a framing beam's own weight and deck)
 
 
 @dataclass(frozen=True, slots=True)

@@ -292,11 +292,34 @@ def _check_references(job: Job, path: str | os.PathLike[str]) -> None:
         if b.slab not in slabs:
             problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'slab'",
                              f"no slab with id {_short(b.slab)}" + _hint(b.slab, slabs)))
+    bearing_ends = {b.mark for b in job.beam if b.left_on is not None or b.right_on is not None}
     for i, b in enumerate(job.beam):
-        for k, f in enumerate(b.framing):
-            if f.mark == b.mark or f.mark not in marks:
-                problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'framing[{k}].mark'",
-                                 "names the beam itself" if f.mark == b.mark
-                                 else f"no beam with mark {_short(f.mark)}" + _hint(f.mark, marks)))
+        for end in ("left_on", "right_on"):
+            on = getattr(b, end)
+            if on is None:
+                continue
+            where = f"beam '{shown(b.mark)}' #{i + 1}, field '{end}.girder'"
+            if on.girder == b.mark:
+                problems.append((where, "names the beam itself"))
+            elif on.girder not in marks:
+                problems.append((where, f"no beam with mark {_short(on.girder)}" + _hint(on.girder, marks)))
+            elif on.girder in bearing_ends:
+                problems.append((where, f"girder {_short(on.girder)} itself rests on a girder; a girder on a girder "
+                                 "is not computed (its ends must rest on columns or walls)"))
+    zone_names: list[str] = []
+    listed: dict[str, str] = {}
+    for i, z in enumerate(job.zone):
+        here = f"zone '{shown(z.name)}' #{i + 1}"
+        if z.name in zone_names:
+            problems.append((f"{here}, field 'name'", "duplicate zone name"))
+        zone_names.append(z.name)
+        for k, mark in enumerate(z.beams):
+            if mark not in marks:
+                problems.append((f"{here}, field 'beams[{k}]'", f"no beam with mark {_short(mark)}" + _hint(mark, marks)))
+            elif mark in listed:
+                problems.append((f"{here}, field 'beams[{k}]'", f"beam {_short(mark)} is already in zone "
+                                 f"{_short(listed[mark])}; a member placed in two pours needs zones with outlines"))
+            else:
+                listed[mark] = z.name
     if problems:
         raise JobFileError(path, problems)
