@@ -227,7 +227,7 @@ def evaluate_level(level: LevelInput, with_bays: bool = True) -> LevelResult:
             return solve_bay(bare, plans, level.bearings, picked)
 
         bays = tuple(bay_camber(beams[g], beams, level.bearings, cambers, solve) for g in level.girders)
-    concrete = zone_concrete(bare, plans, solution, level.deck_sag)
+    concrete = zone_concrete(bare, plans, solution, level.deck_sag, tuple(z.name for z in level.zones))
     return LevelResult(level, members, solution, tuple(sorted(cambers.items())), loads, bays, concrete)
 
 

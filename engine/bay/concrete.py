@@ -36,9 +36,13 @@ class ZoneConcrete:
         return self.nominal + self.ponded_own + self.ponded_girders + self.deck_sag
 
 
+OUTSIDE = "outside the pour zones"
+
+
 def zone_concrete(members: tuple[BeamInput, ...], plans: dict[str, PourPlan], solution: BaySolution,
-                  deck_sag: float | None) -> tuple[ZoneConcrete, ...]:
-    """Per stage name (the zones name their stages) in day order, then the level's sum."""
+                  deck_sag: float | None, zones: tuple[str, ...]) -> tuple[ZoneConcrete, ...]:
+    """Per pour zone (the zones name their members' stages) in day order, the members' own
+    stages outside every zone together, then the level's sum."""
     rows: dict[str, list[float]] = {}
     days: dict[str, float] = {}
     for m in members:
@@ -51,8 +55,9 @@ def zone_concrete(members: tuple[BeamInput, ...], plans: dict[str, PourPlan], so
             if step.kind != "pour":
                 continue
             placed = float(step.placed.sum(axis=0).max()) > 0.0 and width > 0.0
-            row = rows.setdefault(step.name, [0.0, 0.0, 0.0, 0.0])
-            days.setdefault(step.name, step.day)
+            name = step.name if step.name in zones else OUTSIDE
+            row = rows.setdefault(name, [0.0, 0.0, 0.0, 0.0])
+            days[name] = step.day if name != OUTSIDE else float("inf")
             if not placed:
                 continue
             share = _side_share(step.side, m)
@@ -64,7 +69,8 @@ def zone_concrete(members: tuple[BeamInput, ...], plans: dict[str, PourPlan], so
             if same_day[0] is step:  # the day's ponding goes to the member's first stage that day
                 row[1] += float(run.ponded_own[t]) / unit
                 row[2] += float(run.ponded_settle[t]) / unit
-    out = [ZoneConcrete(name, days[name], *vals) for name, vals in sorted(rows.items(), key=lambda kv: days[kv[0]])]
+    out = [ZoneConcrete(name, None if name == OUTSIDE else days[name], *vals)
+           for name, vals in sorted(rows.items(), key=lambda kv: days[kv[0]])]
     total = [sum(getattr(z, f) for z in out) for f in ("nominal", "ponded_own", "ponded_girders", "deck_sag")]
     return (*out, ZoneConcrete("level", None, *total))
 

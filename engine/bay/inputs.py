@@ -42,6 +42,7 @@ class PourZone:
     date: str = ""
     beams: tuple[str, ...] = ()
     outline: tuple[tuple[float, float], ...] = ()
+    only: tuple[str, ...] = ()  # an outline places only these members (those of its level); () = any
 
 
 @dataclass(frozen=True, slots=True)

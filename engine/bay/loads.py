@@ -50,7 +50,7 @@ def girder_loads(solution: BaySolution, beams: dict[str, BeamInput], bearings: t
     out: list[GirderLoad] = []
     for b in bearings:
         run = solution.member(b.beam)
-        for t, (step, day) in enumerate(zip(solution.steps, solution.days)):
+        for t, (step, day) in enumerate(zip(run.names, solution.days)):
             nominal, ponded, live = (float(v) for v in run.reaction[t, b.end])
             if t == 0:
                 out.append(GirderLoad(b.girder, b.beam, b.end, b.at, step, None, steel_and_deck=nominal))

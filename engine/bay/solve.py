@@ -61,6 +61,7 @@ class MemberRun:
     first_step: np.ndarray
     level_placed: np.ndarray
     end_lift: tuple[float, float]  # the girders' camber at the two ends (in)
+    names: tuple[str, ...]  # its own stages placed in each step ("" when none)
 
     def sag(self) -> np.ndarray:
         """Deflection below the line of the columns after each step (T, n): its own plus the
@@ -166,6 +167,7 @@ class _State:
         self.ponded_own, self.ponded_settle = np.zeros(count), np.zeros(count)
         self.first, self.level = np.full(n, count - 1), np.zeros(n, dtype=bool)
         self.placed = np.zeros(n, dtype=bool)
+        self.names = [""] * count
 
     def _lift(self) -> np.ndarray:
         t = self.x / self.span
@@ -177,6 +179,7 @@ class _State:
         return cast(np.ndarray, ends[..., :1] * (1.0 - t) + ends[..., 1:] * t)
 
     def _mark_placed(self, steps: list[Step], t: int) -> None:
+        self.names[t] = ", ".join(dict.fromkeys(s.name for s in steps))
         for step in steps:
             new = (step.placed.max(axis=0) >= 0.5) & ~self.placed
             self.first[new], self.level[new] = t, step.level
@@ -254,7 +257,7 @@ class _State:
 
     def run(self) -> MemberRun:
         return MemberRun(self.member.mark, self.x, self.span, self.camber, self.dead, self.settle, self.reaction,
-                         self.ponded_own, self.ponded_settle, self.first, self.level, self.end_lift)
+                         self.ponded_own, self.ponded_settle, self.first, self.level, self.end_lift, tuple(self.names))
 
 
 def _weight(x: np.ndarray, q: np.ndarray) -> float:

@@ -87,7 +87,9 @@ def member_stages(level: LevelInput, beam: BeamInput) -> tuple[PourStage, ...]:
 def _pieces(zone: PourZone, beam: BeamInput, line: PlanLine | None) -> list[tuple[float, float]]:
     if zone.beams:
         return [(0.0, beam.span)] if beam.mark in zone.beams else []
-    return stretches(line, beam.span, zone.outline) if line is not None else []
+    if line is None or (zone.only and beam.mark not in zone.only):
+        return []
+    return stretches(line, beam.span, zone.outline)
 
 
 def with_zone_stages(level: LevelInput) -> tuple[BeamInput, ...]:

@@ -40,6 +40,16 @@ def camber_beam(beam, as_json: bool) -> tuple[str | None, bool, str, list, str]:
     return None, str(r.verdict), line, rows, text + construction_text(r)
 
 
+def level_bays(job, beams):
+    """The level's bays (engine.pipeline.evaluate_level) when some beam end rests on a girder, else None."""
+    if not any(b.left_on or b.right_on for b in job.beam):
+        return None
+    from engine.pipeline import evaluate_level
+    from fieldcomp.jobs.to_engine import level_input
+
+    return evaluate_level(level_input(job, beams))
+
+
 def run(args: argparse.Namespace) -> int:
     import csv
     import io
@@ -48,6 +58,7 @@ def run(args: argparse.Namespace) -> int:
     from fieldcomp.cli.parallel import json_with_list, map_beams
     from fieldcomp.jobs.jobfile import JobFileError
     from fieldcomp.views.finished_report import caution_block
+    from fieldcomp.views.bay_report import bay_json, bay_text
     from fieldcomp.views.construction_report import csv_rows, schedule_text
 
     try:
@@ -66,8 +77,10 @@ def run(args: argparse.Namespace) -> int:
             write_text_atomic(args.csv, sheet.getvalue())
         except OSError as exc:
             return fail_output(exc, args.csv)
+    bays = level_bays(job, beams) if args.beam is None else None
     if args.json:
-        print(json_with_list({"job": job.project.name, "caution": CAUTION}, "beams", [d[4] for d in done]))
+        head = {"job": job.project.name, "caution": CAUTION} | ({} if bays is None else {"level": bay_json(bays)})
+        print(json_with_list(head, "beams", [d[4] for d in done]))
     else:
         print(f"fieldcomp {__version__} - camber schedule - job '{job.project.name}' ({args.job})")
         print(caution_block())
@@ -76,6 +89,9 @@ def run(args: argparse.Namespace) -> int:
         for d in done:
             print()
             print(d[4])
+        if bays is not None:
+            print()
+            print(bay_text(bays))
         print()
         print("construction stage, " + tally([b.mark for b in beams], verdicts))
         if args.csv:

@@ -107,6 +107,7 @@ class Project(Strict):
     station_origin: Literal["beam-end", "support"] = Field(
         "beam-end", description="Stations are measured from the end of the steel or from the support work point.")
     camber: CamberSettings = Field(default_factory=CamberSettings, description="Camber decision settings.")
+    deck_sag: Length | None = Field(None, description="The deck's own sag between beams at mid-pitch under wet concrete (from the deck's load tables): counted in the concrete to order. Leave out: not counted.")
 
 
 class Deck(Strict):

@@ -17,7 +17,8 @@ from engine.model.shapes import ShapeNotFoundError, get_shape
 from engine.model.units import format_inches, parse_length
 from engine.model.errors import FieldcompError
 from fieldcomp.jobs.jobfile import JobFileError, shown
-from fieldcomp.jobs.model import Beam, Job
+from fieldcomp.jobs.model import Beam, Job, coordinate_inches
+from engine.bay.inputs import FAR_END, REFERENCE_END, Bearing, LevelInput, PlanLine, PourZone
 
 STATIONS = next(f.default for f in fields(BeamInput) if f.name == "n_stations")  # the engine's station grid
 MAX_POUR_STAGES = 20  # a pour plan placed in short segments from both sides stays well under this
@@ -60,7 +61,50 @@ def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInpu
             problems.append((f"{here}, field '{exc.field}'", str(exc)))
     if problems:
         raise JobFileError(path, problems)
-    return beams
+    if not job.zone and not any(b.left_on or b.right_on for b in job.beam):
+        return beams
+    from engine.bay.zones import ZoneError
+    from engine.mechanics.statics import PondingInstabilityError
+    from engine.pipeline import framed_members
+
+    try:
+        return list(framed_members(level_input(job, beams, path)))
+    except (ZoneError, PondingInstabilityError) as exc:
+        raise JobFileError(path, [("level", str(exc))]) from None
+
+
+def level_input(job: Job, beams: list[BeamInput], path: str | os.PathLike[str] = "<job>") -> LevelInput:
+    """The job's level for engine.bay: bearings of beam ends on girders, plan lines, pour zones
+    (days counted from the first zone's date). Raises JobFileError naming beam or zone and field."""
+    spans = {b.mark: b.span for b in beams}
+    problems: list[tuple[str, str]] = []
+    bearings = []
+    for i, b in enumerate(job.beam):
+        for end, name in ((REFERENCE_END, "left_on"), (FAR_END, "right_on")):
+            on = getattr(b, name)
+            if on is None:
+                continue
+            at = parse_length(on.at)
+            if not 0.0 < at < spans[on.girder]:
+                problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field '{name}.at'",
+                                 f"{shown(on.at)} is not inside the span of girder '{shown(on.girder)}'"))
+            bearings.append(Bearing(b.mark, end, on.girder, at))
+    plans = tuple((b.mark, PlanLine(*(coordinate_inches(getattr(b.plan, c)) for c in ("x1", "y1", "x2", "y2"))))
+                  for b in job.beam if b.plan is not None)
+    import datetime
+
+    dates = [datetime.date.fromisoformat(z.date) for z in job.zone]
+    first = min(dates) if dates else None
+    zones = []
+    for z, d in zip(job.zone, dates):
+        only = tuple(b.mark for b in job.beam if b.level == z.level) if z.level is not None else ()
+        outline = tuple((coordinate_inches(p.x), coordinate_inches(p.y)) for p in z.outline)
+        zones.append(PourZone(z.name, float((d - first).days) if first else 0.0, z.date, tuple(z.beams), outline, only))
+    if problems:
+        raise JobFileError(path, problems)
+    sag = job.project.deck_sag
+    return LevelInput(job.project.name, tuple(beams), tuple(bearings), plans, tuple(zones),
+                      None if sag is None else parse_length(sag))
 
 
 class _FieldProblemError(FieldcompError, ValueError):

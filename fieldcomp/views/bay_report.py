@@ -1,0 +1,113 @@
+"""Views of the level's bays (no engineering here): each bay's mid-bay deflection and camber
+alternatives, the girder loads derived from the beams resting on them, the concrete to order per
+pour zone, and the numbers a plan drawing shows (`bay_plan_data`)."""
+
+from __future__ import annotations
+
+from typing import Any
+
+import numpy as np
+
+from engine.bay.concrete import DECK_SAG_METHOD
+from engine.bay.inputs import FAR_END
+from engine.bay.loads import FINISHED, LOAD_TYPES
+from engine.model.units import format_ft_in, format_inches
+from engine.pipeline import LevelResult
+from fieldcomp import CAUTION
+from fieldcomp.views.numbers import finite
+
+IN3_PER_YD3 = 46_656.0  # 36^3
+PLAN_POINTS = 9
+
+
+def _num(value: float | None, digits: int = 3) -> float | None:
+    return finite(None if value is None else float(value), digits)
+
+
+def _end(end: int) -> str:
+    return "far end" if end == FAR_END else "reference end"
+
+
+def bay_json(result: LevelResult) -> dict[str, Any]:
+    """The level's bays, girder loads and concrete to order as one JSON-ready record."""
+    cambers = dict(result.cambers)
+    bays = []
+    for bay in result.bays:
+        first = bay.alternatives[0]
+        bays.append({
+            "girder": bay.girder, "beams": list(bay.beams), "mid_bay_beam": bay.mid_beam,
+            "ordered_camber_in": {m: _num(cambers.get(m, 0.0)) for m in (bay.girder, *bay.beams)},
+            "mid_bay_deflection_in": _num(first.deflection, 4), "beam_share_in": _num(first.beam_share, 4),
+            "girder_share_in": _num(first.girder_share, 4), "remark": bay.remark,
+            "alternatives": [{"choice": a.label, "camber_in": {m: _num(c) for m, c in a.cambers},
+                              "mid_bay_deflection_in": _num(a.deflection, 4), "net_of_camber_in": _num(a.net, 4),
+                              "top_of_slab_stations_in": [_num(s, 2) for s in a.stations],
+                              "top_of_slab_in": [_num(v, 4) for v in a.top_of_slab],
+                              "extra_concrete_yd3": _num(a.extra_concrete / IN3_PER_YD3, 3)} for a in bay.alternatives],
+        })
+    loads = [{"girder": g.girder, "beam": g.beam, "end": _end(g.end), "at_in": _num(g.at, 2), "step": g.step,
+              "day": _num(g.day, 2), **{t.replace(" ", "_") + "_kip": _num(g.of(t), 3) for t in LOAD_TYPES}}
+             for g in result.loads]
+    concrete = [{"zone": z.zone, "day": _num(z.day, 2), "nominal_yd3": _num(z.nominal / IN3_PER_YD3, 2),
+                 "ponded_own_sag_yd3": _num(z.ponded_own / IN3_PER_YD3, 2),
+                 "ponded_girder_sag_yd3": _num(z.ponded_girders / IN3_PER_YD3, 2),
+                 "deck_sag_yd3": _num(z.deck_sag / IN3_PER_YD3, 2), "total_yd3": _num(z.total / IN3_PER_YD3, 2)}
+                for z in result.concrete]
+    return {"bays": bays, "girder_loads": loads, "concrete": concrete,
+            "deck_sag_method": DECK_SAG_METHOD if result.level.deck_sag else None,
+            "plan": bay_plan_data(result), "caution": CAUTION}
+
+
+def bay_plan_data(result: LevelResult) -> list[dict[str, Any]]:
+    """Per member, for a plan drawing: its camber to order and its wet-concrete sag below the
+    line of the columns (own + girders', before camber) at PLAN_POINTS stations along it (in,
+    from its reference end), and for girders the total derived load (kip, pre-composite)."""
+    cambers = dict(result.cambers)
+    out = []
+    for run in result.solution.members:
+        pick = np.round(np.linspace(0, run.x.size - 1, PLAN_POINTS)).astype(int)
+        member = result.member(run.mark)
+        derived = sum(p.precomposite_dead for p in member.point_loads if p.erection or p.day is not None)
+        out.append({"mark": run.mark, "camber_in": _num(cambers.get(run.mark, 0.0)),
+                    "stations_in": [_num(float(run.x[i]), 2) for i in pick],
+                    "wet_sag_in": [_num(float(v), 4) for v in run.sag()[-1, pick]],
+                    "derived_precomposite_kip": _num(derived, 2) if derived else None})
+    return out
+
+
+def bay_text(result: LevelResult) -> str:
+    """The bays of the level as text for `fieldcomp camber` (under the beams)."""
+    cambers = dict(result.cambers)
+    lines = ["Bays (girders with the beams resting on them, through the pour; bare steel):"]
+    for bay in result.bays:
+        first = bay.alternatives[0]
+        ordered = ", ".join(f"{m} {format_inches(cambers.get(m, 0.0))}" for m in (bay.girder, *bay.beams))
+        lines += [f"  Bay of girder {bay.girder}: beams {', '.join(bay.beams)}; mid-bay at beam {bay.mid_beam}",
+                  f"    camber ordered by each member's rule: {ordered}",
+                  f"    mid-bay wet deflection {format_inches(first.deflection)} = beam {format_inches(first.beam_share)}"
+                  f" + girders {format_inches(first.girder_share)}; net of camber {format_inches(first.net)}"]
+        if bay.remark:
+            lines.append(f"    NOTE: {bay.remark}")
+        lines.append("    alternatives (the engineer chooses):")
+        lines.append(f"      {'choice':<38} {'cambers':<34} {'mid-bay':>8} {'net':>8} {'top of slab':>17} {'extra':>9}")
+        for a in bay.alternatives:
+            chosen = " ".join(f"{m}:{format_inches(c)}" for m, c in a.cambers)
+            top = f"{format_inches(min(a.top_of_slab))} to {format_inches(max(a.top_of_slab))}"
+            lines.append(f"      {a.label:<38} {chosen:<34} {format_inches(a.deflection):>8} {format_inches(a.net):>8} "
+                         f"{top:>17} {a.extra_concrete / IN3_PER_YD3:>6.2f} yd3")
+    lines += ["", "Girder loads derived from the beams resting on them (kip):",
+              f"  {'girder':<8} {'beam':<8} {'end':<13} {'at':>9}  {'step':<28} " + " ".join(f"{t[:12]:>12}" for t in LOAD_TYPES)]
+    for g in result.loads:
+        step = g.step if g.step == FINISHED or g.day is None else f"day {g.day:g}: {g.step}"
+        lines.append(f"  {g.girder:<8} {g.beam:<8} {_end(g.end):<13} {format_ft_in(g.at):>9}  {step[:28]:<28} "
+                     + " ".join(f"{g.of(t):>12.2f}" for t in LOAD_TYPES))
+    lines += ["", "Concrete to order (cubic yards; nominal + ponded into the beams' sag + into the girders' sag"
+              + (" + deck sag between beams" if result.level.deck_sag else "") + "):"]
+    for z in result.concrete:
+        day = "" if z.day is None else f" (day {z.day:g})"
+        lines.append(f"  {(z.zone + day)[:30]:<30} nominal {z.nominal / IN3_PER_YD3:7.2f}  own sag {z.ponded_own / IN3_PER_YD3:6.2f}"
+                     f"  girders' sag {z.ponded_girders / IN3_PER_YD3:6.2f}  deck {z.deck_sag / IN3_PER_YD3:6.2f}"
+                     f"  total {z.total / IN3_PER_YD3:7.2f}")
+    if result.level.deck_sag:
+        lines.append(f"  deck sag {format_inches(result.level.deck_sag)} at mid-pitch: {DECK_SAG_METHOD}")
+    return "\n".join(lines)
