@@ -11,7 +11,7 @@ import numpy as np
 from engine.bay.camber import BayCamber, bay_camber
 from engine.bay.concrete import ZoneConcrete, zone_concrete
 from engine.bay.inputs import LevelInput
-from engine.bay.loads import GirderLoad, girder_loads, with_derived, without_derived
+from engine.bay.loads import GirderLoad, girder_loads, with_derived, with_settlement, without_derived
 from engine.bay.solve import BaySolution, solve_bay
 from engine.bay.zones import with_zone_stages
 from engine.construction.evaluate import ConstructionResult, evaluate_construction
@@ -198,36 +198,41 @@ class LevelResult:
         return next(m for m in self.members if m.mark == mark)
 
 
-GIRDER_PASSES = 4  # the girder's camber feeds the beams' ponding; its decision settles in one or two passes
+BAY_PASSES = 4  # cambers feed the ponding and the ponding the cambers; the decisions settle in one or two passes
 
 
 def evaluate_level(level: LevelInput, with_bays: bool = True) -> LevelResult:
     """Zones -> each beam's construction stage and camber (engine.construction) -> the bay solved
     at those cambers (engine.bay.solve) -> girder loads derived per step and load type
-    (engine.bay.loads) -> each girder's own construction stage and camber on those loads, repeated
-    until the girders' cambers settle -> bay camber alternatives and concrete to order."""
+    (engine.bay.loads) -> each girder's own construction stage and camber on those loads, each
+    beam's with the drop of its ends on the girders (a level screed ponds into it), repeated until
+    the cambers settle -> bay camber alternatives and concrete to order. `with_bays=False`: the
+    members only (the bays' members solved; no alternatives; concrete of the bays' members)."""
     staged = with_zone_stages(level)
     girders = set(level.girders)
     bare = tuple(without_derived(m) if m.mark in girders else m for m in staged)
-    plans = {m.mark: pour_plan(m) for m in bare}
-    cambers = {m.mark: evaluate_construction(m).camber.camber for m in bare if m.mark not in girders}
+    in_bays = girders | {b.beam for b in level.bearings}
+    solved = bare if with_bays else tuple(m for m in bare if m.mark in in_bays)  # the concrete needs them all
+    plans = {m.mark: pour_plan(m) for m in solved}
+    cambers = {m.mark: evaluate_construction(m).camber.camber for m in solved if m.mark not in girders}
     cambers.update({g: 0.0 for g in girders})
     beams = {m.mark: m for m in bare}
-    for _ in range(GIRDER_PASSES):
-        solution = solve_bay(bare, plans, level.bearings, cambers)
+    for _ in range(BAY_PASSES):
+        solution = solve_bay(solved, plans, level.bearings, cambers)
         loads = girder_loads(solution, beams, level.bearings)
-        members = tuple(with_derived(m, loads) if m.mark in girders else m for m in bare)
-        decided = {m.mark: evaluate_construction(m).camber.camber for m in members if m.mark in girders}
-        if all(decided[g] == cambers[g] for g in girders):
+        members = tuple(with_derived(m, loads) if m.mark in girders else
+                        with_settlement(m, solution) if m.mark in in_bays else m for m in bare)
+        decided = {m.mark: evaluate_construction(m).camber.camber for m in members if m.mark in in_bays}
+        if all(decided[g] == cambers[g] for g in decided):
             break
         cambers.update(decided)
     bays: tuple[BayCamber, ...] = ()
     if with_bays:
         def solve(picked: dict[str, float]) -> BaySolution:
-            return solve_bay(bare, plans, level.bearings, picked)
+            return solve_bay(solved, plans, level.bearings, picked)
 
         bays = tuple(bay_camber(beams[g], beams, level.bearings, cambers, solve) for g in level.girders)
-    concrete = zone_concrete(bare, plans, solution, level.deck_sag, tuple(z.name for z in level.zones))
+    concrete = zone_concrete(solved, plans, solution, level.deck_sag, tuple(z.name for z in level.zones))
     return LevelResult(level, members, solution, tuple(sorted(cambers.items())), loads, bays, concrete)
 
 

@@ -39,14 +39,17 @@ def median_seconds(fn, repeat: int, number: int = 1) -> float:
 
 def generated_job(beams: int) -> str:
     """The demo job's decks and slabs with `beams` beams cycled from the demo's beams, renamed."""
-    text = DEMO.read_text()
+    text = DEMO.read_text().split("[[zone]]", 1)[0]  # the demo's pour zones name its own plan; left out
     head, _, rest = text.partition("[[beam]]")
     blocks = ["[[beam]]" + b for b in rest.split("[[beam]]")]
+    marks = [b.split('mark = "', 1)[1].split('"', 1)[0] for b in blocks]
     out = [head]
     for i in range(beams):
-        block = blocks[i % len(blocks)]
-        mark = block.split('mark = "', 1)[1].split('"', 1)[0]
-        out.append(block.replace(f'mark = "{mark}"', f'mark = "{mark}-{i:04d}"', 1))
+        block, mark = blocks[i % len(blocks)], marks[i % len(blocks)]
+        block = block.replace(f'mark = "{mark}"', f'mark = "{mark}-{i:04d}"', 1)
+        for k, girder in enumerate(marks):  # a beam end on a girder names the girder of its own cycle
+            block = block.replace(f'girder = "{girder}"', f'girder = "{girder}-{i - i % len(blocks) + k:04d}"')
+        out.append(block)
     return "".join(out)
 
 

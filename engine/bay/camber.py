@@ -44,11 +44,13 @@ class BayFloor:
 
 @dataclass(frozen=True, slots=True)
 class BayCamber:
-    """One bay (a girder and the beams resting on it): its mid-bay beam and the alternatives."""
+    """One bay (a girder and the beams resting on it): its mid-bay beam (the one bearing nearest the
+    girder's midspan; mid-bay is that beam's midspan) and the alternatives."""
 
     girder: str
     beams: tuple[str, ...]
     mid_beam: str
+    girder_deflection: float  # the girder's own wet deflection at its midspan at the ordered cambers (in)
     alternatives: tuple[BayFloor, ...]
     remark: str
 
@@ -111,13 +113,15 @@ def bay_camber(girder: BeamInput, members: dict[str, BeamInput], bearings: tuple
         mine = {m: c for m, c in key}
         floors.append(floor(result, mid, beams, label, mine))
     first = floors[0]
+    g_run = base.member(girder.mark)
+    g_mid = float(np.cumsum(g_run.dead, axis=0)[-1, g_run.x.size // 2])
     remark = ""
     rules = mid.construction.camber
     if all(c == 0.0 for _, c in first.cambers) and rules.fraction * first.deflection >= rules.minimum - 1e-9:
         remark = (f"beam {mid.mark} ({format_inches(first.beam_share)}) and girder {girder.mark} "
-                  f"({format_inches(first.girder_share)} under it) each fall under their own camber rule, but "
+                  f"({format_inches(g_mid)} at its midspan) are each left uncambered by their own rule, but "
                   f"together sag {format_inches(first.deflection)} at mid-bay: see the alternatives")
-    return BayCamber(girder.mark, beams, mid.mark, tuple(floors), remark)
+    return BayCamber(girder.mark, beams, mid.mark, g_mid, tuple(floors), remark)
 
 
 def _beam_cambers(solution: BaySolution, beams: tuple[str, ...], members: dict[str, BeamInput]) -> dict[str, float]:

@@ -7,6 +7,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass, replace
 
+import numpy as np
+
 from engine.bay.inputs import Bearing
 from engine.bay.solve import BaySolution
 from engine.finished.loads import finished_loads
@@ -91,3 +93,13 @@ def with_derived(girder: BeamInput, loads: tuple[GirderLoad, ...]) -> BeamInput:
     """The girder with its typed point loads and those derived from its bearings."""
     girder = without_derived(girder)
     return replace(girder, point_loads=girder.point_loads + derived_point_loads(loads, girder.mark))
+
+
+def with_settlement(beam: BeamInput, solution: BaySolution) -> BeamInput:
+    """The beam with the drop of its ends on the girders by the end of each pour day, net of the
+    girders' camber (engine.model.inputs.ConstructionSpec.settlement), from the bay solve."""
+    run = solution.member(beam.mark)
+    drops = np.cumsum(run.settle, axis=0)
+    rows = tuple((float(day), float(d[0] - run.end_lift[0]), float(d[1] - run.end_lift[1]))
+                 for day, d in zip(solution.days[1:], drops[1:]))
+    return replace(beam, construction=replace(beam.construction, settlement=rows))

@@ -53,9 +53,9 @@ def stretches(line: PlanLine, span: float, outline: tuple[tuple[float, float], .
     mid = 0.5 * (ts[:-1] + ts[1:])
     keep = inside(poly, p[0] + mid * d[0], p[1] + mid * d[1])
     out: list[tuple[float, float]] = []
-    for start, end, k in zip(ts[:-1] * span, ts[1:] * span, keep):
-        start = 0.0 if start < SNAP else start
-        end = span if end > span - SNAP else end
+    for a, b, k in zip(ts[:-1] * span, ts[1:] * span, keep):
+        start = 0.0 if a < SNAP else float(a)
+        end = span if b > span - SNAP else float(b)
         if not k or end - start < SNAP:
             continue
         if out and abs(out[-1][1] - start) < 1e-9:

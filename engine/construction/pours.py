@@ -52,6 +52,7 @@ class Step:
     placed: np.ndarray
     k: np.ndarray
     level: bool  # concrete ponds into the sag here: k > 0 somewhere
+    settle: np.ndarray | None = None  # (n,) the supports' drop line by the end of the step (engine.bay), or None
 
 
 @dataclass(frozen=True, slots=True)
@@ -204,7 +205,20 @@ def pour_plan(beam: BeamInput) -> PourPlan:
         steps.append(Step(st.name, "framing", 0.0, span, "both", st.day, con.screed, tuple(dead), tuple(live),
                           np.zeros((2, x.size)), zeros, False))
     steps[1:] = sorted(steps[1:], key=lambda s: s.day)  # stable: within a day the listed order holds
+    if con.settlement:
+        steps = [replace(s, settle=settlement_line(x, span, con.settlement, s.day)) if s.level else s for s in steps]
     return PourPlan(x, span, tuple(steps))
+
+
+def settlement_line(x: np.ndarray, span: float, settlement: tuple[tuple[float, float, float], ...],
+                    day: float) -> np.ndarray:
+    """The straight line between the two ends' drops by the end of `day` (the last entry on or
+    before it; geometry: a rigid drop of the supports)."""
+    known = [s for s in settlement if s[0] <= day + 1e-9]
+    if not known:
+        return np.zeros_like(x)
+    _, ref, far = max(known, key=lambda s: s[0])
+    return cast(np.ndarray, ref + (far - ref) * x / span)
 
 
 FRAMING_STAGE = "loads of the framing beams"

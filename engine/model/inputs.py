@@ -113,6 +113,9 @@ class ConstructionSpec:
     dead_limit_authority: Authority = Authority.DESIGN_GUIDE  # PROJECT when the job sets the limit
     live_limit_ratio: float | None = None  # construction live-load deflection limit; None: not checked
     measured_camber: float | None = None  # camber measured in the shop or on site before the pour (in)
+    # the ends' drop on the girders they rest on (engine.bay), net of the girders' camber: (day, reference
+    # end, far end) in, cumulative by the end of that pour day; a level screed ponds into this line too
+    settlement: tuple[tuple[float, float, float], ...] = ()
 
 
 @dataclass(frozen=True, slots=True)

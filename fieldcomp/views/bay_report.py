@@ -38,7 +38,8 @@ def bay_json(result: LevelResult) -> dict[str, Any]:
             "girder": bay.girder, "beams": list(bay.beams), "mid_bay_beam": bay.mid_beam,
             "ordered_camber_in": {m: _num(cambers.get(m, 0.0)) for m in (bay.girder, *bay.beams)},
             "mid_bay_deflection_in": _num(first.deflection, 4), "beam_share_in": _num(first.beam_share, 4),
-            "girder_share_in": _num(first.girder_share, 4), "remark": bay.remark,
+            "girder_share_in": _num(first.girder_share, 4), "girder_midspan_deflection_in": _num(bay.girder_deflection, 4),
+            "remark": bay.remark,
             "alternatives": [{"choice": a.label, "camber_in": {m: _num(c) for m, c in a.cambers},
                               "mid_bay_deflection_in": _num(a.deflection, 4), "net_of_camber_in": _num(a.net, 4),
                               "top_of_slab_stations_in": [_num(s, 2) for s in a.stations],
@@ -75,6 +76,14 @@ def bay_plan_data(result: LevelResult) -> list[dict[str, Any]]:
     return out
 
 
+def _cambers_text(cambers: dict[str, float], girder: str, beams: tuple[str, ...]) -> str:
+    """'girder 1/2", beams 3/4"' when the beams share one camber, else each beam's."""
+    values = {cambers.get(m, 0.0) for m in beams}
+    shown = (f'beams {format_inches(values.pop())}' if len(values) == 1
+             else " ".join(f"{m} {format_inches(cambers.get(m, 0.0))}" for m in beams))
+    return f"girder {format_inches(cambers.get(girder, 0.0))}, {shown}"
+
+
 def bay_text(result: LevelResult) -> str:
     """The bays of the level as text for `fieldcomp camber` (under the beams)."""
     cambers = dict(result.cambers)
@@ -82,18 +91,20 @@ def bay_text(result: LevelResult) -> str:
     for bay in result.bays:
         first = bay.alternatives[0]
         ordered = ", ".join(f"{m} {format_inches(cambers.get(m, 0.0))}" for m in (bay.girder, *bay.beams))
-        lines += [f"  Bay of girder {bay.girder}: beams {', '.join(bay.beams)}; mid-bay at beam {bay.mid_beam}",
+        lines += [f"  Bay of girder {bay.girder}: beams {', '.join(bay.beams)}; mid-bay = midspan of {bay.mid_beam}, "
+                  "the beam nearest the girder's midspan",
                   f"    camber ordered by each member's rule: {ordered}",
                   f"    mid-bay wet deflection {format_inches(first.deflection)} = beam {format_inches(first.beam_share)}"
-                  f" + girders {format_inches(first.girder_share)}; net of camber {format_inches(first.net)}"]
+                  f" + girders {format_inches(first.girder_share)}; net of camber {format_inches(first.net)}; "
+                  f"girder {format_inches(bay.girder_deflection)} at its midspan"]
         if bay.remark:
             lines.append(f"    NOTE: {bay.remark}")
         lines.append("    alternatives (the engineer chooses):")
-        lines.append(f"      {'choice':<38} {'cambers':<34} {'mid-bay':>8} {'net':>8} {'top of slab':>17} {'extra':>9}")
+        lines.append(f"      {'choice':<38} {'cambers':<26} {'mid-bay':>8} {'net':>8} {'top of slab':>17} {'extra':>9}")
         for a in bay.alternatives:
-            chosen = " ".join(f"{m}:{format_inches(c)}" for m, c in a.cambers)
+            chosen = _cambers_text(dict(a.cambers), bay.girder, bay.beams)
             top = f"{format_inches(min(a.top_of_slab))} to {format_inches(max(a.top_of_slab))}"
-            lines.append(f"      {a.label:<38} {chosen:<34} {format_inches(a.deflection):>8} {format_inches(a.net):>8} "
+            lines.append(f"      {a.label:<38} {chosen:<26} {format_inches(a.deflection):>8} {format_inches(a.net):>8} "
                          f"{top:>17} {a.extra_concrete / IN3_PER_YD3:>6.2f} yd3")
     lines += ["", "Girder loads derived from the beams resting on them (kip):",
               f"  {'girder':<8} {'beam':<8} {'end':<13} {'at':>9}  {'step':<28} " + " ".join(f"{t[:12]:>12}" for t in LOAD_TYPES)]

@@ -16,6 +16,7 @@ agreement to about 1e-3.
 
 from __future__ import annotations
 
+import itertools
 import warnings
 
 import numpy as np
@@ -49,7 +50,7 @@ def fe_pour_step(n: int = 180) -> tuple[np.ndarray, np.ndarray, float]:
     h = L / n
     spring = 48 * EI_G / L**3
     system = SystemElements(EA=1e9, EI=1.0)
-    for a, b in zip(nodes[:-1], nodes[1:]):
+    for a, b in itertools.pairwise(nodes):
         system.add_element([[a, 0.0], [b, 0.0]], EA=1e9, EI=EI_B)
     system.add_support_hinged(1)
     w_wet = WET_PSF * 10.0 / 12_000.0
@@ -83,3 +84,18 @@ def test_coupled_level_screed_matches_frame_fe_with_a_spring():
     # the girder's own evaluation on its derived loads sees the same drop
     g = result.solution.member("G-1")
     assert g.sag()[-1, g.x.size // 2] == pytest.approx(run.sag()[-1, -1], rel=1e-6)
+
+
+def test_the_beam_alone_with_its_ends_drop_ponds_what_the_bay_ponds():
+    """The beam's own construction stage, given the drop of its far end by day (from the bay),
+    ponds the same concrete and deflects the same as in the bay solve (the same linear problem)."""
+    from engine.construction.evaluate import evaluate_construction
+
+    level = LevelInput("test", (member("B-1", "W18X35", "level"), member("G-1", "W24X62", load_width=0.0)),
+                       (Bearing("B-1", FAR_END, "G-1", 180.0),))
+    result = evaluate_level(level, with_bays=False)
+    alone = evaluate_construction(result.member("B-1"))
+    run = result.solution.member("B-1")
+    assert alone.run.dead[1] == pytest.approx(run.dead[1], rel=1e-4, abs=1e-7)
+    assert alone.ponded_weight == pytest.approx(run.ponded_own.sum() + run.ponded_settle.sum(), rel=1e-4)
+    assert run.ponded_settle.sum() > 0.2 * run.ponded_own.sum()  # the girder's sag ponds a real share
