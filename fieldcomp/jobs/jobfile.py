@@ -168,7 +168,7 @@ def where(table: str, index: int | None, raw_item: Any, field: str) -> str:
     """'beam 'B-3' (#4), field 'studs.count'' style location text."""
     name = ""
     if isinstance(raw_item, dict):
-        key = "mark" if table == "beam" else "id"
+        key = {"beam": "mark", "zone": "name"}.get(table, "id")
         if isinstance(raw_item.get(key), str):
             name = f" '{shown(raw_item[key])}'"
     num = f" #{index + 1}" if index is not None else ""
@@ -178,7 +178,7 @@ def where(table: str, index: int | None, raw_item: Any, field: str) -> str:
 def _place(path: tuple[Any, ...], raw: dict[str, Any]) -> str:
     """Location text of a path into the raw job: 'beam 'B-3' #4, field 'studs.count''."""
     table, rest = str(path[0]), list(path[1:])
-    index = rest.pop(0) if rest and isinstance(rest[0], int) and table in ("beam", "deck", "slab") else None
+    index = rest.pop(0) if rest and isinstance(rest[0], int) and table in ("beam", "deck", "slab", "zone") else None
     items = raw.get(table)
     item = items[index] if index is not None and isinstance(items, list) else None
     field = "".join(f"[{p}]" if isinstance(p, int) else f".{p}" for p in rest[:3]).lstrip(".")
@@ -215,7 +215,7 @@ def _describe(err: dict[str, Any], raw: dict[str, Any]) -> tuple[str, str]:
     full = [part for part in err["loc"] if not _is_union_tag(part)]
     loc = list(full)
     table = str(loc.pop(0)) if loc else ""
-    index = loc.pop(0) if loc and isinstance(loc[0], int) and table in ("beam", "deck", "slab") else None
+    index = loc.pop(0) if loc and isinstance(loc[0], int) and table in ("beam", "deck", "slab", "zone") else None
     item = raw.get(table) if table in raw else None
     if index is not None and isinstance(item, list) and index < len(item):
         item = item[index]

@@ -107,6 +107,7 @@ class Project(Strict):
     station_origin: Literal["beam-end", "support"] = Field(
         "beam-end", description="Stations are measured from the end of the steel or from the support work point.")
     camber: CamberSettings = Field(default_factory=CamberSettings, description="Camber decision settings.")
+    framing_from_plan: bool = Field(False, description="A beam end whose plan work point lies on a girder's line (within 1 in, between the girder's ends) rests on that girder, where left_on / right_on do not say. Leave off when girder point loads are typed for those beams.")
     deck_sag: Length | None = Field(None, description="The deck's own sag between beams at mid-pitch under wet concrete (from the deck's load tables): counted in the concrete to order. Leave out: not counted.")
 
 
@@ -189,7 +190,7 @@ def _iso_date(text: str) -> str:
         try:
             datetime.date.fromisoformat(text)
         except ValueError:
-            raise ValueError(f"'{text}' is not a date as YYYY-MM-DD") from None
+            raise ValueError(f"'{text[:40]}' is not a date as YYYY-MM-DD") from None
     return text
 
 

@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import datetime
 import os
 from dataclasses import fields
 
@@ -19,6 +20,7 @@ from engine.model.errors import FieldcompError
 from fieldcomp.jobs.jobfile import JobFileError, shown
 from fieldcomp.jobs.model import Beam, Job, coordinate_inches
 from engine.bay.inputs import FAR_END, REFERENCE_END, Bearing, LevelInput, PlanLine, PourZone
+from engine.bay.plan_framing import plan_bearings
 
 STATIONS = next(f.default for f in fields(BeamInput) if f.name == "n_stations")  # the engine's station grid
 MAX_POUR_STAGES = 20  # a pour plan placed in short segments from both sides stays well under this
@@ -61,7 +63,7 @@ def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInpu
             problems.append((f"{here}, field '{exc.field}'", str(exc)))
     if problems:
         raise JobFileError(path, problems)
-    if not job.zone and not any(b.left_on or b.right_on for b in job.beam):
+    if not job.zone and not job.project.framing_from_plan and not any(b.left_on or b.right_on for b in job.beam):
         return beams
     from engine.bay.zones import ZoneError
     from engine.mechanics.statics import PondingInstabilityError
@@ -91,8 +93,8 @@ def level_input(job: Job, beams: list[BeamInput], path: str | os.PathLike[str] =
             bearings.append(Bearing(b.mark, end, on.girder, at))
     plans = tuple((b.mark, PlanLine(*(coordinate_inches(getattr(b.plan, c)) for c in ("x1", "y1", "x2", "y2"))))
                   for b in job.beam if b.plan is not None)
-    import datetime
-
+    if job.project.framing_from_plan:
+        bearings += plan_bearings(plans, spans, tuple(bearings))
     dates = [datetime.date.fromisoformat(z.date) for z in job.zone]
     first = min(dates) if dates else None
     zones = []
