@@ -78,7 +78,13 @@ def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInpu
 def level_input(job: Job, beams: list[BeamInput], path: str | os.PathLike[str] = "<job>") -> LevelInput:
     """The job's level for engine.bay: bearings of beam ends on girders, plan lines, pour zones
     (days counted from the first zone's date). Raises JobFileError naming beam or zone and field."""
-    spans = {b.mark: b.span for b in beams}
+    # the engine inputs in job order name the members (a caller may have renamed them)
+    engine_mark = {jb.mark: b.mark for jb, b in zip(job.beam, beams)} if len(beams) == len(job.beam) else {}
+
+    def named(mark: str) -> str:
+        return engine_mark.get(mark, mark)
+
+    spans = {jb.mark: b.span for jb, b in zip(job.beam, beams)} if engine_mark else {b.mark: b.span for b in beams}
     problems: list[tuple[str, str]] = []
     bearings = []
     for i, b in enumerate(job.beam):
@@ -90,18 +96,19 @@ def level_input(job: Job, beams: list[BeamInput], path: str | os.PathLike[str] =
             if not 0.0 < at < spans[on.girder]:
                 problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field '{name}.at'",
                                  f"{shown(on.at)} is not inside the span of girder '{shown(on.girder)}'"))
-            bearings.append(Bearing(b.mark, end, on.girder, at))
-    plans = tuple((b.mark, PlanLine(*(coordinate_inches(getattr(b.plan, c)) for c in ("x1", "y1", "x2", "y2"))))
+            bearings.append(Bearing(named(b.mark), end, named(on.girder), at))
+    plans = tuple((named(b.mark), PlanLine(*(coordinate_inches(getattr(b.plan, c)) for c in ("x1", "y1", "x2", "y2"))))
                   for b in job.beam if b.plan is not None)
     if job.project.framing_from_plan:
-        bearings += plan_bearings(plans, spans, tuple(bearings))
+        bearings += plan_bearings(plans, {named(m): v for m, v in spans.items()}, tuple(bearings))
     dates = [datetime.date.fromisoformat(z.date) for z in job.zone]
     first = min(dates) if dates else None
     zones = []
     for z, d in zip(job.zone, dates):
-        only = tuple(b.mark for b in job.beam if b.level == z.level) if z.level is not None else ()
+        only = tuple(named(b.mark) for b in job.beam if b.level == z.level) if z.level is not None else ()
         outline = tuple((coordinate_inches(p.x), coordinate_inches(p.y)) for p in z.outline)
-        zones.append(PourZone(z.name, float((d - first).days) if first else 0.0, z.date, tuple(z.beams), outline, only))
+        zones.append(PourZone(z.name, float((d - first).days) if first else 0.0, z.date, tuple(named(m) for m in z.beams),
+                              outline, only))
     if problems:
         raise JobFileError(path, problems)
     sag = job.project.deck_sag

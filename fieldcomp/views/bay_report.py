@@ -35,6 +35,7 @@ def bay_json(result: LevelResult) -> dict[str, Any]:
     for bay in result.bays:
         first = bay.alternatives[0]
         bays.append({
+            "stages": bay_stages(result, bay.girder, bay.mid_beam),
             "girder": bay.girder, "beams": list(bay.beams), "mid_bay_beam": bay.mid_beam,
             "ordered_camber_in": {m: _num(cambers.get(m, 0.0)) for m in (bay.girder, *bay.beams)},
             "mid_bay_deflection_in": _num(first.deflection, 4), "beam_share_in": _num(first.beam_share, 4),
@@ -59,19 +60,39 @@ def bay_json(result: LevelResult) -> dict[str, Any]:
             "plan": bay_plan_data(result), "caution": CAUTION}
 
 
+def bay_stages(result: LevelResult, girder: str, mid_beam: str) -> list[dict[str, Any]]:
+    """Step by step (erection, then each pour day of the level): the mid-bay sag and the girder's
+    sag at its midspan after the step (in, below the line of the columns, before camber)."""
+    sol = result.solution
+    beam, g = sol.member(mid_beam), sol.member(girder)
+    return [{"step": ", ".join(dict.fromkeys(n for n in (beam.names[t], g.names[t]) if n)),
+             "day": None if t == 0 else _num(day, 2),
+             "mid_bay_in": _num(float(beam.sag()[t, beam.x.size // 2]), 4),
+             "girder_midspan_in": _num(float(g.sag()[t, g.x.size // 2]), 4)}
+            for t, day in enumerate(sol.days) if t == 0 or beam.names[t] or g.names[t]]
+
+
 def bay_plan_data(result: LevelResult) -> list[dict[str, Any]]:
     """Per member, for a plan drawing: its camber to order and its wet-concrete sag below the
     line of the columns (own + girders', before camber) at PLAN_POINTS stations along it (in,
-    from its reference end), and for girders the total derived load (kip, pre-composite)."""
+    from its reference end) and, where it lies on plan, the same points as [x, y, sag] (in) for a
+    shaded grid or contours, and for girders the total derived load (kip, pre-composite)."""
     cambers = dict(result.cambers)
     out = []
     for run in result.solution.members:
         pick = np.round(np.linspace(0, run.x.size - 1, PLAN_POINTS)).astype(int)
         member = result.member(run.mark)
         derived = sum(p.precomposite_dead for p in member.point_loads if p.erection or p.day is not None)
+        line = result.level.plan_of(run.mark)
+        sag = run.sag()[-1, pick]
+        points = None if line is None else [
+            [_num(line.x1 + (line.x2 - line.x1) * float(run.x[i]) / run.span, 2),
+             _num(line.y1 + (line.y2 - line.y1) * float(run.x[i]) / run.span, 2), _num(float(v), 4)]
+            for i, v in zip(pick, sag)]
         out.append({"mark": run.mark, "camber_in": _num(cambers.get(run.mark, 0.0)),
                     "stations_in": [_num(float(run.x[i]), 2) for i in pick],
-                    "wet_sag_in": [_num(float(v), 4) for v in run.sag()[-1, pick]],
+                    "wet_sag_in": [_num(float(v), 4) for v in sag],
+                    "plan_points_in": points,
                     "derived_precomposite_kip": _num(derived, 2) if derived else None})
     return out
 
@@ -97,6 +118,10 @@ def bay_text(result: LevelResult) -> str:
                   f"    mid-bay wet deflection {format_inches(first.deflection)} = beam {format_inches(first.beam_share)}"
                   f" + girders {format_inches(first.girder_share)}; net of camber {format_inches(first.net)}; "
                   f"girder {format_inches(bay.girder_deflection)} at its midspan"]
+        steps = "; ".join(f"{st['step'] if st['day'] is None else 'day ' + format(st['day'], 'g') + ' ' + st['step']}: "
+                          f"{format_inches(st['mid_bay_in'])} (girder {format_inches(st['girder_midspan_in'])})"
+                          for st in bay_stages(result, bay.girder, bay.mid_beam))
+        lines.append(f"    after each step, mid-bay (girder at its midspan): {steps}")
         if bay.remark:
             lines.append(f"    NOTE: {bay.remark}")
         lines.append("    alternatives (the engineer chooses):")
