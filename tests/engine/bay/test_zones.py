@@ -30,5 +30,5 @@ def test_member_stages_by_day_and_a_gap_refused():
                        zones=(PourZone("3D", 3.0, outline=NORTH), PourZone("3C", 0.0, outline=SOUTH)))
     stages = member_stages(level, g)
     assert [(s.name, s.start, s.end, s.day) for s in stages] == [("3C", 0.0, 180.0, 0.0), ("3D", 180.0, 360.0, 3.0)]
-    with pytest.raises(ZoneError, match="beam 'G-1'.*without concrete"):
+    with pytest.raises(ZoneError, match=r"beam 'G-1'.*without concrete"):
         member_stages(LevelInput("L3", (g,), plans=level.plans, zones=level.zones[:1]), g)

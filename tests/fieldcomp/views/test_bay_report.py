@@ -68,6 +68,7 @@ def test_camber_prints_the_bay_and_its_json(capsys):
 
 
 def test_a_bearing_outside_the_girder_is_refused():
-    text = DEMO.read_text().replace('right_on = { girder = "3G-201", at = "10\'-0\\""', 'right_on = { girder = "3G-201", at = "31 ft"', 1)
+    text = DEMO.read_text().replace('right_on = { girder = "3G-201", at = "10\'-0\\""',
+                                    'right_on = { girder = "3G-201", at = "31 ft"', 1)
     with pytest.raises(JobFileError, match=r"beam '3B-107' #\d+, field 'right_on\.at'.*not inside the span of girder"):
         to_engine(parse_job(text))
