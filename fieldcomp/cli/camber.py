@@ -41,8 +41,9 @@ def camber_beam(beam, as_json: bool) -> tuple[str | None, bool, str, list, str]:
 
 
 def level_bays(job, beams):
-    """The level's bays (engine.pipeline.evaluate_level) when some beam end rests on a girder, else None."""
-    if not job.project.framing_from_plan and not any(b.left_on or b.right_on for b in job.beam):
+    """The level's bays and concrete (engine.pipeline.evaluate_level) when some beam end rests on
+    a girder or the job has pour zones, else None."""
+    if not job.zone and not job.project.framing_from_plan and not any(b.left_on or b.right_on for b in job.beam):
         return None
     from engine.pipeline import evaluate_level
     from fieldcomp.jobs.to_engine import level_input

@@ -108,7 +108,7 @@ def _cambers_text(cambers: dict[str, float], girder: str, beams: tuple[str, ...]
 def bay_text(result: LevelResult) -> str:
     """The bays of the level as text for `fieldcomp camber` (under the beams)."""
     cambers = dict(result.cambers)
-    lines = ["Bays (girders with the beams resting on them, through the pour; bare steel):"]
+    lines = ["Bays (girders with the beams resting on them, through the pour; bare steel):"] if result.bays else []
     for bay in result.bays:
         first = bay.alternatives[0]
         ordered = ", ".join(f"{m} {format_inches(cambers.get(m, 0.0))}" for m in (bay.girder, *bay.beams))
@@ -131,14 +131,15 @@ def bay_text(result: LevelResult) -> str:
             top = f"{format_inches(min(a.top_of_slab))} to {format_inches(max(a.top_of_slab))}"
             lines.append(f"      {a.label:<38} {chosen:<26} {format_inches(a.deflection):>8} {format_inches(a.net):>8} "
                          f"{top:>17} {a.extra_concrete / IN3_PER_YD3:>6.2f} yd3")
-    lines += ["", "Girder loads derived from the beams resting on them (kip):",
-              f"  {'girder':<8} {'beam':<8} {'end':<13} {'at':>9}  {'step':<28} " + " ".join(f"{t[:12]:>12}" for t in LOAD_TYPES)]
+    if result.loads:
+        lines += ["", "Girder loads derived from the beams resting on them (kip):",
+                  f"  {'girder':<8} {'beam':<8} {'end':<13} {'at':>9}  {'step':<28} " + " ".join(f"{t[:12]:>12}" for t in LOAD_TYPES)]
     for g in result.loads:
         step = g.step if g.step == FINISHED or g.day is None else f"day {g.day:g}: {g.step}"
         lines.append(f"  {g.girder:<8} {g.beam:<8} {_end(g.end):<13} {format_ft_in(g.at):>9}  {step[:28]:<28} "
                      + " ".join(f"{g.of(t):>12.2f}" for t in LOAD_TYPES))
-    lines += ["", "Concrete to order (cubic yards; nominal + ponded into the beams' sag + into the girders' sag"
-              + (" + deck sag between beams" if result.level.deck_sag else "") + "):"]
+    lines += ([""] if lines else []) + ["Concrete to order (cubic yards; nominal + ponded into the beams' sag + into the "
+                                        "girders' sag" + (" + deck sag between beams" if result.level.deck_sag else "") + "):"]
     for z in result.concrete:
         day = "" if z.day is None else f" (day {z.day:g})"
         lines.append(f"  {(z.zone + day)[:30]:<30} nominal {z.nominal / IN3_PER_YD3:7.2f}  own sag {z.ponded_own / IN3_PER_YD3:6.2f}"

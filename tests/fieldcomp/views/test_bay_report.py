@@ -72,3 +72,18 @@ def test_a_bearing_outside_the_girder_is_refused():
                                     'right_on = { girder = "3G-201", at = "31 ft"', 1)
     with pytest.raises(JobFileError, match=r"beam '3B-107' #\d+, field 'right_on\.at'.*not inside the span of girder"):
         to_engine(parse_job(text))
+
+
+def test_zones_without_girders_still_give_the_concrete_to_order():
+    """The demo without its bearings: the zones place the four beams (tributary strips 30 ft x
+    10 ft each, half of each 10 ft spacing, 6.25 in slab less the void of the ribs: 57.40 psf / 145 pcf x 12 = 4.75 in)."""
+    text = DEMO.read_text()
+    for line in [ln for ln in text.splitlines() if ln.startswith(("left_on", "right_on"))]:
+        text = text.replace(line + "\n", "")
+    job = parse_job(text)
+    result = evaluate_level(level_input(job, to_engine(job)))
+    assert result.bays == () and result.loads == ()
+    zones = {z.zone: z for z in result.concrete}
+    assert zones["pour 3C"].nominal == pytest.approx(2 * 360.0 * 120.0 * 4.75, rel=1e-3)  # in^3, 3B-107 and 3B-109
+    out = bay_text(result)
+    assert out.startswith("Concrete to order") and "Bay of girder" not in out
