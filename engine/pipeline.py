@@ -1,5 +1,6 @@
 """The one composer of the engine: stud layout -> finished beam -> construction stage -> as built
--> repair. Views and tests reach every evaluation through these functions."""
+-> repair, and the level: pour zones -> beams -> bays (girders loaded by the beams resting on
+them). Views and tests reach every evaluation through these functions."""
 
 from __future__ import annotations
 
@@ -8,7 +9,14 @@ from dataclasses import dataclass, replace
 import numpy as np
 
 from engine.construction.camber import CamberDecision
+from engine.bay.camber import BayCamber, bay_camber
+from engine.bay.concrete import ZoneConcrete, zone_concrete
+from engine.bay.inputs import LevelInput
+from engine.bay.loads import GirderLoad, girder_loads, with_derived, with_settlement, without_derived
+from engine.bay.solve import BaySolution, solve_bay
+from engine.bay.zones import with_zone_stages
 from engine.construction.evaluate import ConstructionResult, evaluate_construction
+from engine.construction.pours import pour_plan
 from engine.field.as_built import AsBuiltResult, evaluate_as_built, finding_slot
 from engine.field.detailed import SOURCE_DETAILED, SOURCE_FIELDCOMP, detailed_layout
 from engine.field.remedy import RETEST, WELD_METHOD, Acceptance, InKind, acceptance, fewest_studs, in_kind
@@ -198,3 +206,67 @@ def field_sheet(job_name: str, date: str, review: FieldReview, caution: str) -> 
     sheet = repair_sheet(job_name, date, before, repair, caution)
     return replace(sheet, title="Stud repair - crew sheet", instructions=instructions, lost_kinds=tuple(kinds),
                    approval=True)
+
+
+@dataclass(frozen=True, slots=True)
+class LevelResult:
+    """A level through the pour (engine.bay): every member as evaluated (stages from the pour
+    zones, each girder with the point loads derived from the beams resting on it), the bay solve
+    at the ordered cambers, the girder loads, each bay's camber alternatives and the concrete to
+    order per zone and for the level."""
+
+    level: LevelInput
+    members: tuple[BeamInput, ...]
+    solution: BaySolution
+    cambers: tuple[tuple[str, float], ...]
+    loads: tuple[GirderLoad, ...]
+    bays: tuple[BayCamber, ...]
+    concrete: tuple[ZoneConcrete, ...]
+
+    def member(self, mark: str) -> BeamInput:
+        return next(m for m in self.members if m.mark == mark)
+
+
+BAY_PASSES = 4  # cambers feed the ponding and the ponding the cambers; the decisions settle in one or two passes
+
+
+def evaluate_level(level: LevelInput, with_bays: bool = True) -> LevelResult:
+    """Zones -> each beam's construction stage and camber (engine.construction) -> the bay solved
+    at those cambers (engine.bay.solve) -> girder loads derived per step and load type
+    (engine.bay.loads) -> each girder's own construction stage and camber on those loads, each
+    beam's with the drop of its ends on the girders (a level screed ponds into it), repeated until
+    the cambers settle -> bay camber alternatives and concrete to order. `with_bays=False`: the
+    members only (the bays' members solved; no alternatives; concrete of the bays' members)."""
+    staged = with_zone_stages(level)
+    girders = set(level.girders)
+    bare = tuple(without_derived(m) if m.mark in girders else m for m in staged)
+    in_bays = girders | {b.beam for b in level.bearings}
+    solved = bare if with_bays else tuple(m for m in bare if m.mark in in_bays)  # the concrete needs them all
+    plans = {m.mark: pour_plan(m) for m in solved}
+    cambers = {m.mark: evaluate_construction(m).camber.camber for m in solved if m.mark not in girders}
+    cambers.update({g: 0.0 for g in girders})
+    beams = {m.mark: m for m in bare}
+    for _ in range(BAY_PASSES):
+        solution = solve_bay(solved, plans, level.bearings, cambers)
+        loads = girder_loads(solution, beams, level.bearings)
+        members = tuple(with_derived(m, loads) if m.mark in girders else
+                        with_settlement(m, solution) if m.mark in in_bays else m for m in bare)
+        decided = {m.mark: evaluate_construction(m).camber.camber for m in members if m.mark in in_bays}
+        if all(decided[g] == cambers[g] for g in decided):
+            break
+        cambers.update(decided)
+    bays: tuple[BayCamber, ...] = ()
+    if with_bays:
+        def solve(picked: dict[str, float]) -> BaySolution:
+            return solve_bay(solved, plans, level.bearings, picked)
+
+        bays = tuple(bay_camber(beams[g], beams, level.bearings, cambers, solve) for g in level.girders)
+    concrete = zone_concrete(solved, plans, solution, level.deck_sag, tuple(z.name for z in level.zones))
+    return LevelResult(level, members, solution, tuple(sorted(cambers.items())), loads, bays, concrete)
+
+
+def framed_members(level: LevelInput) -> tuple[BeamInput, ...]:
+    """Every member as evaluated in the level (`evaluate_level` without the camber alternatives)."""
+    if not level.bearings and not level.zones:
+        return level.beams
+    return evaluate_level(level, with_bays=False).members

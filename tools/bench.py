@@ -69,17 +69,21 @@ def median_seconds(fn, repeat: int, number: int = 1) -> float:
 
 def generated_job(beams: int, distinct: bool = False, shortfall: bool = True) -> str:
     """The demo job's decks and slabs with `beams` beams cycled from the demo's beams (and the
-    SHORTFALL beam), renamed; `distinct` makes each beam's superimposed dead load its own."""
-    text = DEMO.read_text()
+    SHORTFALL beam), renamed; `distinct` makes each beam's superimposed dead load its own. A beam
+    end on a girder names the girder of its own cycle; the demo's pour zones name its own plan
+    and are left out."""
+    text = DEMO.read_text().split("[[zone]]", 1)[0]
     head, _, rest = text.partition("[[beam]]")
     blocks = ["[[beam]]" + b for b in rest.split("[[beam]]")]
     if shortfall:
         blocks.append(SHORTFALL.strip("\n") + "\n\n")
+    marks = [b.split('mark = "', 1)[1].split('"', 1)[0] for b in blocks]
     out = [head]
     for i in range(beams):
-        block = blocks[i % len(blocks)]
-        mark = block.split('mark = "', 1)[1].split('"', 1)[0]
+        block, mark = blocks[i % len(blocks)], marks[i % len(blocks)]
         block = block.replace(f'mark = "{mark}"', f'mark = "{mark}-{i:05d}"', 1)
+        for k, girder in enumerate(marks):
+            block = block.replace(f'girder = "{girder}"', f'girder = "{girder}-{i - i % len(blocks) + k:05d}"')
         if distinct:
             sdl = f"superimposed_dead_psf = {10 + i * 0.01:.2f}"
             block = (re.sub(r"superimposed_dead_psf = [0-9.]+", sdl, block, count=1) if "superimposed_dead_psf" in block

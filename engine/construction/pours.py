@@ -10,7 +10,7 @@ stages at its age (ACI 209R-92 strength gain, AISC 360-22 I2.1b modulus).
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from typing import cast
 
 import numpy as np
@@ -21,6 +21,7 @@ from engine.codes.aisc360_22.i1_materials import E_STEEL, ec, modular_ratio
 from engine.codes.practice import CURED_AFTER_DAYS
 from engine.model.deck import plf_to_kip_per_in, psf_to_kip_per_in
 from engine.model.inputs import POUR_SIDES, SCREED_MODES, BeamInput, PourStage
+from engine.model.inputs import PointLoad as PointLoadInput
 from engine.mechanics.statics import Load, PointLoad, UniformLoad, stations
 from engine.model.units import format_ft_in
 
@@ -51,6 +52,7 @@ class Step:
     placed: np.ndarray
     k: np.ndarray
     level: bool  # concrete ponds into the sag here: k > 0 somewhere
+    settle: np.ndarray | None = None  # (n,) the supports' drop line by the end of the step (engine.bay), or None
 
 
 @dataclass(frozen=True, slots=True)
@@ -145,7 +147,10 @@ def pour_plan(beam: BeamInput) -> PourPlan:
     wet concrete from geometry (engine.model.deck.Slab.wet_weight_psf: topping plus concrete in the
     ribs, averaged over the deck pitch, the same for ribs perpendicular or parallel to the beam)
     over each stage's stretch and side(s); construction live load over the same area during the
-    stage; each point load with the first stage that places concrete at its station.
+    stage; each point load with the first stage that places concrete at its station, except a
+    framing beam's reactions (engine.bay): its own weight and deck at erection, its concrete with
+    the pour of its day (the girder's first stage that day, or a step of that day placing no
+    concrete on the girder, kind "framing").
     """
     span = beam.span
     con = beam.construction
@@ -162,7 +167,12 @@ def pour_plan(beam: BeamInput) -> PourPlan:
                   (UniformLoad(erection_w),), (), np.zeros((2, x.size)), zeros, False)]
     unit_weight = beam.slab.concrete_pcf * KIP_PER_IN3_PER_PCF
     wet_psf = beam.slab.wet_weight_psf()
-    taken: set[int] = set()
+    dated = [j for j, p in enumerate(beam.point_loads) if p.erection or p.day is not None]
+    taken: set[int] = set(dated)
+    steps[0] = _with_loads(steps[0], [beam.point_loads[j] for j in dated if beam.point_loads[j].erection])
+    days_placed = {stages[i].day for i in order}
+    extra = sorted({p.day for p in beam.point_loads if p.day is not None and not p.erection} - days_placed)
+    arrivals = [PourStage(f"{FRAMING_STAGE}, day {day:g}", 0.0, span, day=day) for day in extra]
     for i in order:
         st = stages[i]
         end = min(st.end, span)
@@ -184,9 +194,51 @@ def pour_plan(beam: BeamInput) -> PourPlan:
         placed = np.stack([share * (st.side != "right"), share * (st.side != "left")])
         screed = st.screed or con.screed
         k = unit_weight * (wl + wr) * share if screed == "level" else zeros
+        first_today = all(stages[o].day != st.day for o in order[:order.index(i)])
+        if first_today:
+            _add_dated(dead, live, beam, dated, st.day)
         steps.append(Step(st.name, "pour", st.start, end, st.side, st.day, screed, tuple(dead), tuple(live),
                           placed, k, bool((k > 0.0).any())))
+    for st in arrivals:  # days on which only framing beams' loads arrive: a step that places no concrete here
+        dead, live = [], []
+        _add_dated(dead, live, beam, dated, st.day)
+        steps.append(Step(st.name, "framing", 0.0, span, "both", st.day, con.screed, tuple(dead), tuple(live),
+                          np.zeros((2, x.size)), zeros, False))
+    steps[1:] = sorted(steps[1:], key=lambda s: s.day)  # stable: within a day the listed order holds
+    if con.settlement:
+        steps = [replace(s, settle=settlement_line(x, span, con.settlement, s.day)) if s.level else s for s in steps]
     return PourPlan(x, span, tuple(steps))
+
+
+def settlement_line(x: np.ndarray, span: float, settlement: tuple[tuple[float, float, float], ...],
+                    day: float) -> np.ndarray:
+    """The straight line between the two ends' drops by the end of `day` (the last entry on or
+    before it; geometry: a rigid drop of the supports)."""
+    known = [s for s in settlement if s[0] <= day + 1e-9]
+    if not known:
+        return np.zeros_like(x)
+    _, ref, far = max(known, key=lambda s: s[0])
+    return cast(np.ndarray, ref + (far - ref) * x / span)
+
+
+FRAMING_STAGE = "loads of the framing beams"
+
+
+def _with_loads(step: Step, loads: list[PointLoadInput]) -> Step:
+    """The erection step with the framing beams' own weight and deck (statics: point loads)."""
+    extra = tuple(PointLoad(p.precomposite_dead, p.x) for p in loads if p.precomposite_dead > 0.0)
+    return replace(step, dead=step.dead + extra) if extra else step
+
+
+def _add_dated(dead: list[Load], live: list[Load], beam: BeamInput, dated: list[int], day: float) -> None:
+    """The framing beams' reactions placed on `day`: their lasting part and construction live load."""
+    for j in dated:
+        p = beam.point_loads[j]
+        if not p.erection and p.day == day:
+            if p.precomposite_dead > 0.0:
+                dead.append(PointLoad(p.precomposite_dead, p.x))
+            if p.construction_live > 0.0:
+                live.append(PointLoad(p.construction_live, p.x))
 
 
 def earlier_strength_ratio(plan: PourPlan, s: int) -> float | None:

@@ -61,7 +61,8 @@ def blend(at_zero: StagedRun, at_one: StagedRun, t: float) -> StagedRun:
 def run_stages(plan: PourPlan, sections: Sections, camber: float = 0.0, ponding: bool = True) -> StagedRun:
     """Apply the steps in order. A level-screeded step ponds concrete into the sag below the line
     of the supports at its placement: deflection so far, less the camber, plus its own deflection
-    (engine.mechanics.ponding.level_deflection). `ponding=False` places every step at constant thickness.
+    (engine.mechanics.ponding.level_deflection), plus the line of the supports' drop where the
+    beam rests on girders (engine.bay). `ponding=False` places every step at constant thickness.
 
     Deflection by double integration of M/EI(x) (engine.mechanics.statics); statics of a simple span.
     """
@@ -138,7 +139,7 @@ def run_stages_at(plan: PourPlan, sections: Sections, cambers: tuple[float, ...]
     for s in range(first, count):
         step = plan.steps[s]
         if ponding and step.level:
-            known = step.k * (so_far - lift)
+            known = step.k * (so_far - lift if step.settle is None else so_far + step.settle - lift)
             y = level_deflections(x, span, step.dead, known, step.k, sections.ei[s], effects.dead_moment[s])
             extra = known + step.k * y
             extra_shear, extra_moment = line_load_effects(x, extra)

@@ -57,13 +57,17 @@ class StudSpec:
 @dataclass(frozen=True, slots=True)
 class PointLoad:
     """Concentrated load at station `x` (kips): `dead` is all dead load, of which
-    `precomposite_dead` is applied to the bare steel; `construction_live` acts during placement."""
+    `precomposite_dead` is applied to the bare steel; `construction_live` acts during placement.
+    The pre-composite part arrives with the first stage that places concrete at `x`, or, for the
+    reaction of a beam framing in (engine.bay), at erection or with the pour on `day`."""
 
     x: float
     dead: float
     live: float
     precomposite_dead: float
     construction_live: float = 0.0
+    day: float | None = None  # placed with the pour on this day (a framing beam's reaction), None: with the concrete at x
+    erection: bool = False  # on the steel before any pour (a framing beam's own weight and deck)
 
 
 @dataclass(frozen=True, slots=True)
@@ -109,6 +113,9 @@ class ConstructionSpec:
     dead_limit_authority: Authority = Authority.DESIGN_GUIDE  # PROJECT when the job sets the limit
     live_limit_ratio: float | None = None  # construction live-load deflection limit; None: not checked
     measured_camber: float | None = None  # camber measured in the shop or on site before the pour (in)
+    # the ends' drop on the girders they rest on (engine.bay), net of the girders' camber: (day, reference
+    # end, far end) in, cumulative by the end of that pour day; a level screed ponds into this line too
+    settlement: tuple[tuple[float, float, float], ...] = ()
 
 
 @dataclass(frozen=True, slots=True)

@@ -43,6 +43,17 @@ def camber_beam(beam, as_json: bool, keep: bool = True) -> tuple[str | None, str
     return None, str(r.verdict), kept, text + construction_text(r)
 
 
+def level_bays(job, beams):
+    """The level's bays and concrete (engine.pipeline.evaluate_level) when some beam end rests on
+    a girder or the job has pour zones, else None."""
+    if not job.zone and not job.project.framing_from_plan and not any(b.left_on or b.right_on for b in job.beam):
+        return None
+    from engine.pipeline import evaluate_level
+    from fieldcomp.jobs.to_engine import level_input
+
+    return evaluate_level(level_input(job, beams))
+
+
 def run(args: argparse.Namespace) -> int:
     import csv
     import io
@@ -54,6 +65,7 @@ def run(args: argparse.Namespace) -> int:
     from fieldcomp.cli.parallel import MARK_STAND_IN, map_beams, relabel_report, write_json_with_list
     from fieldcomp.jobs.jobfile import JobFileError
     from fieldcomp.views.finished_report import caution_block
+    from fieldcomp.views.bay_report import bay_json, bay_text
     from fieldcomp.views.construction_report import csv_rows, schedule_text
 
     try:
@@ -79,6 +91,7 @@ def run(args: argparse.Namespace) -> int:
             write_output(args.csv, sheet.getvalue(), [args.job])
         except OSError as exc:
             return fail_output(exc, args.csv)
+    bays = level_bays(job, beams) if args.beam is None else None
     if args.pdf or args.order_csv:
         from fieldcomp.cli.outputs import camber_order
 
@@ -87,7 +100,8 @@ def run(args: argparse.Namespace) -> int:
         except OSError as exc:
             return fail_output(exc, args.pdf or args.order_csv)
     if args.json:
-        write_json_with_list(sys.stdout, {"job": job.project.name, "caution": CAUTION}, "beams", reports)
+        head = {"job": job.project.name, "caution": CAUTION} | ({} if bays is None else {"level": bay_json(bays)})
+        write_json_with_list(sys.stdout, head, "beams", reports)
     else:
         print(f"fieldcomp {__version__} - camber schedule - job '{job.project.name}' ({args.job})")
         print(caution_block())
@@ -97,6 +111,9 @@ def run(args: argparse.Namespace) -> int:
         for report in reports:
             print()
             print(report)
+        if bays is not None:
+            print()
+            print(bay_text(bays))
         print()
         print("construction stage, " + tally([b.mark for b in beams], verdicts))
         if args.csv:

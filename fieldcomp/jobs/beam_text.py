@@ -1,6 +1,6 @@
 """Minimal edits to the [[beam]] blocks of a job file's text: one key's value replaced in its own
-line (the comment after it kept), a key added after the beam's last key or its line removed, the
-[[beam.framing]] tables rewritten. Every other line stays byte for byte as it was."""
+line (the comment after it kept), a key added after the beam's last key or its line removed.
+Every other line stays byte for byte as it was."""
 
 from __future__ import annotations
 
@@ -9,7 +9,7 @@ from dataclasses import dataclass
 from typing import Any
 
 from engine.model.errors import FieldcompError
-from fieldcomp.jobs.floor_text import table_lines, value_text
+from fieldcomp.jobs.floor_text import value_text
 
 _HEADER = re.compile(r"^\s*(\[\[?)\s*([A-Za-z0-9_.\-]+)\s*\]\]?\s*(?:#.*)?$")
 _KEY = r"^(\s*{key}\s*=\s*)"
@@ -118,27 +118,3 @@ def delete_key(block: list[str], key: str) -> None:
     i = _key_line(block, key)
     if i is not None:
         block.pop(i)
-
-
-def set_framing(block: list[str], framing: list[dict[str, Any]]) -> None:
-    """Replace the block's [[beam.framing]] tables (or its one-line framing = [...]) by `framing`."""
-    heads = [(i, name) for i, name, _ in _headers(block) if i > 0]
-    cuts = []
-    for n, (at, name) in enumerate(heads):
-        if name == "beam.framing":
-            end = _trim(block, at, heads[n + 1][0]) if n + 1 < len(heads) else len(block)
-            start = at
-            while start > 0 and not block[start - 1].strip():
-                start -= 1  # the blank lines before it go with it
-            cuts.append((start, end))
-    for i, end in reversed(cuts):
-        del block[i:end]
-    first = cuts[0][0] if cuts else None
-    if _key_line(block, "framing") is not None:
-        delete_key(block, "framing")
-        first = None
-    new: list[str] = []
-    for item in framing:
-        new += ["\n", *(f"{line}\n" for line in table_lines("beam.framing", item, {}))]
-    at = first if first is not None else len(block)
-    block[at:at] = new

@@ -13,7 +13,7 @@ from fieldcomp.jobs.floor_geometry import FloorBeam
 # The fields an import writes and a re-import updates: the beam's geometry. Everything else on
 # a beam (loads, studs, pours, findings, camber settings ...) is the engineer's.
 GEOMETRY = ("shape", "span", "spacing_left", "spacing_right", "edge_left", "edge_right", "end_setback",
-            "level", "plan", "framing", "source_id")
+            "level", "plan", "left_on", "right_on", "source_id")
 
 SPAN_BASIS = ("span: support work point to work point (centre to centre of supports): a column's "
               "centre, or where the beam's axis crosses the axis of the girder it frames into; an end "
@@ -21,14 +21,14 @@ SPAN_BASIS = ("span: support work point to work point (centre to centre of suppo
 SIDE_BASIS = ("spacing_left / spacing_right: perpendicular distance at mid-span to the adjacent parallel beam "
               "on that side; edge_left / edge_right instead where the slab edge is nearer; left and right looking "
               "from the reference end to the far end")
-GIRDER_NOTE = ("girder: the beams framing in are listed under framing; their reactions are not applied yet, "
-               "area loads are taken over the spacings (loads TO CONFIRM)")
+GIRDER_NOTE = ("girder: the beams resting on it name it in left_on / right_on; its loads from them are derived "
+               "stage by stage (fieldcomp camber shows them), so its own area loads are off (load_width 0 in)")
 
 
 @dataclass(slots=True)
 class ImportedBeam:
     mark: str
-    values: dict[str, Any]  # GEOMETRY field -> job-file value (plan a dict, framing a list of dicts)
+    values: dict[str, Any]  # GEOMETRY field -> job-file value (plan, left_on and right_on dicts)
     ends: tuple[str, str] = ("", "")  # reference_end / far_end names for a first import
     notes: list[str] = field(default_factory=list)  # written as comments above the beam
     girder: bool = False
@@ -54,6 +54,7 @@ def from_layout(beams: list[FloorBeam], level: str, notes: dict[str, list[str]])
     """Records for the beams whose sides were found, and the problems of those that were not."""
     records: list[ImportedBeam] = []
     problems: list[str] = []
+    framing: dict[str, list] = {}
     for b in beams:
         m = b.member
         if b.problems:
@@ -73,7 +74,6 @@ def from_layout(beams: list[FloorBeam], level: str, notes: dict[str, list[str]])
         values["level"] = level
         values["plan"] = {"x1": coordinate_text(b.start[0]), "y1": coordinate_text(b.start[1]),
                           "x2": coordinate_text(b.end[0]), "y2": coordinate_text(b.end[1])}
-        values["framing"] = [{"mark": f.mark, "at": length_text(f.at), "end": f.end, "side": f.side} for f in b.framing]
         values["source_id"] = m.source_id
         for where, support in zip(("reference end", "far end"), b.supports):
             if not support:
@@ -81,14 +81,19 @@ def from_layout(beams: list[FloorBeam], level: str, notes: dict[str, list[str]])
                                   "span taken to the modelled end of the steel")
         records.append(ImportedBeam(m.mark, values, (_end_name(b.supports[0]), _end_name(b.supports[1])),
                                     beam_notes, bool(b.framing), b.slab.thickness if b.slab else None))
-    written = {r.mark for r in records}
+        framing[m.mark] = b.framing
+    by_mark = {r.mark: r for r in records}
     for r in records:
-        kept = [f for f in r.values["framing"] if f["mark"] in written]
-        for f in r.values["framing"]:
-            if f["mark"] not in written:
-                r.notes.append(f"{f['mark']} frames in at {f['at']} but was not written (see the import report)")
-        r.values["framing"] = kept
+        kept = [f for f in framing[r.mark] if f.mark in by_mark]
+        for f in framing[r.mark]:
+            if f.mark not in by_mark:
+                r.notes.append(f"{f.mark} frames in at {length_text(f.at)} but was not written (see the import report)")
+        for f in kept:  # the framing beam's end names this girder and the station along it
+            beam = by_mark[f.mark]
+            beam.values["left_on" if f.end == "reference-end" else "right_on"] = {"girder": r.mark, "at": length_text(f.at)}
         r.girder = bool(kept)
         if r.girder:
             r.notes.append(GIRDER_NOTE)
+    for r in records:
+        r.values = {k: r.values[k] for k in GEOMETRY if k in r.values}
     return records, problems

@@ -50,13 +50,16 @@ def value_text(value: Any) -> str:
     return tomli_w.dumps({"v": value})[4:].rstrip("\n")
 
 
+INLINE = ("plan", "left_on", "right_on")  # written on one line, as the job file shows them
+
+
 def table_lines(header: str, values: dict[str, Any], comments: dict[str, str], array: bool = True) -> list[str]:
-    """A TOML table: scalars and inline plan first, `# comment` beside the keys given one; then
+    """A TOML table: scalars and the inline tables (plan, left_on, right_on) first, `# comment` beside the keys given one; then
     its sub-tables ([header.key]) and arrays of tables ([[header.key]])."""
     lines = [f"[[{header}]]" if array else f"[{header}]"]
     later: list[str] = []
     for key, value in values.items():
-        if isinstance(value, dict) and key != "plan":
+        if isinstance(value, dict) and key not in INLINE:
             later += ["", *table_lines(f"{header}.{key}", value, comments.get(f"{key}.*", {}), array=False)]  # type: ignore[arg-type]
         elif isinstance(value, list) and all(isinstance(v, dict) for v in value):
             for item in value:
@@ -97,17 +100,16 @@ def beam_values(record: ImportedBeam, taken: dict[str, Any], slab: str, first: b
         comments["studs.*"] = {"count": f"{CONFIRM}: the template's count is for its own beam; "
                                         "give the drawings' count or keep design"}
     if record.girder:
+        loads["load_width"] = "0 in"
+        comments["load_width"] = "a girder: its slab load arrives through the beams resting on it (derived)"
         loads["deck_orientation"] = "parallel"
         comments["deck_orientation"] = (f"{CONFIRM}: deck ribs taken parallel to a girder "
                                         "(the deck spans between the beams framing in)")
     if record.studs is not None:
         loads["studs"] = loads.get("studs", {}) | {"count": record.studs}
         comments.setdefault("studs.*", {})["count"] = "from the schedule"
-    framing = geometry.pop("framing", [])
     values |= {k: v for k, v in loads.items() if k != "studs"} | geometry
     values["studs"] = loads.get("studs", {})
-    if framing:
-        values["framing"] = framing
     return values, comments
 
 
@@ -152,7 +154,7 @@ def job_text(source: Source, records: list[ImportedBeam], template: Job | None, 
     slabs, slab_ids, slab_notes, slab_comments = slab_tables(source, template, taken.get("slab"))
     lines = [f"# Written by `fieldcomp import` from {printable(source.path)} ({source.kind})"
              + (f", level {printable(source.level)!r}" if source.level else "") + ".",
-             "# The geometry (shape, span, spacings, end_setback, level, plan, framing, source_id) is the source's;",
+             "# The geometry (shape, span, spacings, end_setback, level, plan, left_on, right_on, source_id) is the source's;",
              "# a re-import updates those fields only. Loads, studs, pours, findings and camber settings are yours."]
     lines += [f"# {printable(b)}." for b in source.basis]
     if template is None:

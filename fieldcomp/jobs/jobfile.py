@@ -181,7 +181,7 @@ def where(table: str, index: int | None, raw_item: Any, field: str) -> str:
     """'beam 'B-3' (#4), field 'studs.count'' style location text."""
     name = ""
     if isinstance(raw_item, dict):
-        key = "mark" if table == "beam" else "id"
+        key = {"beam": "mark", "zone": "name"}.get(table, "id")
         if isinstance(raw_item.get(key), str):
             name = f" '{shown(raw_item[key])}'"
     num = f" #{index + 1}" if index is not None else ""
@@ -191,7 +191,7 @@ def where(table: str, index: int | None, raw_item: Any, field: str) -> str:
 def _place(path: tuple[Any, ...], raw: dict[str, Any]) -> str:
     """Location text of a path into the raw job: 'beam 'B-3' #4, field 'studs.count''."""
     table, rest = str(path[0]), list(path[1:])
-    index = rest.pop(0) if rest and isinstance(rest[0], int) and table in ("beam", "deck", "slab") else None
+    index = rest.pop(0) if rest and isinstance(rest[0], int) and table in ("beam", "deck", "slab", "zone") else None
     items = raw.get(table)
     item = items[index] if index is not None and isinstance(items, list) else None
     field = "".join(f"[{p}]" if isinstance(p, int) else f".{p}" for p in rest[:3]).lstrip(".")
@@ -228,7 +228,7 @@ def _describe(err: dict[str, Any], raw: dict[str, Any]) -> tuple[str, str]:
     full = [part for part in err["loc"] if not _is_union_tag(part)]
     loc = list(full)
     table = str(loc.pop(0)) if loc else ""
-    index = loc.pop(0) if loc and isinstance(loc[0], int) and table in ("beam", "deck", "slab") else None
+    index = loc.pop(0) if loc and isinstance(loc[0], int) and table in ("beam", "deck", "slab", "zone") else None
     item = raw.get(table) if table in raw else None
     if index is not None and isinstance(item, list) and index < len(item):
         item = item[index]
@@ -310,11 +310,34 @@ def _check_references(job: Job, path: str | os.PathLike[str]) -> None:
         if b.slab not in slab_ids:
             problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'slab'",
                              f"no slab with id {_short(b.slab)}" + _hint(b.slab, slabs)))
+    bearing_ends = {b.mark for b in job.beam if b.left_on is not None or b.right_on is not None}
     for i, b in enumerate(job.beam):
-        for k, f in enumerate(b.framing):
-            if f.mark == b.mark or f.mark not in marks:
-                problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field 'framing[{k}].mark'",
-                                 "names the beam itself" if f.mark == b.mark
-                                 else f"no beam with mark {_short(f.mark)}" + _hint(f.mark, marks)))
+        for end in ("left_on", "right_on"):
+            on = getattr(b, end)
+            if on is None:
+                continue
+            where = f"beam '{shown(b.mark)}' #{i + 1}, field '{end}.girder'"
+            if on.girder == b.mark:
+                problems.append((where, "names the beam itself"))
+            elif on.girder not in marks:
+                problems.append((where, f"no beam with mark {_short(on.girder)}" + _hint(on.girder, marks)))
+            elif on.girder in bearing_ends:
+                problems.append((where, f"girder {_short(on.girder)} itself rests on a girder; a girder on a girder "
+                                 "is not computed (its ends must rest on columns or walls)"))
+    zone_names: list[str] = []
+    listed: dict[str, str] = {}
+    for i, z in enumerate(job.zone):
+        here = f"zone '{shown(z.name)}' #{i + 1}"
+        if z.name in zone_names:
+            problems.append((f"{here}, field 'name'", "duplicate zone name"))
+        zone_names.append(z.name)
+        for k, mark in enumerate(z.beams):
+            if mark not in marks:
+                problems.append((f"{here}, field 'beams[{k}]'", f"no beam with mark {_short(mark)}" + _hint(mark, marks)))
+            elif mark in listed:
+                problems.append((f"{here}, field 'beams[{k}]'", f"beam {_short(mark)} is already in zone "
+                                 f"{_short(listed[mark])}; a member placed in two pours needs zones with outlines"))
+            else:
+                listed[mark] = z.name
     if problems:
         raise JobFileError(path, problems)

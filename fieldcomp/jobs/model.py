@@ -109,6 +109,8 @@ class Project(Strict):
     station_origin: Literal["beam-end", "support"] = Field(
         "beam-end", description="Stations are measured from the end of the steel or from the support work point.")
     camber: CamberSettings = Field(default_factory=CamberSettings, description="Camber decision settings.")
+    framing_from_plan: bool = Field(False, description="A beam end whose plan work point lies on a girder's line (within 1 in, between the girder's ends) rests on that girder, where left_on / right_on do not say. Leave off when girder point loads are typed for those beams.")
+    deck_sag: Length | None = Field(None, description="The deck's own sag between beams at mid-pitch under wet concrete (from the deck's load tables): counted in the concrete to order. Leave out: not counted.")
 
 
 class Deck(Strict):
@@ -190,7 +192,7 @@ def _iso_date(text: str) -> str:
         try:
             datetime.date.fromisoformat(text)
         except ValueError:
-            raise ValueError(f"'{text}' is not a date as YYYY-MM-DD") from None
+            raise ValueError(f"'{text[:40]}' is not a date as YYYY-MM-DD") from None
     return text
 
 
@@ -254,13 +256,39 @@ class PlanLine(Strict):
     y2: Coordinate = Field(description="y of the far end's work point.")
 
 
-class FramingIn(Strict):
-    """A beam that frames into this one (a girder): where its end bears, for girder loads."""
+class BearingIn(Strict):
+    """Where one end of this beam rests on a girder (instead of a column or wall): for the bay."""
 
-    mark: Words = Field(min_length=1, max_length=40, description="Mark of the beam that frames in.")
-    at: Length = Field(description="Where it frames in: station along this beam from its reference end (as point_loads.at).")
-    end: Literal["reference-end", "far-end"] = Field(description="Which end of the framing beam bears here.")
-    side: Literal["left", "right"] | None = Field(None, description="Side of this beam it comes from (looking from the reference end to the far end).")
+    girder: Words = Field(min_length=1, max_length=40, description="Mark of the girder the end rests on (a beam of the job).")
+    at: Length = Field(description="Station along the girder from the girder's reference end where this end bears (as point_loads.at).")
+
+
+class PlanPoint(Strict):
+    """A point on the framing plan (plan x to the right, y up)."""
+
+    x: Coordinate = Field(description="x of the point.")
+    y: Coordinate = Field(description="y of the point.")
+
+
+class ZoneIn(Strict):
+    """A pour zone of a level: the slab placed in one pour, on one date. Its members are listed, or
+    found from an outline on plan (beams with plan coordinates; the stretch of each inside it)."""
+
+    name: Words = Field(min_length=1, max_length=60, description="Zone name, e.g. \"pour 3A\".")
+    date: IsoDate = Field(description="Date the zone is placed, YYYY-MM-DD.")
+    level: Words | None = Field(None, max_length=60, description="Level the zone is on (default: every level).")
+    beams: list[Words] = Field(default_factory=list, max_length=1000, description="Marks of the beams whose whole slab this zone places (instead of outline).")
+    outline: list[PlanPoint] = Field(default_factory=list, max_length=200, description="The zone's boundary on plan, corner by corner (instead of beams).")
+
+    @model_validator(mode="after")
+    def _one_way(self) -> "ZoneIn":
+        if not self.date:
+            raise ValueError("give the date the zone is placed")
+        if bool(self.beams) == bool(self.outline):
+            raise ValueError("give exactly one of beams or outline")
+        if self.outline and len(self.outline) < 3:
+            raise ValueError("an outline needs at least three corners")
+        return self
 
 
 class Beam(Strict):
@@ -304,7 +332,8 @@ class Beam(Strict):
     as_detailed: list[DetailedRibIn] = Field(default_factory=list, description="The studs as detailed on the shop drawings, rib by rib (ribs not listed hold none); findings apply to this layout. Leave out: findings apply to fieldcomp's own layout.")
     level: Words | None = Field(None, max_length=60, description="Storey or level the beam is on (e.g. \"Level 3\").")
     plan: PlanLine | None = Field(None, description="Plan coordinates of the beam's work points (for the framing plan).")
-    framing: list[FramingIn] = Field(default_factory=list, description="Beams that frame into this one (it is their girder), with where each bears.")
+    left_on: BearingIn | None = Field(None, description="The reference end (station 0) rests on this girder, at this station along it (default: on a column or wall).")
+    right_on: BearingIn | None = Field(None, description="The far end rests on this girder, at this station along it (default: on a column or wall).")
     source_id: Words | None = Field(None, max_length=80, description="Id of the element in the model or schedule it was imported from (IFC GlobalId, schedule mark); re-import matches on it.")
 
     @model_validator(mode="after")
@@ -337,3 +366,4 @@ class Job(Strict):
     deck: list[Deck] = Field(default_factory=list, description="Deck profiles.")
     slab: list[Slab] = Field(description="Slabs.", min_length=1)
     beam: list[Beam] = Field(description="Beams.", min_length=1)
+    zone: list[ZoneIn] = Field(default_factory=list, description="Pour zones of the level(s), with dates: each beam and girder takes its pour stages from the zones it carries.")

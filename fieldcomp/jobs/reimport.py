@@ -10,7 +10,7 @@ from typing import Any
 
 from engine.model.shapes import ShapeNotFoundError, get_shape
 from engine.model.units import UnitError, parse_length
-from fieldcomp.jobs.beam_text import beam_spans, delete_key, set_framing, set_key
+from fieldcomp.jobs.beam_text import beam_spans, delete_key, set_key
 from fieldcomp.jobs.floor_job import GEOMETRY, ImportedBeam, length_text
 from fieldcomp.jobs.floor_text import CONFIRM, beam_values, printable, table_lines
 from fieldcomp.jobs.jobfile import parse_job
@@ -36,10 +36,6 @@ def _same_length(a: Any, b: Any) -> bool:
         return a == b
 
 
-def _framing_key(items: list[dict[str, Any]]) -> list[tuple[Any, ...]]:
-    return sorted((f["mark"], round(parse_length(f["at"]) * 16), f["end"], f.get("side")) for f in items)
-
-
 def _same(key: str, old: Any, new: Any) -> bool:
     if old is None or new is None:
         return old is new
@@ -50,8 +46,8 @@ def _same(key: str, old: Any, new: Any) -> bool:
             return False
     if key == "plan":
         return all(_same_length(old.get(k), new.get(k)) for k in ("x1", "y1", "x2", "y2"))
-    if key == "framing":
-        return _framing_key(old) == _framing_key(new)
+    if key in ("left_on", "right_on"):
+        return old.get("girder") == new.get("girder") and _same_length(old.get("at"), new.get("at"))
     if key in ("level", "source_id"):
         return old == new
     return _same_length(old, new)
@@ -62,8 +58,8 @@ def _shown(key: str, value: Any) -> str:
         return "(none)"
     if key == "plan":
         return f"({value['x1']}, {value['y1']}) to ({value['x2']}, {value['y2']})"
-    if key == "framing":
-        return ", ".join(f"{f['mark']} at {f['at']}" for f in value) or "(none)"
+    if key in ("left_on", "right_on"):
+        return f"on {value['girder']} at {value['at']}"
     return str(value)
 
 
@@ -84,13 +80,12 @@ def _update_beam(block: list[str], old: dict[str, Any], record: ImportedBeam) ->
                 old = old | {wanted: new[wanted]}
     for key in GEOMETRY:
         if key not in new:
+            if key in ("left_on", "right_on") and key in old:  # the end no longer rests on a girder
+                changes.append(f"{key} {_shown(key, old[key])} -> (none)")
+                delete_key(block, key)
             continue
         value = new[key]
-        if key == "framing":
-            if not _same(key, old.get(key) or [], value):
-                changes.append(f"framing {_shown(key, old.get(key) or [])} -> {_shown(key, value)}")
-                set_framing(block, value)
-        elif not _same(key, old.get(key), value):
+        if not _same(key, old.get(key), value):
             changes.append(f"{key} {_shown(key, old.get(key))} -> {_shown(key, value)}")
             set_key(block, key, value)
     return changes
@@ -177,7 +172,8 @@ def _new_block(record: ImportedBeam, job: Job, template: Job | None, template_ma
         source = next((b for b in template.beam if b.mark == template_mark), template.beam[0])
         slab = source.slab if source.slab in {s.id for s in job.slab} else job.slab[0].id
     else:
-        kind = [b for b in job.beam if bool(b.framing) == record.girder]
+        girders = {on.girder for b in job.beam for on in (b.left_on, b.right_on) if on is not None}
+        kind = [b for b in job.beam if (b.mark in girders) == record.girder]
         source = (kind or job.beam)[0]
         slab = source.slab
         notes.append(f"new beam: loads, studs and slab copied from beam {source.mark} ({CONFIRM})")

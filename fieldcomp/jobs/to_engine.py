@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import datetime
 import os
 from dataclasses import fields
 
@@ -17,7 +18,9 @@ from engine.model.shapes import ShapeNotFoundError, get_shape
 from engine.model.units import format_inches, parse_length
 from engine.model.errors import FieldcompError
 from fieldcomp.jobs.jobfile import JobFileError, shown
-from fieldcomp.jobs.model import Beam, Job
+from fieldcomp.jobs.model import Beam, Job, coordinate_inches
+from engine.bay.inputs import FAR_END, REFERENCE_END, Bearing, LevelInput, PlanLine, PourZone
+from engine.bay.plan_framing import plan_bearings
 
 STATIONS = next(f.default for f in fields(BeamInput) if f.name == "n_stations")  # the engine's station grid
 MAX_POUR_STAGES = 20  # a pour plan placed in short segments from both sides stays well under this
@@ -35,12 +38,30 @@ def to_engine(job: Job, path: str | os.PathLike[str] = "<job>") -> list[BeamInpu
             problems.append((f"{here}, field '{exc.field}'", str(exc)))
     if problems:
         raise JobFileError(path, problems)
-    return beams
+    if not has_level(job):
+        return beams
+    from engine.bay.zones import ZoneError
+    from engine.mechanics.statics import PondingInstabilityError
+    from engine.pipeline import framed_members
+
+    try:
+        return list(framed_members(level_input(job, beams, path)))
+    except (ZoneError, PondingInstabilityError) as exc:
+        raise JobFileError(path, [("level", str(exc))]) from None
+
+
+def has_level(job: Job) -> bool:
+    """True when beams of the job act together (pour zones, ends resting on girders): a beam's
+    engine input then depends on the others (a girder's loads are the beams' reactions)."""
+    return bool(job.zone) or job.project.framing_from_plan or any(b.left_on or b.right_on for b in job.beam)
 
 
 def one_beam_to_engine(job: Job, index: int, path: str | os.PathLike[str] = "<job>") -> BeamInput:
     """Beam `index` of the job as a `BeamInput`, with the problems `to_engine` would list for it
-    (and for the job's decks and slabs); the other beams are not converted."""
+    (and for the job's decks and slabs); the other beams are not converted, unless the job's
+    beams act together (`has_level`), when the whole level is converted and this beam taken."""
+    if has_level(job):
+        return to_engine(job, path)[index]
     slabs, rules, problems = _materials(job)
     b = job.beam[index]
     try:
@@ -81,6 +102,47 @@ def _materials(job: Job) -> tuple[dict[str, Slab], CamberRules, list[tuple[str, 
     rules = CamberRules(cam.fraction, parse_length(cam.increment), parse_length(cam.minimum),
                         parse_length(cam.min_length), parse_length(cam.min_depth), parse_length(cam.thin_web))
     return slabs, rules, problems
+
+
+def level_input(job: Job, beams: list[BeamInput], path: str | os.PathLike[str] = "<job>") -> LevelInput:
+    """The job's level for engine.bay: bearings of beam ends on girders, plan lines, pour zones
+    (days counted from the first zone's date). Raises JobFileError naming beam or zone and field."""
+    # the engine inputs in job order name the members (a caller may have renamed them)
+    engine_mark = {jb.mark: b.mark for jb, b in zip(job.beam, beams)} if len(beams) == len(job.beam) else {}
+
+    def named(mark: str) -> str:
+        return engine_mark.get(mark, mark)
+
+    spans = {jb.mark: b.span for jb, b in zip(job.beam, beams)} if engine_mark else {b.mark: b.span for b in beams}
+    problems: list[tuple[str, str]] = []
+    bearings = []
+    for i, b in enumerate(job.beam):
+        for end, name in ((REFERENCE_END, "left_on"), (FAR_END, "right_on")):
+            on = getattr(b, name)
+            if on is None:
+                continue
+            at = parse_length(on.at)
+            if not 0.0 < at < spans[on.girder]:
+                problems.append((f"beam '{shown(b.mark)}' #{i + 1}, field '{name}.at'",
+                                 f"{shown(on.at)} is not inside the span of girder '{shown(on.girder)}'"))
+            bearings.append(Bearing(named(b.mark), end, named(on.girder), at))
+    plans = tuple((named(b.mark), PlanLine(*(coordinate_inches(getattr(b.plan, c)) for c in ("x1", "y1", "x2", "y2"))))
+                  for b in job.beam if b.plan is not None)
+    if job.project.framing_from_plan:
+        bearings += plan_bearings(plans, {named(m): v for m, v in spans.items()}, tuple(bearings))
+    dates = [datetime.date.fromisoformat(z.date) for z in job.zone]
+    first = min(dates) if dates else None
+    zones = []
+    for z, d in zip(job.zone, dates):
+        only = tuple(named(b.mark) for b in job.beam if b.level == z.level) if z.level is not None else ()
+        outline = tuple((coordinate_inches(p.x), coordinate_inches(p.y)) for p in z.outline)
+        zones.append(PourZone(z.name, float((d - first).days) if first else 0.0, z.date, tuple(named(m) for m in z.beams),
+                              outline, only))
+    if problems:
+        raise JobFileError(path, problems)
+    sag = job.project.deck_sag
+    return LevelInput(job.project.name, tuple(beams), tuple(bearings), plans, tuple(zones),
+                      None if sag is None else parse_length(sag))
 
 
 class _FieldProblemError(FieldcompError, ValueError):

@@ -65,8 +65,10 @@ def test_records_carry_work_points_setbacks_and_framing(tmp_path):
     assert r["G-1"].values["end_setback"] == "5\""
     assert r["B-3"].values["plan"] == {"x1": "20'-0\"", "y1": "0\"", "x2": "20'-0\"", "y2": "36'-0\""}
     assert r["G-3"].girder and not r["B-2"].girder
-    assert r["G-3"].values["framing"] == [{"mark": "B-2", "at": "10'-0\"", "end": "far-end", "side": "right"},
-                                          {"mark": "B-3", "at": "20'-0\"", "end": "far-end", "side": "right"}]
+    # each framing beam's end names its girder and the station along it (left_on / right_on, issue 15)
+    assert r["B-2"].values["right_on"] == {"girder": "G-3", "at": "10'-0\""}
+    assert r["B-3"].values["right_on"] == {"girder": "G-3", "at": "20'-0\""}
+    assert r["B-2"].values["left_on"]["girder"] == "G-1" and "left_on" not in r["G-3"].values
     assert r["B-2"].ends == ("at G-1", "at G-3") and r["B-1"].ends == ("at column C-1A", "at column C-1B")
 
 

@@ -53,21 +53,23 @@ def test_reimport_changes_geometry_lines_only_and_keeps_the_engineers_work(tmp_p
     before = engineers_job(tmp_path)
     recs, _ = records(tmp_path, moved_and_added(), "revised.ifc")
     result = reimport(before, parse_job(before), recs, "Level 2", None)
-    assert [c.split(":")[0] for c in result.changed] == ["G-1", "G-2", "G-3", "G-4", "B-2", "B-3", "B-4", "B-5", "B-6"]
+    # a beam's end names its girder (left_on / right_on): a moved beam changes its own lines, not the girders'
+    assert [c.split(":")[0] for c in result.changed] == ["B-2", "B-3", "B-4", "B-5", "B-6"]
     changed = dict(c.split(": ", 1) for c in result.changed)
     assert changed["B-3"] == ("spacing_left 10'-0\" -> 12'-0\"; spacing_right 10'-0\" -> 8'-0\"; "
-                              "plan (20'-0\", 0\") to (20'-0\", 36'-0\") -> (22'-0\", 0\") to (22'-0\", 36'-0\")")
+                              "plan (20'-0\", 0\") to (20'-0\", 36'-0\") -> (22'-0\", 0\") to (22'-0\", 36'-0\"); "
+                              "left_on on G-1 at 20'-0\" -> on G-1 at 22'-0\"; right_on on G-3 at 20'-0\" -> on G-3 at 22'-0\"")
     assert changed["B-5"] == "spacing_right 10'-0\" -> 5'-0\""
-    assert changed["G-2"] == "framing B-5 at 10'-0\", B-6 at 20'-0\" -> B-5 at 10'-0\", B-8 at 15'-0\", B-6 at 20'-0\""
-    assert result.added == ["B-8: W18X35, span 36'-0\""] and result.gone == [] and result.unchanged == 2
+    assert result.added == ["B-8: W18X35, span 36'-0\""] and result.gone == [] and result.unchanged == 6
     after = parse_job(result.text)
     beams = {b.mark: b for b in after.beam}
     assert beams["B-3"].pour[0].name == "east half" and beams["B-3"].span == "36 ft"
     assert beams["B-2"].studs.count == 30 and beams["B-2"].live_psf == 100.0
     assert beams["B-4"].camber == "none" and beams["B-7"].finding[0].rib == 4
-    assert [(f.mark, f.at) for f in beams["G-2"].framing] == [("B-5", "10'-0\""), ("B-8", "15'-0\""), ("B-6", "20'-0\"")]
+    assert (beams["B-8"].left_on.girder, beams["B-8"].left_on.at) == ("G-2", "15'-0\"")  # the new beam rests on G-2
+    assert (beams["B-8"].right_on.girder, beams["B-8"].right_on.at) == ("G-4", "15'-0\"")
     assert 'span = "36 ft"  # checked against the drawings, JL' in result.text
-    geometry = re.compile(r'^(spacing_(left|right)|plan|at|mark|end|side) = |^\[\[beam\.framing\]\]$|^$')
+    geometry = re.compile(r'^(spacing_(left|right)|plan|left_on|right_on) = |^$')
     removed = [line[2:] for line in difflib.ndiff(before.splitlines(), result.text.splitlines()) if line.startswith("- ")]
     assert removed and all(geometry.match(line) for line in removed), removed
 
@@ -85,7 +87,7 @@ def test_a_beam_gone_from_the_source_is_reported_and_kept(tmp_path):
     result = reimport(before, parse_job(before), recs, "Level 2", None)
     assert result.gone == ["B-6 (000000000000000000000G): no longer in the source; kept, with all its fields"]
     beams = {b.mark: b for b in parse_job(result.text).beam}
-    assert "B-6" in beams and [f.mark for f in beams["G-2"].framing] == ["B-5"]
+    assert "B-6" in beams and beams["B-6"].left_on.girder == "G-2"  # kept as it was, its bearings too
 
 
 def test_a_side_that_became_a_slab_edge_swaps_its_key(tmp_path):

@@ -1,0 +1,1 @@
+"""The bay: girders and the beams framing into them, through the pour."""
