@@ -33,7 +33,8 @@ def floor(tmp_path: Path, count: int = 30) -> Path:
         old = f'-{i:05d}"'
         head, _, tail = text.partition(old)
         start = head.rfind('mark = "') + len('mark = "')
-        text = head[:start] + mark.replace("\\", "\\\\").replace('"', '\\"') + '"' + tail
+        was, written = head[start:] + old[:-1], mark.replace("\\", "\\\\").replace('"', '\\"')
+        text = (head[:start] + written + '"' + tail).replace(f'girder = "{was}"', f'girder = "{written}"')
     job = tmp_path / "floor.toml"
     job.write_text(text, encoding="utf-8")
     return job
@@ -67,8 +68,11 @@ def test_camber_json_text_csv_equal_each_beam_computed(tmp_path, capsys):
     job = floor(tmp_path)
     loaded, beams = load_inputs(str(job))
     done = [camber_beam(b, True) for b in beams]
-    expected = parallel.json_with_list({"job": loaded.project.name, "caution": CAUTION}, "beams",
-                                       [d[3] for d in done]) + "\n"
+    from fieldcomp.cli.camber import level_bays
+    from fieldcomp.views.bay_report import bay_json
+
+    head = {"job": loaded.project.name, "caution": CAUTION, "level": bay_json(level_bays(loaded, beams))}
+    expected = parallel.json_with_list(head, "beams", [d[3] for d in done]) + "\n"
     assert out_of(["camber", str(job), "--json"], capsys) == expected
     sheet = tmp_path / "sched.csv"
     text = out_of(["camber", str(job), "--csv", str(sheet)], capsys)
