@@ -73,7 +73,7 @@ def test_erector_booklet_one_page_per_beam_crew_first(made):
     """One sheet per beam, in job order; a beam whose rib table is too long for one sheet goes on
     to a next sheet (it says so), never into another beam's."""
     texts = pages(made / "es.pdf")
-    job, beams = load_inputs(str(DEMO))
+    _, beams = load_inputs(str(DEMO))
     assert len(texts) >= len(MARKS)
     firsts = [k for k, text in enumerate(texts) if "DO THIS" in text]
     assert len(firsts) == len(beams)
