@@ -63,8 +63,9 @@ class CamberPane(Pane):
         yield TextTable("case", "camber", "wet deflection", "top of slab vs supports", "slab over beam", "stud cover",
                         "extra concrete", id="camber-envelope")
         yield Static("", id="camber-warnings", classes="pane--warn")
-        yield Collapsible(Static("", id="camber-bay-text"), title="Bay", id="camber-bay")
-        yield Collapsible(Static("", id="camber-concrete-text"), title="Concrete to order", id="camber-concrete")
+        yield Collapsible(Static("", id="camber-bay-text"), title="Bay", id="camber-bay", collapsed=False)
+        yield Collapsible(Static("", id="camber-concrete-text"), title="Concrete to order", id="camber-concrete",
+                          collapsed=False)
         yield TerminalPlot("Deflection while wet against the camber (down)", id="camber-plot")
         yield Static("Construction-stage checks", classes="pane--section")
         yield ChecksTable(id="camber-checks")

@@ -77,3 +77,18 @@ def test_an_edit_recomputes_the_bay(tmp_path):
             mid = [line for line in expected_text(app) if "mid-bay wet deflection" in line]
             assert mid and mid[0] in after.splitlines()
     asyncio.run(flow())
+
+
+def test_snapshot_of_the_camber_pane_on_the_girder(snap_compare, tmp_path, monkeypatch):
+    """The Camber pane on 3G-201 at 160x45 with its Bay section (read the SVG before updating)."""
+    from tests.fieldcomp.tui.test_snapshots import ROOT, demo_app
+
+    monkeypatch.chdir(ROOT)
+
+    async def run_before(pilot) -> None:
+        await settle(pilot, pilot.app)
+        await show_camber(pilot, pilot.app, GIRDER)
+        pilot.app.workbench.query_one("#camber-bay").scroll_visible(animate=False, top=True)
+        await settle(pilot, pilot.app)
+
+    assert snap_compare(demo_app(tmp_path), terminal_size=(160, 45), run_before=run_before)
