@@ -143,6 +143,18 @@ def finish(outcome: BeamOutcome) -> BeamOutcome:
     return replace(outcome, sheet=sheet, repair=repair, repair_sheet=fixed, review=review)
 
 
+def compute_level(job: Job, beams: list[BeamInput], where: str = "<job>") -> Part:
+    """The level's bays (engine.pipeline.evaluate_level on fieldcomp.jobs.to_engine.level_input):
+    mid-bay deflections, derived girder loads, concrete to order; NONE when the job's beams do not
+    act together (fieldcomp.jobs.to_engine.has_level). Slow (a bay solve): call it in a worker."""
+    from engine.pipeline import evaluate_level
+    from fieldcomp.jobs.to_engine import has_level, level_input
+
+    if not has_level(job):
+        return NONE
+    return _part(lambda: evaluate_level(level_input(job, beams, where)))
+
+
 class OutcomeCache:
     """Outcomes by engine input; only beams whose inputs changed are recomputed."""
 

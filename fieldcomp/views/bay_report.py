@@ -105,41 +105,48 @@ def _cambers_text(cambers: dict[str, float], girder: str, beams: tuple[str, ...]
     return f"girder {format_inches(cambers.get(girder, 0.0))}, {shown}"
 
 
-def bay_text(result: LevelResult) -> str:
-    """The bays of the level as text for `fieldcomp camber` (under the beams)."""
+def _bay_block(result: LevelResult, bay: Any) -> list[str]:
+    """One bay's lines of `bay_text`: members, cambers ordered, the mid-bay deflection (beam +
+    girders' shares) and after each step, the remark, the alternatives side by side."""
     cambers = dict(result.cambers)
-    lines = ["Bays (girders with the beams resting on them, through the pour; bare steel):"] if result.bays else []
-    for bay in result.bays:
-        first = bay.alternatives[0]
-        ordered = ", ".join(f"{m} {format_inches(cambers.get(m, 0.0))}" for m in (bay.girder, *bay.beams))
-        lines += [f"  Bay of girder {bay.girder}: beams {', '.join(bay.beams)}; mid-bay = midspan of {bay.mid_beam}, "
-                  "the beam nearest the girder's midspan",
-                  f"    camber ordered by each member's rule: {ordered}",
-                  f"    mid-bay wet deflection {format_inches(first.deflection)} = beam {format_inches(first.beam_share)}"
-                  f" + girders {format_inches(first.girder_share)}; net of camber {format_inches(first.net)}; "
-                  f"girder {format_inches(bay.girder_deflection)} at its midspan"]
-        steps = "; ".join(f"{st['step'] if st['day'] is None else 'day ' + format(st['day'], 'g') + ' ' + st['step']}: "
-                          f"{format_inches(st['mid_bay_in'])} (girder {format_inches(st['girder_midspan_in'])})"
-                          for st in bay_stages(result, bay.girder, bay.mid_beam))
-        lines.append(f"    after each step, mid-bay (girder at its midspan): {steps}")
-        if bay.remark:
-            lines.append(f"    NOTE: {bay.remark}")
-        lines.append("    alternatives (the engineer chooses):")
-        lines.append(f"      {'choice':<38} {'cambers':<26} {'mid-bay':>8} {'net':>8} {'top of slab':>17} {'extra':>9}")
-        for a in bay.alternatives:
-            chosen = _cambers_text(dict(a.cambers), bay.girder, bay.beams)
-            top = f"{format_inches(min(a.top_of_slab))} to {format_inches(max(a.top_of_slab))}"
-            lines.append(f"      {a.label:<38} {chosen:<26} {format_inches(a.deflection):>8} {format_inches(a.net):>8} "
-                         f"{top:>17} {a.extra_concrete / IN3_PER_YD3:>6.2f} yd3")
-    if result.loads:
-        lines += ["", "Girder loads derived from the beams resting on them (kip):",
-                  f"  {'girder':<8} {'beam':<8} {'end':<13} {'at':>9}  {'step':<28} " + " ".join(f"{t[:12]:>12}" for t in LOAD_TYPES)]
-    for g in result.loads:
+    first = bay.alternatives[0]
+    ordered = ", ".join(f"{m} {format_inches(cambers.get(m, 0.0))}" for m in (bay.girder, *bay.beams))
+    lines = [f"  Bay of girder {bay.girder}: beams {', '.join(bay.beams)}; mid-bay = midspan of {bay.mid_beam}, "
+             "the beam nearest the girder's midspan",
+             f"    camber ordered by each member's rule: {ordered}",
+             f"    mid-bay wet deflection {format_inches(first.deflection)} = beam {format_inches(first.beam_share)}"
+             f" + girders {format_inches(first.girder_share)}; net of camber {format_inches(first.net)}; "
+             f"girder {format_inches(bay.girder_deflection)} at its midspan"]
+    steps = "; ".join(f"{st['step'] if st['day'] is None else 'day ' + format(st['day'], 'g') + ' ' + st['step']}: "
+                      f"{format_inches(st['mid_bay_in'])} (girder {format_inches(st['girder_midspan_in'])})"
+                      for st in bay_stages(result, bay.girder, bay.mid_beam))
+    lines.append(f"    after each step, mid-bay (girder at its midspan): {steps}")
+    if bay.remark:
+        lines.append(f"    NOTE: {bay.remark}")
+    lines.append("    alternatives (the engineer chooses):")
+    lines.append(f"      {'choice':<38} {'cambers':<26} {'mid-bay':>8} {'net':>8} {'top of slab':>17} {'extra':>9}")
+    for a in bay.alternatives:
+        chosen = _cambers_text(dict(a.cambers), bay.girder, bay.beams)
+        top = f"{format_inches(min(a.top_of_slab))} to {format_inches(max(a.top_of_slab))}"
+        lines.append(f"      {a.label:<38} {chosen:<26} {format_inches(a.deflection):>8} {format_inches(a.net):>8} "
+                     f"{top:>17} {a.extra_concrete / IN3_PER_YD3:>6.2f} yd3")
+    return lines
+
+
+def _load_lines(loads: Any) -> list[str]:
+    """The derived girder loads table of `bay_text` (header and one row per load), for `loads`."""
+    lines = [f"  {'girder':<8} {'beam':<8} {'end':<13} {'at':>9}  {'step':<28} " + " ".join(f"{t[:12]:>12}" for t in LOAD_TYPES)]
+    for g in loads:
         step = g.step if g.step == FINISHED or g.day is None else f"day {g.day:g}: {g.step}"
         lines.append(f"  {g.girder:<8} {g.beam:<8} {_end(g.end):<13} {format_ft_in(g.at):>9}  {step[:28]:<28} "
                      + " ".join(f"{g.of(t):>12.2f}" for t in LOAD_TYPES))
-    lines += ([""] if lines else []) + ["Concrete to order (cubic yards; nominal + ponded into the beams' sag + into the "
-                                        "girders' sag" + (" + deck sag between beams" if result.level.deck_sag else "") + "):"]
+    return lines
+
+
+def concrete_lines(result: LevelResult) -> list[str]:
+    """The concrete to order as `bay_text` prints it: heading, one line per pour zone and the level."""
+    lines = ["Concrete to order (cubic yards; nominal + ponded into the beams' sag + into the "
+             "girders' sag" + (" + deck sag between beams" if result.level.deck_sag else "") + "):"]
     for z in result.concrete:
         day = "" if z.day is None else f" (day {z.day:g})"
         lines.append(f"  {(z.zone + day)[:30]:<30} nominal {z.nominal / IN3_PER_YD3:7.2f}  own sag {z.ponded_own / IN3_PER_YD3:6.2f}"
@@ -147,4 +154,28 @@ def bay_text(result: LevelResult) -> str:
                      f"  total {z.total / IN3_PER_YD3:7.2f}")
     if result.level.deck_sag:
         lines.append(f"  deck sag {format_inches(result.level.deck_sag)} at mid-pitch: {DECK_SAG_METHOD}")
-    return "\n".join(lines)
+    return lines
+
+
+def bay_lines(result: LevelResult, mark: str) -> list[str]:
+    """The lines of `bay_text` for the bays member `mark` belongs to (as girder or as a beam
+    resting on it): each bay's block; empty when `mark` is in no bay."""
+    return [line for bay in result.bays if mark == bay.girder or mark in bay.beams for line in _bay_block(result, bay)]
+
+
+def girder_load_lines(result: LevelResult, mark: str) -> list[str]:
+    """The lines of `bay_text`'s derived girder loads table for the girders of the bays `mark`
+    belongs to (header first); empty when it is in no bay or those girders carry no derived load."""
+    girders = {bay.girder for bay in result.bays if mark == bay.girder or mark in bay.beams}
+    loads = [g for g in result.loads if g.girder in girders]
+    return _load_lines(loads) if loads else []
+
+
+def bay_text(result: LevelResult) -> str:
+    """The bays of the level as text for `fieldcomp camber` (under the beams)."""
+    lines = ["Bays (girders with the beams resting on them, through the pour; bare steel):"] if result.bays else []
+    for bay in result.bays:
+        lines += _bay_block(result, bay)
+    if result.loads:
+        lines += ["", "Girder loads derived from the beams resting on them (kip):", *_load_lines(result.loads)]
+    return "\n".join(lines + ([""] if lines else []) + concrete_lines(result))

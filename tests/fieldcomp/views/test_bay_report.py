@@ -16,7 +16,7 @@ from fieldcomp import CAUTION
 from fieldcomp.cli.main import main
 from fieldcomp.jobs.jobfile import JobFileError, load_job, parse_job
 from fieldcomp.jobs.to_engine import level_input, to_engine
-from fieldcomp.views.bay_report import bay_json, bay_text
+from fieldcomp.views.bay_report import bay_json, bay_lines, bay_text, concrete_lines, girder_load_lines
 
 DEMO = Path(__file__).resolve().parents[3] / "jobs" / "harbor_row_level3.toml"
 
@@ -87,3 +87,25 @@ def test_zones_without_girders_still_give_the_concrete_to_order():
     assert zones["pour 3C"].nominal == pytest.approx(2 * 360.0 * 120.0 * 4.75, rel=1e-3)  # in^3, 3B-107 and 3B-109
     out = bay_text(result)
     assert out.startswith("Concrete to order") and "Bay of girder" not in out
+
+
+def test_bay_lines_pick_the_bay_of_a_girder_or_of_a_beam_on_it(level):
+    """`bay_lines`, `girder_load_lines` and `concrete_lines` select lines of `bay_text` (the same
+    numbers, not a second formatting): the demo's bay of girder 3G-201 (beams 3B-107..3B-110 on it),
+    none for 3B-101, which rests on no girder and carries none."""
+    text = bay_text(level).splitlines()
+    for mark in ("3G-201", "3B-107", "3B-110"):
+        lines = bay_lines(level, mark)
+        assert lines[0].startswith("  Bay of girder 3G-201: beams 3B-107, 3B-108, 3B-109, 3B-110")
+        assert any("mid-bay wet deflection" in line for line in lines)
+        assert all(line in text for line in lines)
+        start = text.index(lines[0])
+        assert text[start:start + len(lines)] == lines  # the whole block, in order
+        loads = girder_load_lines(level, mark)
+        assert len(loads) == 1 + len([g for g in level.loads if g.girder == "3G-201"])  # header + a row each
+        assert all(line in text for line in loads)
+    assert bay_lines(level, "3B-101") == [] and girder_load_lines(level, "3B-101") == []
+    concrete = concrete_lines(level)
+    assert concrete[0].startswith("Concrete to order") and all(line in text for line in concrete)
+    assert [z.zone for z in level.concrete] == ["pour 3C", "pour 3D", "outside the pour zones", "level"]
+    assert len(concrete) == 1 + len(level.concrete) + (1 if level.level.deck_sag else 0)
