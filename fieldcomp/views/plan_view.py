@@ -13,6 +13,7 @@ from xml.sax.saxutils import escape
 
 from engine.model.text import printable as clean
 from engine.model.units import format_inches
+from fieldcomp.views.plan_bay import bay_legend, draw_bays
 from fieldcomp.views.pdf_page import BOTTOM, LEFT, PAGE_H, PAGE_W, RIGHT, TOP, SheetPdf, fit_scale, latin
 
 COLOURS = {"pass": (30, 120, 60), "review": (200, 120, 0), "fail": (190, 30, 30)}
@@ -67,8 +68,11 @@ class _Canvas:
     def text(self, x, y, words, size=7.0, colour=INK, bold=False, anchor="start", angle=0.0) -> None:
         self.items.append(("text", x, y, clean(str(words)), size, colour, bold, anchor, angle))
 
+    def polygon(self, points, fill, stroke=None) -> None:
+        self.items.append(("polygon", tuple(points), fill, stroke))
 
-def _draw(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str]) -> _Canvas:
+
+def _draw(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str], bays=(), zones=()) -> _Canvas:
     c = _Canvas()
     legend_x = RIGHT - 2.3
     xs = [v for b in beams for v in (b.x1, b.x2)] or [0.0, 1.0]
@@ -92,6 +96,8 @@ def _draw(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str]) 
             continue
         c.line(a, b, GRID, 0.008, (0.2, 0.05, 0.03, 0.05))
         c.text(a[0], a[1] - 0.04, gname, 9, GRID, bold=True, anchor="middle")
+    draw_bays(c, paper, list(bays), list(zones), INK)
+    in_bay = {m for bay in bays for m in bay.members}
     for b in beams:
         p1, p2 = paper(b.x1, b.y1), paper(b.x2, b.y2)
         c.line(p1, p2, COLOURS[b.verdict], WIDTHS[b.verdict], DASHES[b.verdict])
@@ -99,18 +105,21 @@ def _draw(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str]) 
         if angle > 90 or angle < -90:
             angle += 180
         mx, my = (p1[0] + p2[0]) / 2, (p1[1] + p2[1]) / 2
-        nx, ny = _offset(p1, p2, 0.09)
+        small = 0.85 if b.mark in in_bay else 1.0  # the bay's labels share the paper with its sag values
+        nx, ny = _offset(p1, p2, 0.09 * small)
         camber = f"c={format_inches(b.camber)}" if b.camber > 0 else "no camber"
-        c.text(mx + nx, my + ny, f"{b.mark} {b.shape}", 6.5, bold=True, anchor="middle", angle=angle)
-        c.text(mx - nx * 1.5, my - ny * 1.5, f"({b.studs}) {camber} {b.verdict.upper()}", 6, COLOURS[b.verdict], True,
-               "middle", angle)
+        c.text(mx + nx, my + ny, f"{b.mark} {b.shape}", 6.5 * small, bold=True, anchor="middle", angle=angle)
+        c.text(mx - nx * 1.5, my - ny * 1.5, f"({b.studs}) {camber} {b.verdict.upper()}", 6 * small, COLOURS[b.verdict],
+               True, "middle", angle)
         length = math.hypot(b.x2 - b.x1, b.y2 - b.y1) or 1.0
         for s in b.findings:
             t = s / length
             fx, fy = paper(b.x1 + t * (b.x2 - b.x1), b.y1 + t * (b.y2 - b.y1))
             c.line((fx - 0.04, fy - 0.04), (fx + 0.04, fy + 0.04), INK, 0.012)
             c.line((fx - 0.04, fy + 0.04), (fx + 0.04, fy - 0.04), INK, 0.012)
-    _legend(c, legend_x, TOP + 0.6, name, unplaced)
+    y = _legend(c, legend_x, TOP + 0.6, name, unplaced)
+    if bays:
+        bay_legend(c, legend_x, y, list(bays), INK)
     return c
 
 
@@ -142,7 +151,7 @@ def _clip(a, b, top_left, bottom_right):
     return (a[0] + lo * dx, a[1] + lo * dy), (a[0] + hi * dx, a[1] + hi * dy)
 
 
-def _legend(c: _Canvas, x: float, y: float, scale_name: str, unplaced: list[str]) -> None:
+def _legend(c: _Canvas, x: float, y: float, scale_name: str, unplaced: list[str]) -> float:
     c.text(x, y, "LEGEND", 7, GRID, True)
     y += 0.22
     for word, meaning in (("pass", "every check passes"), ("review", "the engineer of record reviews"),
@@ -174,19 +183,25 @@ def _legend(c: _Canvas, x: float, y: float, scale_name: str, unplaced: list[str]
         for k in range(0, len(unplaced), 4):
             y += 0.14
             c.text(x, y, ", ".join(unplaced[k:k + 4]), 6.5)
+    return y + 0.3
 
 
-def plan_svg(issue, beams: list[PlanBeam], title: str, unplaced: list[str]) -> str:
+def plan_svg(issue, beams: list[PlanBeam], title: str, unplaced: list[str], bays=(), zones=()) -> str:
     """The plan as an SVG page (11 x 8.5 in; 100 units to the inch) with the caution and a title
     line (job, revision, issue date, drawn / checked / approved) as the PDF sheet has."""
     caution = issue.caution
-    c = _draw(beams, title, caution, unplaced)
+    c = _draw(beams, title, caution, unplaced, bays, zones)
     out = ['<?xml version="1.0" encoding="UTF-8"?>',
            f'<svg xmlns="http://www.w3.org/2000/svg" width="{PAGE_W}in" height="{PAGE_H}in" '
            f'viewBox="0 0 {PAGE_W * 100:.0f} {PAGE_H * 100:.0f}">', f"<title>{escape(clean(title))}</title>",
            f'<rect x="0" y="0" width="{PAGE_W * 100:.0f}" height="{PAGE_H * 100:.0f}" fill="white"/>']
     for item in c.items:
-        if item[0] == "line":
+        if item[0] == "polygon":
+            _, pts, fill, stroke = item
+            edge = f' stroke="rgb{stroke}" stroke-width="0.6"' if stroke else ""
+            out.append(f'<polygon class="{"bay-cell" if not stroke else "box"}" points="'
+                       + " ".join(f"{x * 100:.1f},{y * 100:.1f}" for x, y in pts) + f'" fill="rgb{fill}"{edge}/>')
+        elif item[0] == "line":
             _, a, b, colour, width, dash = item
             pattern = f' stroke-dasharray="{" ".join(f"{d * 100:.1f}" for d in dash)}"' if dash else ""
             out.append(f'<line x1="{a[0] * 100:.1f}" y1="{a[1] * 100:.1f}" x2="{b[0] * 100:.1f}" y2="{b[1] * 100:.1f}" '
@@ -214,12 +229,19 @@ def _wrap(text: str, width: int) -> list[str]:
     return textwrap.wrap(text, width)
 
 
-def plan_pdf(issue, beams: list[PlanBeam], title: str, unplaced: list[str]) -> bytes:
+def plan_pdf(issue, beams: list[PlanBeam], title: str, unplaced: list[str], bays=(), zones=()) -> bytes:
     """The plan on one PDF sheet with the title block."""
     pdf = SheetPdf(issue, "Framing plan")
     pdf.sheet(f"{len(beams)} beams")
-    for item in _draw(beams, title, issue.caution, unplaced).items:
-        if item[0] == "line":
+    for item in _draw(beams, title, issue.caution, unplaced, bays, zones).items:
+        if item[0] == "polygon":
+            _, pts, fill, stroke = item
+            pdf.set_fill_color(*fill)
+            if stroke:
+                pdf.set_draw_color(*stroke)
+                pdf.set_line_width(0.006)
+            pdf.polygon([(x, y) for x, y in pts], style="DF" if stroke else "F")
+        elif item[0] == "line":
             _, a, b, colour, width, dash = item
             pdf.set_draw_color(*colour)
             pdf.set_line_width(width)
