@@ -22,12 +22,12 @@ CELL = 24.0  # in, the target size of a shading cell on plan
 @dataclass(frozen=True, slots=True)
 class PlanBay:
     """One bay on plan: its girder and members, shading cells (four plan corners, sag in), the printed sag points (x, y,
-    sag in), the mid-bay point and value (in, wet, before camber) and its girder's mark."""
+    sag in, member runs more up the sheet than across), the mid-bay point and value (in, wet, before camber) and its girder's mark."""
 
     girder: str
     members: tuple[str, ...]
     cells: tuple[tuple[tuple[tuple[float, float], ...], float], ...]
-    points: tuple[tuple[float, float, float], ...]
+    points: tuple[tuple[float, float, float, bool], ...]
     mid: tuple[float, float, float]
 
 
@@ -71,6 +71,11 @@ def _strip(a: np.ndarray, b: np.ndarray) -> list[tuple[tuple[tuple[float, float]
     return cells
 
 
+def _steep(points: np.ndarray) -> bool:
+    _, d, _ = _frame(points)
+    return bool(abs(d[1]) > abs(d[0]))
+
+
 def _neighbour(a: np.ndarray, others: list[np.ndarray]) -> np.ndarray | None:
     """The nearest beam parallel to a on its normal's positive side sharing part of its length."""
     origin, d, n = _frame(a)
@@ -100,7 +105,8 @@ def plan_bays(data: dict) -> list[PlanBay]:
             b = _neighbour(a, [o for o in beams if o is not a])
             if b is not None:
                 cells += _strip(a, b)
-        shown = [tuple(float(v) for v in p) for m in (*bay["beams"], bay["girder"]) if m in points for p in points[m]]
+        shown = [(float(p[0]), float(p[1]), float(p[2]), _steep(points[m]))
+                 for m in (*bay["beams"], bay["girder"]) if m in points for p in points[m]]
         mid = points[bay["mid_bay_beam"]]
         centre = mid[len(mid) // 2]
         out.append(PlanBay(bay["girder"], (bay["girder"], *bay["beams"]), tuple(cells), tuple(shown),
@@ -129,9 +135,9 @@ def grey(value: float, count: int) -> tuple[int, int, int]:
     return (level, level, level)
 
 
-def draw_bays(c, paper, bays: list[PlanBay], zones: list[PlanZone], ink, size: float = 5.0) -> None:
-    """Shading, zone outlines and names, sag values and the mid-bay call-out onto the canvas
-    (`paper` maps plan inches to paper inches); values closer than a label's width are printed once."""
+def draw_bays(c, paper, bays: list[PlanBay], zones: list[PlanZone], ink) -> None:
+    """Under the members: the shading and the zones' outlines, names and dates (`paper` maps plan
+    inches to paper inches)."""
     count = bands(bays)
     for bay in bays:
         for corners, value in bay.cells:
@@ -142,15 +148,21 @@ def draw_bays(c, paper, bays: list[PlanBay], zones: list[PlanZone], ink, size: f
             c.line(a, b, ink, 0.014, (0.12, 0.05))
         left, top, bottom = min(p[0] for p in pts), min(p[1] for p in pts), max(p[1] for p in pts)
         c.text(left - 0.06, (top + bottom) / 2, f"{z.name.upper()}  poured {z.date}", 6, ink, True, "middle", 90.0)
+
+
+def draw_values(c, paper, bays: list[PlanBay], ink, values: bool, size: float = 6.0) -> None:
+    """Over the members: with `values` (the bay's detail) the sag values in white boxes, a value
+    closer to one already printed than a label's size left out; the mid-bay call-out always."""
     placed: list[tuple[float, float]] = []
     for bay in bays:
-        for x, y, s in bay.points:
+        for x, y, s, steep in bay.points if values else ():
             px, py = paper(x, y)
-            if any(abs(px - qx) < 0.3 and abs(py - qy) < 0.1 for qx, qy in placed):
+            if any(abs(px - qx) < 0.4 and abs(py - qy) < 0.12 for qx, qy in placed):
                 continue
             placed.append((px, py))
             words = format_inches(s)
             w, h = len(words) * size / 72 * 0.55 + 0.03, size / 72 + 0.02
+            px += w / 2 + 0.03 if steep else 0.0  # beside a member running up the sheet, on it otherwise
             c.polygon([(px - w / 2, py - h / 2), (px + w / 2, py - h / 2), (px + w / 2, py + h / 2), (px - w / 2, py + h / 2)],
                       (255, 255, 255), ink)
             c.text(px, py + size / 72 * 0.36, words, size, ink, anchor="middle")
@@ -159,7 +171,7 @@ def draw_bays(c, paper, bays: list[PlanBay], zones: list[PlanZone], ink, size: f
         c.text(mx + 0.28, my + 0.46, f"MID-BAY {format_inches(bay.mid[2])} wet, before camber", 6, ink, True)
 
 
-def bay_legend(c, x: float, y: float, bays: list[PlanBay], ink) -> float:
+def bay_legend(c, x: float, y: float, bays: list[PlanBay], ink, values: bool) -> float:
     """The grey-scale key of the shading and how the field between members is drawn; returns the
     next free y."""
     count = bands(bays)
@@ -170,7 +182,8 @@ def bay_legend(c, x: float, y: float, bays: list[PlanBay], ink) -> float:
         c.text(x + 0.38, y + 0.1, f"{format_inches(k * BAND)} to {format_inches((k + 1) * BAND)}", 6, ink)
         y += 0.14
     y += 0.06
-    for line in ("below the column line, before camber;", "values printed at the members' sag points.",
+    where = ("values printed at the members' sag points." if values else "values: on the bay's detail sheet.")
+    for line in ("below the column line, before camber;", where,
                  "Field between members: linear from beam", "to beam, and along each beam between its",
                  "sag points; the deck's own sag between", "beams is not included."):
         y += 0.12
