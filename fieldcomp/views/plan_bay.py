@@ -135,9 +135,9 @@ def grey(value: float, count: int) -> tuple[int, int, int]:
     return (level, level, level)
 
 
-def draw_bays(c, paper, bays: list[PlanBay], zones: list[PlanZone], ink) -> None:
-    """Under the members: the shading and the zones' outlines, names and dates (`paper` maps plan
-    inches to paper inches)."""
+def draw_bays(c, paper, bays: list[PlanBay], zones: list[PlanZone], ink, named: bool) -> None:
+    """Under the members: the shading and the zones' outlines, with `named` (the bay's detail)
+    their names and dates (`paper` maps plan inches to paper inches)."""
     count = bands(bays)
     for bay in bays:
         for corners, value in bay.cells:
@@ -147,7 +147,8 @@ def draw_bays(c, paper, bays: list[PlanBay], zones: list[PlanZone], ink) -> None
         for a, b in zip(pts, pts[1:] + pts[:1]):
             c.line(a, b, ink, 0.014, (0.12, 0.05))
         left, top, bottom = min(p[0] for p in pts), min(p[1] for p in pts), max(p[1] for p in pts)
-        c.text(left - 0.06, (top + bottom) / 2, f"{z.name.upper()}  poured {z.date}", 6, ink, True, "middle", 90.0)
+        if named:
+            c.text(left - 0.06, (top + bottom) / 2, f"{z.name.upper()}  poured {z.date}", 6, ink, True, "middle", 90.0)
 
 
 def draw_values(c, paper, bays: list[PlanBay], ink, values: bool, size: float = 6.0) -> None:
@@ -182,7 +183,7 @@ def bay_legend(c, x: float, y: float, bays: list[PlanBay], ink, values: bool) ->
         c.text(x + 0.38, y + 0.1, f"{format_inches(k * BAND)} to {format_inches((k + 1) * BAND)}", 6, ink)
         y += 0.14
     y += 0.06
-    where = ("values printed at the members' sag points." if values else "values: on the bay's detail sheet.")
+    where = ("values printed at the members' sag points." if values else "values, pour zones: on the bay's detail.")
     for line in ("below the column line, before camber;", where,
                  "Field between members: linear from beam", "to beam, and along each beam between its",
                  "sag points; the deck's own sag between", "beams is not included."):

@@ -98,7 +98,7 @@ def _draw(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str], 
             continue
         c.line(a, b, GRID, 0.008, (0.2, 0.05, 0.03, 0.05))
         c.text(a[0], a[1] - 0.04, gname, 9, GRID, bold=True, anchor="middle")
-    draw_bays(c, paper, list(bays), list(zones), INK)
+    draw_bays(c, paper, list(bays), list(zones), INK, values)
     in_bay = {m for bay in bays for m in bay.members}
     for b in beams:
         p1, p2 = paper(b.x1, b.y1), paper(b.x2, b.y2)
@@ -226,7 +226,8 @@ def _svg_items(c: _Canvas) -> list[str]:
         if item[0] == "polygon":
             _, pts, fill, stroke = item
             edge = f' stroke="rgb{stroke}" stroke-width="0.6"' if stroke else ""
-            out.append(f'<polygon class="{"bay-cell" if not stroke else "box"}" points="'
+            kind = "bay-cell" if not stroke else "value-box" if fill == (255, 255, 255) else "key"
+            out.append(f'<polygon class="{kind}" points="'
                        + " ".join(f"{x * 100:.1f},{y * 100:.1f}" for x, y in pts) + f'" fill="rgb{fill}"{edge}/>')
         elif item[0] == "line":
             _, a, b, colour, width, dash = item
