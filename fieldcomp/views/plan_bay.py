@@ -21,8 +21,9 @@ CELL = 24.0  # in, the target size of a shading cell on plan
 
 @dataclass(frozen=True, slots=True)
 class PlanBay:
-    """One bay on plan: its girder and members, shading cells (four plan corners, sag in), the printed sag points (x, y,
-    sag in, member runs more up the sheet than across), the mid-bay point and value (in, wet, before camber) and its girder's mark."""
+    """One bay on plan: its girder and members, shading cells (four plan corners, sag in), the
+    printed sag points (x, y, sag in, the member runs more up the sheet than across) and the
+    mid-bay point and value (in, wet, before camber)."""
 
     girder: str
     members: tuple[str, ...]

@@ -100,21 +100,24 @@ def _draw(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str], 
         c.text(a[0], a[1] - 0.04, gname, 9, GRID, bold=True, anchor="middle")
     draw_bays(c, paper, list(bays), list(zones), INK, values)
     in_bay = {m for bay in bays for m in bay.members}
+    ends = {b.mark: ((b.x1 + b.x2) / 2, (b.y1 + b.y2) / 2) for b in beams}
+    girder_mid = {m: paper(*ends[bay.girder]) for bay in bays if bay.girder in ends for m in bay.members[1:]}
     for b in beams:
         p1, p2 = paper(b.x1, b.y1), paper(b.x2, b.y2)
         c.line(p1, p2, COLOURS[b.verdict], WIDTHS[b.verdict], DASHES[b.verdict])
         angle = math.degrees(math.atan2(-(p2[1] - p1[1]), p2[0] - p1[0]))
         if angle > 90 or angle < -90:
             angle += 180
-        mx, my = (p1[0] + p2[0]) / 2, (p1[1] + p2[1]) / 2
-        nx, ny = _offset(p1, p2, 0.09)
-        # on a bay's detail the sag values sit on the member: both labels go on one side of it
-        far = 2.2 if values and b.mark in in_bay else -1.5
+        mx, my = _label_centre(p1, p2, girder_mid.get(b.mark))
+        nx, ny = _offset(p1, p2, 0.09 * (0.8 if b.mark in in_bay and not values else 1.0))
+        # in a bay both labels go on one side of the member (the sag values sit on it on the detail)
+        far = 2.2 if b.mark in in_bay else -1.5
+        small = 0.8 if b.mark in in_bay and not values else 1.0  # the bay's labels on the whole plan crowd
         camber = f"c={format_inches(b.camber)}" if b.camber > 0 else "no camber"
-        c.text(mx + nx * (far if far > 0 else 1.0), my + ny * (far if far > 0 else 1.0), f"{b.mark} {b.shape}", 6.5,
+        c.text(mx + nx * (far if far > 0 else 1.0), my + ny * (far if far > 0 else 1.0), f"{b.mark} {b.shape}", 6.5 * small,
                bold=True, anchor="middle", angle=angle)
         c.text(mx + nx * (1.0 if far > 0 else far), my + ny * (1.0 if far > 0 else far),
-               f"({b.studs}) {camber} {b.verdict.upper()}", 6, COLOURS[b.verdict], True, "middle", angle)
+               f"({b.studs}) {camber} {b.verdict.upper()}", 6 * small, COLOURS[b.verdict], True, "middle", angle)
         length = math.hypot(b.x2 - b.x1, b.y2 - b.y1) or 1.0
         for s in b.findings:
             t = s / length
@@ -126,6 +129,17 @@ def _draw(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str], 
     if bays:
         bay_legend(c, legend_x, y, list(bays), INK, values)
     return c
+
+
+def _label_centre(p1, p2, girder=None, shift: float = 0.12) -> tuple[float, float]:
+    """The middle of p1-p2, moved along it away from its bay's girder (paper point), if any, so
+    that the beams' labels clear the girder's."""
+    mx, my = (p1[0] + p2[0]) / 2, (p1[1] + p2[1]) / 2
+    if girder is None:
+        return mx, my
+    far = max((p1, p2), key=lambda p: math.hypot(p[0] - girder[0], p[1] - girder[1]))
+    length = math.hypot(far[0] - mx, far[1] - my) or 1.0
+    return mx + (far[0] - mx) / length * shift, my + (far[1] - my) / length * shift
 
 
 def _offset(p1, p2, distance: float) -> tuple[float, float]:
