@@ -49,6 +49,20 @@ def plan_beam(model_beam, beam):
                     tuple(stations))
 
 
+def _bays(job, beams, shown: set[str]):
+    """The level's bays whose members are all on the drawn plan, and the pour zones (none without
+    a bay): the engine's bay solve, shaped for the plan by views.plan_bay."""
+    from fieldcomp.cli.camber import level_bays
+    from fieldcomp.views.bay_report import bay_json
+    from fieldcomp.views.plan_bay import plan_bays, plan_zones
+
+    result = level_bays(job, beams)
+    if result is None:
+        return [], []
+    bays = [b for b in plan_bays(bay_json(result)) if set(b.members) <= shown]
+    return bays, plan_zones(job) if bays else []
+
+
 def run(args: argparse.Namespace) -> int:
     from fieldcomp.cli.outputs import issue_of, write_output
     from fieldcomp.jobs.jobfile import JobFileError
@@ -65,15 +79,19 @@ def run(args: argparse.Namespace) -> int:
         if not beams:
             return fail_input(f"{args.job}: no beam on level {args.level!r}; levels: {', '.join(levels) or 'none given'}")
     placed = [plan_beam(models[b.mark], b) for b in beams if models[b.mark].plan is not None]
+    try:
+        bays, zones = _bays(job, beams, {b.mark for b in placed})
+    except (JobFileError, ValueError) as exc:
+        return fail_input(exc)
     unplaced = [b.mark for b in beams if models[b.mark].plan is None]
     level = f" - {args.level}" if args.level and args.level not in job.project.name else ""
     title = f"Framing plan - {job.project.name}{level}"
     try:
         issue = issue_of(job.project.name, "FP", args.revision, args.date)
         if args.svg:
-            write_output(args.svg, plan_svg(issue, placed, title, unplaced), [args.job])
+            write_output(args.svg, plan_svg(issue, placed, title, unplaced, bays, zones), [args.job])
         if args.pdf:
-            write_output(args.pdf, plan_pdf(issue, placed, title, unplaced), [args.job])
+            write_output(args.pdf, plan_pdf(issue, placed, title, unplaced, bays, zones), [args.job])
     except OSError as exc:
         return fail_output(exc, args.svg if args.svg and not args.pdf else args.pdf)
     print(f"fieldcomp {__version__} - framing plan - job '{job.project.name}' ({args.job})")

@@ -13,6 +13,7 @@ from xml.sax.saxutils import escape
 
 from engine.model.text import printable as clean
 from engine.model.units import format_inches
+from fieldcomp.views.plan_bay import bay_legend, draw_bays, draw_values
 from fieldcomp.views.pdf_page import BOTTOM, LEFT, PAGE_H, PAGE_W, RIGHT, TOP, SheetPdf, fit_scale, latin
 
 COLOURS = {"pass": (30, 120, 60), "review": (200, 120, 0), "fail": (190, 30, 30)}
@@ -67,12 +68,17 @@ class _Canvas:
     def text(self, x, y, words, size=7.0, colour=INK, bold=False, anchor="start", angle=0.0) -> None:
         self.items.append(("text", x, y, clean(str(words)), size, colour, bold, anchor, angle))
 
+    def polygon(self, points, fill, stroke=None) -> None:
+        self.items.append(("polygon", tuple(points), fill, stroke))
 
-def _draw(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str]) -> _Canvas:
+
+def _draw(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str], bays=(), zones=(),
+          values: bool = False) -> _Canvas:
     c = _Canvas()
     legend_x = RIGHT - 2.3
-    xs = [v for b in beams for v in (b.x1, b.x2)] or [0.0, 1.0]
-    ys = [v for b in beams for v in (b.y1, b.y2)] or [0.0, 1.0]
+    corners = [p for z in zones for p in z.outline] if values else []
+    xs = [v for b in beams for v in (b.x1, b.x2)] + [p[0] for p in corners] or [0.0, 1.0]
+    ys = [v for b in beams for v in (b.y1, b.y2)] + [p[1] for p in corners] or [0.0, 1.0]
     pad = 60.0
     minx, maxx, miny, maxy = min(xs) - pad, max(xs) + pad, min(ys) - pad, max(ys) + pad
     room_w, room_h = legend_x - LEFT - 0.3, BOTTOM - TOP - 0.7
@@ -92,26 +98,48 @@ def _draw(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str]) 
             continue
         c.line(a, b, GRID, 0.008, (0.2, 0.05, 0.03, 0.05))
         c.text(a[0], a[1] - 0.04, gname, 9, GRID, bold=True, anchor="middle")
+    draw_bays(c, paper, list(bays), list(zones), INK, values)
+    in_bay = {m for bay in bays for m in bay.members}
+    ends = {b.mark: ((b.x1 + b.x2) / 2, (b.y1 + b.y2) / 2) for b in beams}
+    girder_mid = {m: paper(*ends[bay.girder]) for bay in bays if bay.girder in ends for m in bay.members[1:]}
     for b in beams:
         p1, p2 = paper(b.x1, b.y1), paper(b.x2, b.y2)
         c.line(p1, p2, COLOURS[b.verdict], WIDTHS[b.verdict], DASHES[b.verdict])
         angle = math.degrees(math.atan2(-(p2[1] - p1[1]), p2[0] - p1[0]))
         if angle > 90 or angle < -90:
             angle += 180
-        mx, my = (p1[0] + p2[0]) / 2, (p1[1] + p2[1]) / 2
-        nx, ny = _offset(p1, p2, 0.09)
+        mx, my = _label_centre(p1, p2, girder_mid.get(b.mark))
+        nx, ny = _offset(p1, p2, 0.09 * (0.8 if b.mark in in_bay and not values else 1.0))
+        # in a bay both labels go on one side of the member (the sag values sit on it on the detail)
+        far = 2.2 if b.mark in in_bay else -1.5
+        small = 0.8 if b.mark in in_bay and not values else 1.0  # the bay's labels on the whole plan crowd
         camber = f"c={format_inches(b.camber)}" if b.camber > 0 else "no camber"
-        c.text(mx + nx, my + ny, f"{b.mark} {b.shape}", 6.5, bold=True, anchor="middle", angle=angle)
-        c.text(mx - nx * 1.5, my - ny * 1.5, f"({b.studs}) {camber} {b.verdict.upper()}", 6, COLOURS[b.verdict], True,
-               "middle", angle)
+        c.text(mx + nx * (far if far > 0 else 1.0), my + ny * (far if far > 0 else 1.0), f"{b.mark} {b.shape}", 6.5 * small,
+               bold=True, anchor="middle", angle=angle)
+        c.text(mx + nx * (1.0 if far > 0 else far), my + ny * (1.0 if far > 0 else far),
+               f"({b.studs}) {camber} {b.verdict.upper()}", 6 * small, COLOURS[b.verdict], True, "middle", angle)
         length = math.hypot(b.x2 - b.x1, b.y2 - b.y1) or 1.0
         for s in b.findings:
             t = s / length
             fx, fy = paper(b.x1 + t * (b.x2 - b.x1), b.y1 + t * (b.y2 - b.y1))
             c.line((fx - 0.04, fy - 0.04), (fx + 0.04, fy + 0.04), INK, 0.012)
             c.line((fx - 0.04, fy + 0.04), (fx + 0.04, fy - 0.04), INK, 0.012)
-    _legend(c, legend_x, TOP + 0.6, name, unplaced)
+    draw_values(c, paper, list(bays), INK, values)
+    y = _legend(c, legend_x, TOP + 0.6, name, unplaced)
+    if bays:
+        bay_legend(c, legend_x, y, list(bays), INK, values)
     return c
+
+
+def _label_centre(p1, p2, girder=None, shift: float = 0.12) -> tuple[float, float]:
+    """The middle of p1-p2, moved along it away from its bay's girder (paper point), if any, so
+    that the beams' labels clear the girder's."""
+    mx, my = (p1[0] + p2[0]) / 2, (p1[1] + p2[1]) / 2
+    if girder is None:
+        return mx, my
+    far = max((p1, p2), key=lambda p: math.hypot(p[0] - girder[0], p[1] - girder[1]))
+    length = math.hypot(far[0] - mx, far[1] - my) or 1.0
+    return mx + (far[0] - mx) / length * shift, my + (far[1] - my) / length * shift
 
 
 def _offset(p1, p2, distance: float) -> tuple[float, float]:
@@ -142,7 +170,7 @@ def _clip(a, b, top_left, bottom_right):
     return (a[0] + lo * dx, a[1] + lo * dy), (a[0] + hi * dx, a[1] + hi * dy)
 
 
-def _legend(c: _Canvas, x: float, y: float, scale_name: str, unplaced: list[str]) -> None:
+def _legend(c: _Canvas, x: float, y: float, scale_name: str, unplaced: list[str]) -> float:
     c.text(x, y, "LEGEND", 7, GRID, True)
     y += 0.22
     for word, meaning in (("pass", "every check passes"), ("review", "the engineer of record reviews"),
@@ -174,19 +202,48 @@ def _legend(c: _Canvas, x: float, y: float, scale_name: str, unplaced: list[str]
         for k in range(0, len(unplaced), 4):
             y += 0.14
             c.text(x, y, ", ".join(unplaced[k:k + 4]), 6.5)
+    return y + 0.3
 
 
-def plan_svg(issue, beams: list[PlanBeam], title: str, unplaced: list[str]) -> str:
-    """The plan as an SVG page (11 x 8.5 in; 100 units to the inch) with the caution and a title
-    line (job, revision, issue date, drawn / checked / approved) as the PDF sheet has."""
+def _pages(beams: list[PlanBeam], title: str, caution: str, unplaced: list[str], bays, zones):
+    """(sheet title, drawing) per page: the plan (bays shaded, values on the detail), then one
+    detail per bay at the largest scale that fits, with the sag values printed."""
+    pages = [(f"{len(beams)} beams", _draw(beams, title, caution, unplaced, bays, zones))]
+    for bay in bays:
+        members = [b for b in beams if b.mark in bay.members]
+        pages.append((f"bay of girder {bay.girder}",
+                      _draw(members, f"{title} - bay of girder {bay.girder}, wet concrete", caution, [], [bay], zones, True)))
+    return pages
+
+
+def plan_svg(issue, beams: list[PlanBeam], title: str, unplaced: list[str], bays=(), zones=()) -> str:
+    """The plan as SVG pages (11 x 8.5 in each, stacked; 100 units to the inch), each with the
+    caution and a title line (job, revision, issue date, drawn / checked / approved) as the PDF
+    sheet has; a bay's detail page follows the plan."""
     caution = issue.caution
-    c = _draw(beams, title, caution, unplaced)
+    pages = _pages(beams, title, caution, unplaced, bays, zones)
     out = ['<?xml version="1.0" encoding="UTF-8"?>',
-           f'<svg xmlns="http://www.w3.org/2000/svg" width="{PAGE_W}in" height="{PAGE_H}in" '
-           f'viewBox="0 0 {PAGE_W * 100:.0f} {PAGE_H * 100:.0f}">', f"<title>{escape(clean(title))}</title>",
-           f'<rect x="0" y="0" width="{PAGE_W * 100:.0f}" height="{PAGE_H * 100:.0f}" fill="white"/>']
+           f'<svg xmlns="http://www.w3.org/2000/svg" width="{PAGE_W}in" height="{PAGE_H * len(pages)}in" '
+           f'viewBox="0 0 {PAGE_W * 100:.0f} {PAGE_H * len(pages) * 100:.0f}">', f"<title>{escape(clean(title))}</title>",
+           f'<rect x="0" y="0" width="{PAGE_W * 100:.0f}" height="{PAGE_H * len(pages) * 100:.0f}" fill="white"/>']
+    for k, (sheet, c) in enumerate(pages):
+        out.append(f'<g transform="translate(0 {k * PAGE_H * 100:.0f})">')
+        out += _svg_items(c)
+        out += _svg_block(issue, caution, sheet)
+        out.append("</g>")
+    return "\n".join(out + ["</svg>", ""])
+
+
+def _svg_items(c: _Canvas) -> list[str]:
+    out = []
     for item in c.items:
-        if item[0] == "line":
+        if item[0] == "polygon":
+            _, pts, fill, stroke = item
+            edge = f' stroke="rgb{stroke}" stroke-width="0.6"' if stroke else ""
+            kind = "bay-cell" if not stroke else "value-box" if fill == (255, 255, 255) else "key"
+            out.append(f'<polygon class="{kind}" points="'
+                       + " ".join(f"{x * 100:.1f},{y * 100:.1f}" for x, y in pts) + f'" fill="rgb{fill}"{edge}/>')
+        elif item[0] == "line":
             _, a, b, colour, width, dash = item
             pattern = f' stroke-dasharray="{" ".join(f"{d * 100:.1f}" for d in dash)}"' if dash else ""
             out.append(f'<line x1="{a[0] * 100:.1f}" y1="{a[1] * 100:.1f}" x2="{b[0] * 100:.1f}" y2="{b[1] * 100:.1f}" '
@@ -198,14 +255,19 @@ def plan_svg(issue, beams: list[PlanBeam], title: str, unplaced: list[str]) -> s
             out.append(f'<text x="{x * 100:.1f}" y="{y * 100:.1f}" font-family="DejaVu Sans, Arial, sans-serif" '
                        f'font-size="{size / 72 * 100:.1f}" fill="rgb{colour}" text-anchor="{anchor}"'
                        f"{weight}{turn}>{escape(words)}</text>")
+    return out
+
+
+def _svg_block(issue, caution: str, sheet: str) -> list[str]:
+    out = []
     for k, part in enumerate(_wrap("CAUTION: " + clean(caution), 170)):
         out.append(f'<text x="{LEFT * 100:.0f}" y="{(BOTTOM + 0.25 + 0.14 * k) * 100:.0f}" font-family="DejaVu Sans, Arial, '
                    f'sans-serif" font-size="9.7">{escape(part)}</text>')
-    block = (f"JOB {clean(issue.job)}   SHEET framing plan   REV. {clean(issue.revision)}   ISSUED {clean(issue.date)}   "
-             "DRAWN ________   CHECKED ________   APPROVED ________")
+    block = (f"JOB {clean(issue.job)}   SHEET framing plan: {clean(sheet)}   REV. {clean(issue.revision)}   "
+             f"ISSUED {clean(issue.date)}   DRAWN ________   CHECKED ________   APPROVED ________")
     out.append(f'<text x="{LEFT * 100:.0f}" y="{(PAGE_H - 0.45) * 100:.0f}" font-family="DejaVu Sans, Arial, sans-serif" '
                f'font-size="11" font-weight="bold">{escape(block)}</text>')
-    return "\n".join(out + ["</svg>", ""])
+    return out
 
 
 def _wrap(text: str, width: int) -> list[str]:
@@ -214,12 +276,27 @@ def _wrap(text: str, width: int) -> list[str]:
     return textwrap.wrap(text, width)
 
 
-def plan_pdf(issue, beams: list[PlanBeam], title: str, unplaced: list[str]) -> bytes:
+def plan_pdf(issue, beams: list[PlanBeam], title: str, unplaced: list[str], bays=(), zones=()) -> bytes:
     """The plan on one PDF sheet with the title block."""
     pdf = SheetPdf(issue, "Framing plan")
-    pdf.sheet(f"{len(beams)} beams")
-    for item in _draw(beams, title, issue.caution, unplaced).items:
-        if item[0] == "line":
+    for sheet, c in _pages(beams, title, issue.caution, unplaced, bays, zones):
+        pdf.sheet(sheet)
+        _pdf_items(pdf, c)
+    pdf.set_text_color(*INK)
+    pdf.set_draw_color(*INK)
+    return pdf.output_bytes()
+
+
+def _pdf_items(pdf: SheetPdf, c: _Canvas) -> None:
+    for item in c.items:
+        if item[0] == "polygon":
+            _, pts, fill, stroke = item
+            pdf.set_fill_color(*fill)
+            if stroke:
+                pdf.set_draw_color(*stroke)
+                pdf.set_line_width(0.006)
+            pdf.polygon([(x, y) for x, y in pts], style="DF" if stroke else "F")
+        elif item[0] == "line":
             _, a, b, colour, width, dash = item
             pdf.set_draw_color(*colour)
             pdf.set_line_width(width)
@@ -235,6 +312,3 @@ def plan_pdf(issue, beams: list[PlanBeam], title: str, unplaced: list[str]) -> b
             shift = {"middle": 0.5, "end": 1.0}.get(anchor, 0.0) * pdf.get_string_width(t)
             with pdf.rotation(angle, x, y):
                 pdf.text(x - shift, y, t)
-    pdf.set_text_color(*INK)
-    pdf.set_draw_color(*INK)
-    return pdf.output_bytes()

@@ -149,10 +149,11 @@ def test_plan_svg_and_pdf(made):
     assert f"JOB {JOB}" in words and "REV. B" in words and "ISSUED 2026-12-04" in words and "APPROVED" in words
     png = bytes(resvg_py.svg_to_bytes(svg_string=svg, dpi=96.0, background="#ffffff"))
     image = Image.open(io.BytesIO(png)).convert("L")
-    assert image.size == (1056, 816)  # 11 x 8.5 in at 96 dpi
+    assert image.size == (1056, 2 * 816)  # 11 x 8.5 in at 96 dpi: the plan, then the bay of 3G-201 in detail
     assert sum(image.histogram()[:128]) > 500
-    (text,) = pages(made / "plan.pdf")
-    frame(text, "FP", 1, 1)
+    text, detail = pages(made / "plan.pdf")
+    frame(text, "FP", 1, 2)
+    frame(detail, "FP", 2, 2)
     assert all(m in text for m in MARKS)
 
 
