@@ -60,8 +60,6 @@ def one_beam_to_engine(job: Job, index: int, path: str | os.PathLike[str] = "<jo
     """Beam `index` of the job as a `BeamInput`, with the problems `to_engine` would list for it
     (and for the job's decks and slabs); the other beams are not converted, unless the job's
     beams act together (`has_level`), when the whole level is converted and this beam taken."""
-    if has_level(job):
-        return to_engine(job, path)[index]
     slabs, rules, problems = _materials(job)
     b = job.beam[index]
     try:
@@ -70,7 +68,49 @@ def one_beam_to_engine(job: Job, index: int, path: str | os.PathLike[str] = "<jo
         problems.append((f"beam '{shown(b.mark)}' #{index + 1}, field '{exc.field}'", str(exc)))
     if problems:
         raise JobFileError(path, problems)
-    return beam
+    if not has_level(job):
+        return beam
+    group = level_group(job, index)
+    return group_to_engine(job, group, path)[group.index(index)]
+
+
+def level_group(job: Job, index: int) -> list[int]:
+    """The beams acting with beam `index` (job order): those joined to it through bearings of
+    beam ends on girders (`left_on` / `right_on`), as the bay solve couples them. Pour zones
+    place each member from its own geometry, so they join nothing; bearings found from plan
+    geometry (`framing_from_plan`) may join any two beams, so then the whole job is one group."""
+    return next(g for g in level_groups(job) if index in g)
+
+
+def level_groups(job: Job) -> list[list[int]]:
+    """The job's beams partitioned into the groups `level_group` describes."""
+    if job.project.framing_from_plan:
+        return [list(range(len(job.beam)))]
+    parent = list(range(len(job.beam)))
+
+    def root(k: int) -> int:
+        while parent[k] != k:
+            parent[k] = parent[parent[k]]
+            k = parent[k]
+        return k
+
+    where = {b.mark: k for k, b in enumerate(job.beam)}
+    for k, b in enumerate(job.beam):
+        for on in (b.left_on, b.right_on):
+            if on is not None and on.girder in where:
+                parent[root(k)] = root(where[on.girder])
+    groups: dict[int, list[int]] = {}
+    for k in range(len(job.beam)):
+        groups.setdefault(root(k), []).append(k)
+    return list(groups.values())
+
+
+def group_to_engine(job: Job, group: list[int], path: str | os.PathLike[str] = "<job>") -> list[BeamInput]:
+    """The beams of one `level_group` as the whole job's conversion gives them (its bays solved,
+    its zones applied), converting only that group."""
+    if len(group) == len(job.beam):
+        return to_engine(job, path)
+    return to_engine(job.model_copy(update={"beam": [job.beam[k] for k in group]}), path)
 
 
 def _materials(job: Job) -> tuple[dict[str, Slab], CamberRules, list[tuple[str, str]]]:

@@ -93,7 +93,7 @@ class JobSession:
     text: str | None = None  # the file's text as loaded or saved last: a save changes only the edits in it
     _last_check: tuple[tuple[Any, ...], Any] | None = field(default=None, repr=False, compare=False)
     _engine: dict[int, tuple[Any, Any, BeamInput]] = field(default_factory=dict, repr=False, compare=False)
-    _level: tuple[Job, list[BeamInput]] | None = field(default=None, repr=False, compare=False)
+    _groups: dict[tuple[int, ...], Any] = field(default_factory=dict, repr=False, compare=False)
 
     @classmethod
     def open(cls, path: str | os.PathLike[str]) -> "JobSession":
@@ -228,13 +228,24 @@ class JobSession:
     def engine_beams(self) -> list[BeamInput]:
         """Every beam of the current job as engine input, in job order. Inputs are kept per beam
         (job models are frozen), so after a one-beam edit or an undo only that beam converts."""
-        from fieldcomp.jobs.to_engine import has_level, one_beam_to_engine, to_engine
+        from fieldcomp.jobs.to_engine import group_to_engine, has_level, level_groups, one_beam_to_engine, to_engine
 
         job = self.job
-        if has_level(job):  # a girder's loads are its beams' reactions: the level converts as one
-            if self._level is None or self._level[0] is not job:
-                self._level = (job, to_engine(job, self.where))
-            return list(self._level[1])
+        if has_level(job):  # a girder's loads are its beams' reactions: each group of a bay converts as one
+            context = (job.project, job.deck, job.slab, job.zone)
+            out: list[Any] = [None] * len(job.beam)
+            kept: dict[tuple[int, ...], tuple[tuple[Any, ...], Any, list[BeamInput]]] = {}
+            for group in level_groups(job):
+                members = tuple(job.beam[k] for k in group)
+                key = tuple(id(m) for m in members)
+                hit = self._groups.get(key)
+                if hit is None or hit[1] != context or any(a is not b for a, b in zip(hit[0], members)):
+                    hit = (members, context, group_to_engine(job, group, self.where))
+                kept[key] = hit
+                for k, converted in zip(group, hit[2]):
+                    out[k] = converted
+            self._groups = kept
+            return out
         context = (job.project, job.deck, job.slab)
         hits = [self._engine.get(id(b)) for b in job.beam]
         fresh = [k for k, h in enumerate(hits) if h is None or h[0] is not job.beam[k] or h[1] != context]
