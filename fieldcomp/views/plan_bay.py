@@ -30,6 +30,28 @@ class PlanBay:
     cells: tuple[tuple[tuple[tuple[float, float], ...], float], ...]
     points: tuple[tuple[float, float, float, bool], ...]
     mid: tuple[float, float, float]
+    notes: tuple[str, ...] = ()  # the derived girder loads and the concrete to order, as printed
+
+
+LOAD_KINDS = (("steel_and_deck_kip", "steel and deck"), ("wet_concrete_kip", "wet concrete"),
+              ("ponded_concrete_kip", "ponded"), ("construction_live_kip", "construction live"),
+              ("superimposed_dead_kip", "superimposed dead"), ("live_kip", "live"))
+
+
+def bay_notes(data: dict, girder: str) -> tuple[str, ...]:
+    """The lines the bay's sheet prints beside the shading: the girder's loads from the beams
+    resting on it (sums of `bay_json`'s derived loads, kip, by load type) and the concrete to order
+    per pour zone and for the level (`bay_json`'s concrete, yd3)."""
+    rows = [r for r in data["girder_loads"] if r["girder"] == girder]
+    loads = [f"{name} {sum(r[key] for r in rows):.1f}" for key, name in LOAD_KINDS if any(r[key] for r in rows)]
+    lines = [f"GIRDER {girder}: FROM ITS {len({r['beam'] for r in rows})} BEAMS (kip)"]
+    lines += ["  " + ", ".join(loads[k:k + 2]) for k in range(0, len(loads), 2)]
+    lines.append("CONCRETE TO ORDER (yd3)")
+    lines.append("  total = nominal + ponded + deck sag")
+    for c in data["concrete"]:
+        ponded = c["ponded_own_sag_yd3"] + c["ponded_girder_sag_yd3"]
+        lines.append(f"  {c['zone']}: {c['total_yd3']:.2f} = {c['nominal_yd3']:.2f} + {ponded:.2f} + {c['deck_sag_yd3']:.2f}")
+    return tuple(lines)
 
 
 @dataclass(frozen=True, slots=True)
@@ -111,7 +133,8 @@ def plan_bays(data: dict) -> list[PlanBay]:
         mid = points[bay["mid_bay_beam"]]
         centre = mid[len(mid) // 2]
         out.append(PlanBay(bay["girder"], (bay["girder"], *bay["beams"]), tuple(cells), tuple(shown),
-                           (float(centre[0]), float(centre[1]), float(bay["mid_bay_deflection_in"]))))
+                           (float(centre[0]), float(centre[1]), float(bay["mid_bay_deflection_in"])),
+                           bay_notes(data, bay["girder"])))
     return out
 
 
@@ -190,4 +213,10 @@ def bay_legend(c, x: float, y: float, bays: list[PlanBay], ink, values: bool) ->
                  "sag points; the deck's own sag between", "beams is not included."):
         y += 0.12
         c.text(x, y, line, 6, ink)
+    if values:  # the bay's own sheet: what the girder carries and the concrete to order
+        y += 0.1
+        for bay in bays:
+            for line in bay.notes:
+                y += 0.11
+                c.text(x, y, line, 6, ink, line.isupper() or line.startswith(("GIRDER", "CONCRETE")))
     return y + 0.2

@@ -96,3 +96,17 @@ def test_the_grey_bands_run_light_to_dark_and_cover_the_largest_value():
     assert (count - 1) * BAND < top <= count * BAND
     levels = [grey(k * BAND, count)[0] for k in range(count)]
     assert levels == sorted(levels, reverse=True) and len(set(levels)) == count
+
+
+def test_the_bay_sheet_prints_the_girders_loads_and_the_concrete_to_order(tmp_path):
+    """The numbers are bay_json's: the girder's derived loads summed over the beams resting on it
+    (here wet concrete = four beams' end reactions) and each zone's and the level's concrete."""
+    main(["plan", str(DEMO), "--pdf", str(tmp_path / "p.pdf")])
+    reader = PdfReader(io.BytesIO((tmp_path / "p.pdf").read_bytes()))
+    detail = " ".join(reader.pages[1].extract_text().split())
+    data = _demo_json()
+    wet = sum(r["wet_concrete_kip"] for r in data["girder_loads"] if r["girder"] == "3G-201")
+    assert "GIRDER 3G-201: FROM ITS 4 BEAMS (kip)" in detail and f"wet concrete {wet:.1f}" in detail
+    level = data["concrete"][-1]
+    assert level["zone"] == "level" and f"level: {level['total_yd3']:.2f} = {level['nominal_yd3']:.2f}" in detail
+    assert "pour 3C:" in detail and "pour 3D:" in detail
