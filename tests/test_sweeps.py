@@ -20,7 +20,7 @@ from engine.model.shapes import find_shapes
 from engine.mechanics.statics import UniformLoad, deflection, stations
 
 SHAPES = find_shapes("*")
-DECKS = {  # rib height, top, bottom, pitch (common profiles; geometry from memory, REFERENCE.md section 6)
+DECKS = {  # rib height, top, bottom, pitch (common profiles; geometry from memory of deck catalogues)
     "1.5in": DeckProfile("1.5in", 1.5, 2.5, 1.75, 6.0, 1.8),
     "2in": DeckProfile("2in", 2.0, 7.0, 5.0, 12.0, 2.0),
     "3in": DeckProfile("3in", 3.0, 7.0, 5.0, 12.0, 2.4),

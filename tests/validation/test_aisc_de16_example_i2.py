@@ -4,7 +4,7 @@ evaluate_construction.
 
 Source: Design Examples, Version 16.0, Companion to the AISC Steel Construction Manual, American
 Institute of Steel Construction (AISC); Chapter I, Design of Composite Members, Example I.2, the
-composite girder. Published values are those quoted in REFERENCE.md section 7 (tagged V unless
+composite girder. Published values are those printed in the example (tagged V unless
 noted; V = read in the publication). Units: kip, in, ksi; printed kip-ft values are compared after
 dividing by 12. Tolerance: 1 % (the example prints three significant figures).
 
@@ -13,12 +13,12 @@ Database v16.0), Fy 50 ksi, span 30 ft, b = 7.50 ft, 3-in deck parallel to the g
 145 pcf, f'c 4 ksi concrete on top (7.5 in total, so Ycon = 7.5 in), deck taken as 50 % void:
 Ac = b (4.5 + 3/2) = 540 in^2. 3/4-in studs, Fu 65 ksi.
 
-Finished girder (REFERENCE.md section 7): beams framing in at the third points. Composite loads per
+Finished girder: beams framing in at the third points. Composite loads per
 point: PD = 40.5 kips, PL = 45.0 kips -> Mu = 1,220 kip-ft, Vu = 122 kips. Studs: 3/4 in,
 Qn = 21.5 kips; 26 studs from each end to its load; sum Qn = 560 kips at the load (50% composite),
 Mn = 1,420 kip-ft; phi Vn = 315 kips.
 
-Construction stage (REFERENCE.md sections 4 and 7): pre-composite loads per point PD = 36.0 kips,
+Construction stage: pre-composite loads per point PD = 36.0 kips,
 construction live PL = 11.3 kips. Mu = 624 kip-ft; Lb = 10 ft, Cb = 1: phi Mn = 677 kip-ft;
 pre-composite deflection 1.00 in; camber 0.80 in, specified 3/4 in.
 
@@ -29,7 +29,7 @@ Our assumptions where the quoted example does not say:
   width in their true place gives 6,771 in^4 (-0.3 %, not expressible with one block).
 - I_equiv: Cf = min(As Fy, 0.85 f'c Ac) = min(1,120, 1,836) = 1,120 kip, sum Qn = 581 kip;
   this reproduces 5,480 in^4 from the printed Itr, so the example uses Cf = As Fy.
-- Rib width/height for the parallel deck: wr = 6 in (REFERENCE.md section 6, V via DE16), hr 3 in.
+- Rib width/height for the parallel deck: wr = 6 in (V, as in the example), hr 3 in.
 """
 
 from __future__ import annotations

@@ -2,7 +2,7 @@
 
 Units: kip, in, ksi, kip-in. Hand recomputations are written out in each docstring and again as
 plain arithmetic in the test body (forces and lever arms about the PNA, not the module's formula).
-Shape properties: AISC Shapes Database v16.0 (W24X76 as quoted in REFERENCE.md section 7; the
+Shape properties: AISC Shapes Database v16.0 (W24X76 as published; the
 property tests read every W-shape from the copy of the database packaged in efficalc 1.2.7).
 """
 
@@ -45,7 +45,7 @@ class Shape:
     zx: float
 
 
-# AISC Shapes Database v16.0 via REFERENCE.md section 7 (V); Zx = 200 in^3 from the same database
+# AISC Shapes Database v16.0 (V); Zx = 200 in^3 from the same database
 # (efficalc 1.2.7 copy).
 W24X76 = Shape("W24X76", area=22.4, d=23.9, bf=8.99, tf=0.680, tw=0.440, ix=2100.0, zx=200.0)
 

@@ -16,7 +16,7 @@ from engine.codes.aci209r_92 import fc_at_age
 from engine.codes.aisc360_22.i8_anchors import emid_ht, qn_concrete_limit, qn_stud, rg_rp, stud_area
 from engine.codes.aisc360_22.i1_materials import E_STEEL, ec, fc_strength_range, modular_ratio
 
-FU = 65.0  # ksi, stud tensile strength used in REFERENCE.md section 8 and DE16 (AWS D1.1 Type B)
+FU = 65.0  # ksi, stud tensile strength of AWS D1.1 Type B studs, as in AISC Design Examples v16.0
 D34 = 0.75  # in, 3/4-in stud
 
 
@@ -27,21 +27,21 @@ def test_ec_normal_weight_145_pcf_4_ksi():
     # Hand: 145^1.5 = 145 * 12.0416 = 1746.03; * sqrt(4) = 3492.1 ksi (AISC 360-22 I2.1b formula)
     assert ec(145.0, 4.0) == pytest.approx(145.0 * math.sqrt(145.0) * 2.0, rel=1e-12)
     assert ec(145.0, 4.0) == pytest.approx(3492.1, abs=0.1)
-    # AISC Design Examples v16.0 Ex. I.2 prints 3,490 ksi (REFERENCE.md section 1, V)
+    # AISC Design Examples v16.0 Ex. I.2 prints 3,490 ksi (V)
     assert ec(145.0, 4.0) == pytest.approx(3490.0, rel=0.001)
 
 
 def test_ec_vectorised_and_rejects_nonpositive():
     got = ec(np.array([110.0, 145.0]), np.array([3.0, 3.0]))
     # Hand: 110^1.5 sqrt(3) = 1153.7 * 1.7321 = 1998; 145^1.5 sqrt(3) = 1746.0 * 1.7321 = 3024
-    # (REFERENCE.md section 8, D)
+    # (AISC 360-22 Eq. I8-1 recomputed by hand, D)
     assert got == pytest.approx([1998.0, 3024.0], abs=0.6)
     with pytest.raises(ValueError):
         ec(145.0, 0.0)
 
 
 def test_modular_ratio():
-    # AISC Design Examples v16.0 Ex. I.2: n = 8.31 with E_c = 3,490 ksi (REFERENCE.md section 7, V)
+    # AISC Design Examples v16.0 Ex. I.2: n = 8.31 with E_c = 3,490 ksi (V)
     assert modular_ratio(3490.0) == pytest.approx(8.31, abs=0.005)
     # Hand: 29,000 / 3,492.1 = 8.304
     assert modular_ratio(ec(145.0, 4.0)) == pytest.approx(29000.0 / 3492.07, rel=1e-5)
@@ -67,7 +67,7 @@ def test_fc_at_age_increases_towards_its_limit(t, dt):
 
 
 def test_fc_strength_range_i1_3():
-    # AISC 360-22 I1.3: NWC 3-10 ksi, LWC 3-6 ksi (REFERENCE.md section 1, V)
+    # AISC 360-22 I1.3: NWC 3-10 ksi, LWC 3-6 ksi (V)
     assert fc_strength_range(False) == (3.0, 10.0)
     assert fc_strength_range(True) == (3.0, 6.0)
 
@@ -76,7 +76,7 @@ def test_fc_strength_range_i1_3():
 
 
 def test_stud_area():
-    # Hand: pi * 0.75^2 / 4 = 0.44179 in^2; A_sa F_u = 28.72 kip (REFERENCE.md section 8, D)
+    # Hand: pi * 0.75^2 / 4 = 0.44179 in^2; A_sa F_u = 28.72 kip (D)
     assert stud_area(D34) == pytest.approx(0.44179, abs=1e-5)
     assert stud_area(D34) * FU == pytest.approx(28.72, abs=0.005)
     with pytest.raises(ValueError):
@@ -84,7 +84,7 @@ def test_stud_area():
 
 
 def test_emid_ht_reference_geometry():
-    # REFERENCE.md section 1 "emid-ht and the strong side" (D): w = 6 in, e = 1.25 in, d = 3/4 in
+    # AISC 360-22 I8.2a, emid-ht and the strong side, by hand (D): w = 6 in, e = 1.25 in, d = 3/4 in
     # strong 3 + 1.25 - 0.375 = 3.875 (3.9); weak 3 - 1.25 - 0.375 = 1.375 (1.4); centre 2.625
     got = emid_ht(6.0, 1.25, D34, np.array(["strong", "weak", "center"]))
     assert got == pytest.approx([3.875, 1.375, 2.625])
@@ -96,7 +96,7 @@ def test_emid_ht_reference_geometry():
 
 
 # Each row: deck, studs, keyword arguments, Rg, Rp from the AISC 360-22 I8.2a text
-# (REFERENCE.md section 1 Rg/Rp table, V).
+# (AISC 360-22 I8.2a Rg/Rp values, V).
 RG_RP_ROWS = [
     ("none", 1, {}, 1.0, 0.75),
     ("none", 3, {}, 1.0, 0.75),  # "any number ... welded in a row directly to the steel shape"
@@ -121,7 +121,7 @@ def test_rg_rp_table(deck, studs, kwargs, rg, rp):
 
 
 def test_rg_rp_vectorised_over_ribs_and_bad_input():
-    # A rib's Rg counts the studs actually in it (DESIGN.md section 3); values per I8.2a
+    # A rib's Rg counts the studs actually in it (AISC 360-22 I8.2a); values per I8.2a
     rg, rp = rg_rp("perpendicular", np.array([1, 2, 1]), emid_ht=np.array([3.9, 3.9, 1.4]))
     assert rg.tolist() == [1.0, 0.85, 1.0] and rp.tolist() == [0.75, 0.75, 0.6]
     with pytest.raises(ValueError):
@@ -134,7 +134,7 @@ def test_rg_rp_vectorised_over_ribs_and_bad_input():
         rg_rp("none", -1)
 
 
-# REFERENCE.md section 8 table (D), every cell: 3/4-in studs, Fu = 65 ksi.
+# AISC 360-22 Eq. I8-1 recomputed by hand (D), every cell: 3/4-in studs, Fu = 65 ksi.
 # Columns: no deck / parallel >= 1.5, parallel < 1.5, perpendicular weak 1/2/3, strong 1/2/3.
 # (wc pcf, f'c ksi, Ec, concrete limit, cells)
 SECTION_8 = [
@@ -148,7 +148,7 @@ RG_RP_PRODUCT = [1.0 * 0.75, 0.85 * 0.75, 1.0 * 0.6, 0.85 * 0.6, 0.7 * 0.6, 1.0 
 
 
 def _section_8_cells(wc, fc):
-    """Our functions' Qn for the eight columns of REFERENCE.md section 8."""
+    """Our functions' Qn for the eight stud cases of Eq. I8-1 recomputed by hand."""
     asa, e_c = stud_area(D34), ec(wc, fc)
     qn = lambda deck, n, **kw: float(qn_stud(asa, fc, e_c, FU, *rg_rp(deck, n, **kw)))  # noqa: E731
     return [
@@ -161,7 +161,7 @@ def _section_8_cells(wc, fc):
 
 @pytest.mark.parametrize(("wc", "fc", "ec_table", "limit_table", "cells"), SECTION_8)
 def test_reference_section_8_every_cell(wc, fc, ec_table, limit_table, cells):
-    """Recomputed by hand from AISC 360-22 Eq. I8-1 (REFERENCE.md section 8 cells are D).
+    """Recomputed by hand from AISC 360-22 Eq. I8-1 (derived values, D).
 
     Hand: Ec = wc^1.5 sqrt(f'c); concrete limit = 0.5 * 0.44179 * sqrt(f'c Ec);
     steel limit = Rg Rp * 0.44179 * 65 = Rg Rp * 28.716; Qn = min of the two.
@@ -178,7 +178,7 @@ def test_reference_section_8_every_cell(wc, fc, ec_table, limit_table, cells):
 
 
 def test_reference_section_8_unrounded_steel_limits():
-    # REFERENCE.md section 8 (D): 21.54, 18.31, 17.23, 14.65, 12.06, 15.08 = Rg Rp * 28.716
+    # AISC 360-22 Eq. I8-1 recomputed by hand (D): 21.54, 18.31, 17.23, 14.65, 12.06, 15.08 = Rg Rp * 28.716
     asa = stud_area(D34)
     got = [float(qn_stud(asa, 10.0, 5000.0, FU, rg, rp)) for rg, rp in
            [(1.0, 0.75), (0.85, 0.75), (1.0, 0.6), (0.85, 0.6), (0.7, 0.6), (0.7, 0.75)]]
@@ -186,7 +186,7 @@ def test_reference_section_8_unrounded_steel_limits():
 
 
 def test_manual_values_via_de16():
-    """AISC Design Examples v16.0 (via REFERENCE.md section 8, V): 3/4-in studs, NWC 145 pcf,
+    """AISC Design Examples v16.0 (V): 3/4-in studs, NWC 145 pcf,
     f'c = 4 ksi: 17.2 (weak, 1 per rib), 14.6 (weak, 2 per rib), 21.5 (welded directly)."""
     asa, fc = stud_area(D34), 4.0
     e_c = ec(145.0, fc)

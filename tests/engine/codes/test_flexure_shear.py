@@ -1,7 +1,7 @@
 """Bare-steel flexure (AISC 360-22 F1, F2, F3) and web shear (G2.1).
 
 Check values: hand recomputations of the Specification's equations written out below and
-AISC Design Examples v16.0 Ex. I.2 (REFERENCE.md sections 4 and 7, tag V). Shapes from
+AISC Design Examples v16.0 Ex. I.2 (tag V). Shapes from
 engine.model.shapes (AISC Shapes Database v16.0).
 Units: kip, inch, ksi, kip-in; E = 29,000 ksi.
 """
@@ -66,7 +66,7 @@ def test_w21x50_limiting_lengths_by_hand():
     lr_hand = 1.95 * 1.64 * (29000 / (0.7 * 50)) * math.sqrt(a + math.sqrt(a**2 + 6.76 * (0.7 * 50 / 29000) ** 2))
     assert lp(W21X50, 50.0) == pytest.approx(lp_hand, rel=1e-12)
     assert lr(W21X50, 50.0) == pytest.approx(lr_hand, rel=1e-12)
-    # REFERENCE.md section 4 (tag D): Lp = 4.59 ft, Lr = 13.6 ft
+    # AISC 360-22 Eq. F2-5 and F2-6 recomputed by hand (tag D): Lp = 4.59 ft, Lr = 13.6 ft
     assert lp(W21X50, 50.0) / 12 == pytest.approx(4.59, abs=0.005)
     assert lr(W21X50, 50.0) / 12 == pytest.approx(13.6, abs=0.05)
 
@@ -130,7 +130,7 @@ def test_ltb_nearly_continuous_at_lr():
 
 # ------------------------------------------------------ W24X76, DE16 Ex. I.2 (tag V)
 def test_w24x76_design_examples_i2():
-    # AISC Design Examples v16.0 Ex. I.2 via REFERENCE.md section 4: Lp 6.78 ft, Lr 19.5 ft,
+    # AISC Design Examples v16.0 Ex. I.2: Lp 6.78 ft, Lr 19.5 ft,
     # phi Mp 750 kip-ft, phi Mn 677 kip-ft at Lb = 10 ft, Cb = 1 (within 0.5 %)
     assert lp(W24X76, 50.0) / 12 == pytest.approx(6.78, rel=0.005)
     assert lr(W24X76, 50.0) / 12 == pytest.approx(19.5, rel=0.005)
@@ -212,7 +212,7 @@ def test_cb_uniform_load_unbraced_span():
     x, m = _uniform_load_moment()
     # Eq. F1-1 with M/Mmax = 0.75, 1, 0.75 at quarter points: 12.5/(2.5 + 2.25 + 4 + 2.25) = 1.136
     assert cb_for_segment(x, m, 0.0, 360.0) == pytest.approx(12.5 / 11.0, rel=1e-9)
-    assert cb_for_segment(x, m, 0.0, 360.0) == pytest.approx(1.14, abs=0.005)  # REFERENCE.md section 4 (D)
+    assert cb_for_segment(x, m, 0.0, 360.0) == pytest.approx(1.14, abs=0.005)  # AISC 360-22 Eq. F1-1 recomputed by hand (D)
 
 
 def test_cb_uniform_load_braced_at_midspan():
@@ -224,7 +224,7 @@ def test_cb_uniform_load_braced_at_midspan():
     assert np.allclose(segs.start, [0.0, 180.0]) and np.allclose(segs.end, [180.0, 360.0])
     assert np.allclose(segs.lb, [180.0, 180.0])
     assert np.allclose(segs.cb, hand, rtol=1e-9)
-    assert np.allclose(segs.cb, 1.30, atol=0.005)  # REFERENCE.md section 4 (D)
+    assert np.allclose(segs.cb, 1.30, atol=0.005)  # AISC 360-22 Eq. F1-1 recomputed by hand (D)
     assert np.allclose(segs.m_max, 0.1 * 360.0**2 / 8)  # wL^2/8 at midspan
     # vectorised: both halves at once
     assert np.allclose(cb_for_segment(x, m, [0.0, 180.0], [180.0, 360.0]), hand, rtol=1e-9)

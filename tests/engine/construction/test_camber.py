@@ -2,9 +2,9 @@
 
 Check values: AISC 303 Code of Standard Practice 6.4.4 as quoted in AISC Engineering FAQ 3.2.2
 (-0/+1/2 in up to 50 ft, plus 1/8 in per 10 ft or fraction beyond); AISC Design Examples v16.0
-Ex. I.2 (1.00 in -> 0.80 in -> 3/4 in, REFERENCE.md section 7, V); Structural Steel Designer's
-Handbook p. 6.20 (100% of 1.65 in specified as 1.5 in, REFERENCE.md section 2, V); rounding down,
-3/4 in minimum, 24 ft and 14 in thresholds are common practice (DESIGN.md "Camber").
+Ex. I.2 (1.00 in -> 0.80 in -> 3/4 in, V); Structural Steel Designer's
+Handbook p. 6.20 (100% of 1.65 in specified as 1.5 in, V); rounding down,
+3/4 in minimum, 24 ft and 14 in thresholds are common practice (no published source).
 """
 
 from __future__ import annotations

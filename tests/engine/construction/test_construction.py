@@ -223,7 +223,7 @@ def test_construction_live_load_acts_only_over_the_stage_being_placed():
 
 
 def test_unstable_level_screed_is_a_failed_check_not_an_exception():
-    # W8X10 (Ix = 30.8 in^4) over 40 ft at 15 ft spacing: Cc = k L^4/(pi^4 EI) >> 1 (REFERENCE.md section 2)
+    # W8X10 (Ix = 30.8 in^4) over 40 ft at 15 ft spacing: Cc = k L^4/(pi^4 EI) >> 1 (closed form after Ruddy, AISC EJ 1986)
     r = evaluate_construction(beam(shape=get_shape("W8X10"), spacing=15 * FT, screed="level", unbraced_length=0.0))
     stability = next(c for c in r.checks if c.id == "construction.ponding_stability")
     assert not r.ponding_stable and not stability.passed and r.verdict == "fail"

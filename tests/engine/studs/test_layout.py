@@ -1,7 +1,7 @@
 """Stud layout: slots along the beam, real per-rib Q_n, hand-worked layouts, I8.2c at point loads.
 
 Units: in, kip, ksi. Q_n values: AISC 360-22 Eq. I8-1 recomputed by hand beside each check
-(REFERENCE.md section 8 lists the same unrounded steel limits: 17.23 / 14.65 / 12.06 weak,
+(AISC 360-22 Eq. I8-1 recomputed by hand gives the same unrounded steel limits: 17.23 / 14.65 / 12.06 weak,
 21.54 / 18.31 / 15.08 strong, for 3/4 in studs, Fu 65 ksi).
 """
 

@@ -90,7 +90,7 @@ def test_csv_escapes_user_text_and_keeps_numbers(tmp_path, capsys):
     assert rows[-1][0] == "caution" and "engineer of record" in rows[-1][1]  # header first, caution last
     header = rows[0]
     by_mark = {r[0]: dict(zip(header, r)) for r in rows[1:-1]}
-    risky = by_mark["'=HYPERLINK(1)"]  # formula injection escaped (DESIGN.md section 7)
+    risky = by_mark["'=HYPERLINK(1)"]  # formula injection escaped (a cell opening with = + - @ is a spreadsheet formula)
     assert risky["camber_reason"] == "not cambered: +cmd"  # does not start with a formula character
     assert float(by_mark["3B-102"]["camber_in"]) == 1.0 and by_mark["3B-102"]["camber_in"] == "1.0"
     assert not any(cell.startswith(("=", "+", "@")) for row in rows for cell in row)
