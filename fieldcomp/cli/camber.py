@@ -46,10 +46,11 @@ def camber_beam(beam, as_json: bool, keep: bool = True) -> tuple[str | None, str
 def level_bays(job, beams):
     """The level's bays and concrete (engine.pipeline.evaluate_level) when some beam end rests on
     a girder or the job has pour zones, else None."""
-    if not job.zone and not job.project.framing_from_plan and not any(b.left_on or b.right_on for b in job.beam):
+    from fieldcomp.jobs.to_engine import has_level, level_input
+
+    if not has_level(job):
         return None
     from engine.pipeline import evaluate_level
-    from fieldcomp.jobs.to_engine import level_input
 
     return evaluate_level(level_input(job, beams))
 
